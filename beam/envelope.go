@@ -100,17 +100,17 @@ func (a *Analysis) combTable(combos []Combination) (combTable, error) {
 }
 
 // accumulator gathers, for one station or support, each case's positive and negative parts
-// (region by region for patterned cases) and the regions they come from.
+// (region by region for patterned cases) and the regions they come from, for up to four
+// quantities.
 type accumulator struct {
-	nq       int
-	pos, neg []float64 // [case*nq + q]
-	pMask    []uint64  // [case*nq + q] regions with a positive share
-	nMask    []uint64
+	nq           int
+	pos, neg     [][nStationQ]float64 // [case][q]
+	pMask, nMask [][nStationQ]uint64  // [case][q] regions with a positive (negative) share
 }
 
 func newAccumulator(cases, nq int) *accumulator {
-	return &accumulator{nq: nq, pos: make([]float64, cases*nq), neg: make([]float64, cases*nq),
-		pMask: make([]uint64, cases*nq), nMask: make([]uint64, cases*nq)}
+	return &accumulator{nq: nq, pos: make([][nStationQ]float64, cases), neg: make([][nStationQ]float64, cases),
+		pMask: make([][nStationQ]uint64, cases), nMask: make([][nStationQ]uint64, cases)}
 }
 
 func (ac *accumulator) reset() {
@@ -121,13 +121,12 @@ func (ac *accumulator) reset() {
 }
 
 func (ac *accumulator) add(k, q int, region int, v float64) {
-	i := k*ac.nq + q
 	if v > 0 {
-		ac.pos[i] += v
-		ac.pMask[i] |= 1 << uint(region)
+		ac.pos[k][q] += v
+		ac.pMask[k][q] |= 1 << uint(region)
 	} else if v < 0 {
-		ac.neg[i] += v
-		ac.nMask[i] |= 1 << uint(region)
+		ac.neg[k][q] += v
+		ac.nMask[k][q] |= 1 << uint(region)
 	}
 }
 
@@ -136,59 +135,74 @@ type envelopeBuilder struct {
 	a         *Analysis
 	combos    []Combination
 	tab       combTable
-	patterned []int // case indices of the patterned cases
+	patterned []int    // case indices of the patterned cases
+	byState   [2][]int // combination indices of each limit state
+	terms     [][]term // per combination, the cases with a non-zero factor
 }
 
-// extremes writes the max and min over the combinations of the state into mx and mn for
-// quantity q. loadedMax and loadedMin receive the region masks (len = patterned cases).
-func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, q int, mx, mn *Extreme) {
-	mx.Value, mn.Value = math.Inf(-1), math.Inf(1)
-	mx.Combination, mn.Combination = -1, -1
-	nc := len(b.a.cases)
-	for c, cb := range b.combos {
-		if cb.State != state {
+// term is one case's factors in one combination.
+type term struct {
+	k      int     // case index
+	hi, lo float64 // larger and smaller factor
+}
+
+// extremes writes, for every quantity q, the max and min over the combinations of one state
+// into mx[q] and mn[q], with the region masks of the patterned cases.
+func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*Extreme) {
+	nq := ac.nq
+	var vmax, vmin [nStationQ]float64
+	for q := 0; q < nq; q++ {
+		mx[q].Value, mn[q].Value = math.Inf(-1), math.Inf(1)
+		mx[q].Combination, mn[q].Combination = -1, -1
+	}
+	for _, c := range b.byState[state] {
+		vmax, vmin = [nStationQ]float64{}, [nStationQ]float64{}
+		for _, f := range b.terms[c] {
+			p, n := &ac.pos[f.k], &ac.neg[f.k]
+			vmax[0] += f.hi*p[0] + f.lo*n[0]
+			vmax[1] += f.hi*p[1] + f.lo*n[1]
+			vmax[2] += f.hi*p[2] + f.lo*n[2]
+			vmax[3] += f.hi*p[3] + f.lo*n[3]
+			vmin[0] += f.lo*p[0] + f.hi*n[0]
+			vmin[1] += f.lo*p[1] + f.hi*n[1]
+			vmin[2] += f.lo*p[2] + f.hi*n[2]
+			vmin[3] += f.lo*p[3] + f.hi*n[3]
+		}
+		for q := 0; q < nq; q++ {
+			if vmax[q] > mx[q].Value {
+				mx[q].Value, mx[q].Combination = vmax[q], c
+			}
+			if vmin[q] < mn[q].Value {
+				mn[q].Value, mn[q].Combination = vmin[q], c
+			}
+		}
+	}
+	for q := 0; q < nq; q++ {
+		if mx[q].Combination < 0 {
+			mx[q].Value, mn[q].Value = 0, 0
 			continue
 		}
-		hi, lo := b.tab.hi[c], b.tab.lo[c]
-		vmax, vmin := 0.0, 0.0
-		for k := 0; k < nc; k++ {
-			i := k*ac.nq + q
-			vmax += hi[k]*ac.pos[i] + lo[k]*ac.neg[i]
-			vmin += lo[k]*ac.pos[i] + hi[k]*ac.neg[i]
-		}
-		if vmax > mx.Value {
-			mx.Value, mx.Combination = vmax, c
-		}
-		if vmin < mn.Value {
-			mn.Value, mn.Combination = vmin, c
-		}
+		b.masks(ac, q, mx[q], true)
+		b.masks(ac, q, mn[q], false)
 	}
-	if mx.Combination < 0 {
-		mx.Value, mn.Value = 0, 0
-		return
-	}
-	b.masks(ac, q, mx, true)
-	b.masks(ac, q, mn, false)
 }
 
 // masks fills ex.Loaded with the regions where each patterned case takes its adverse factor.
 func (b *envelopeBuilder) masks(ac *accumulator, q int, ex *Extreme, seekMax bool) {
 	c := ex.Combination
 	for j, k := range b.patterned {
-		i := k*ac.nq + q
 		if b.tab.hi[c][k] == b.tab.lo[c][k] {
 			ex.Loaded[j] = 0 // the case is absent or takes one factor: no pattern
 			if b.tab.hi[c][k] > 0 {
-				ex.Loaded[j] = ac.pMask[i] | ac.nMask[i]
+				ex.Loaded[j] = ac.pMask[k][q] | ac.nMask[k][q]
 			}
 			continue
 		}
 		// the larger factor goes on the positive parts when seeking a maximum
-		onPositive := seekMax == b.tab.adverseHi[c][k]
-		if onPositive {
-			ex.Loaded[j] = ac.pMask[i]
+		if seekMax == b.tab.adverseHi[c][k] {
+			ex.Loaded[j] = ac.pMask[k][q]
 		} else {
-			ex.Loaded[j] = ac.nMask[i]
+			ex.Loaded[j] = ac.nMask[k][q]
 		}
 	}
 }
@@ -202,6 +216,16 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 		return Envelopes{}, err
 	}
 	b := &envelopeBuilder{a: a, combos: combos, tab: tab}
+	for c, cb := range combos {
+		b.byState[cb.State] = append(b.byState[cb.State], c)
+		var terms []term
+		for k := range a.cases {
+			if tab.hi[c][k] != 0 || tab.lo[c][k] != 0 {
+				terms = append(terms, term{k: k, hi: tab.hi[c][k], lo: tab.lo[c][k]})
+			}
+		}
+		b.terms = append(b.terms, terms)
+	}
 	var names []string
 	for k, c := range a.cases {
 		if c.Pattern {
@@ -213,9 +237,11 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 	np := len(b.patterned)
 	states := []*Envelope{&env.ULS, &env.SLS}
 	env.ULS.State, env.SLS.State = ULS, SLS
-	for _, e := range states {
-		for _, p := range e.series() {
-			*p = newExtremes(len(st), np)
+	all := newExtremes(16*len(st), np)
+	for si, e := range states {
+		for j, p := range e.series() {
+			o := (8*si + j) * len(st)
+			*p = all[o : o+len(st) : o+len(st)]
 		}
 	}
 	ac := newAccumulator(len(a.cases), nStationQ)
@@ -233,10 +259,9 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 			}
 		}
 		for _, en := range states {
-			ser := en.series()
-			for q := 0; q < nStationQ; q++ {
-				b.extremes(ac, en.State, q, &(*ser[2*q])[i], &(*ser[2*q+1])[i])
-			}
+			mx := []*Extreme{&en.MMax[i], &en.VMax[i], &en.NMax[i], &en.WMax[i]}
+			mn := []*Extreme{&en.MMin[i], &en.VMin[i], &en.NMin[i], &en.WMin[i]}
+			b.extremes(ac, en.State, mx, mn)
 		}
 	}
 	env.ULSReactions = a.reactionEnvelope(b, ULS)
@@ -275,13 +300,14 @@ func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) []Reac
 			}
 		}
 		re := ReactionEnvelope{X: sp.X}
-		pairs := [][2]*Extreme{{&re.FzMax, &re.FzMin}, {&re.FxMax, &re.FxMin}, {&re.MyMax, &re.MyMin}}
-		for q, p := range pairs {
-			if np > 0 {
-				p[0].Loaded, p[1].Loaded = make([]uint64, np), make([]uint64, np)
+		mx := []*Extreme{&re.FzMax, &re.FxMax, &re.MyMax}
+		mn := []*Extreme{&re.FzMin, &re.FxMin, &re.MyMin}
+		if np > 0 {
+			for q := range mx {
+				mx[q].Loaded, mn[q].Loaded = make([]uint64, np), make([]uint64, np)
 			}
-			b.extremes(ac, state, q, p[0], p[1])
 		}
+		b.extremes(ac, state, mx, mn)
 		out[si] = re
 	}
 	return out
