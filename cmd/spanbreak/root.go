@@ -1,0 +1,64 @@
+package main
+
+import (
+	"fmt"
+	"runtime/debug"
+	"strings"
+
+	"github.com/spf13/cobra"
+)
+
+// caution is printed with every engineering result.
+const caution = "CAUTION: spanbreak is a design aid. Every result must be verified by a competent engineer; " +
+	"national annex values, local codes and licensed practice govern. Static design only: " +
+	"no fatigue, seismic, fire or lateral-torsional buckling of the member."
+
+// version returns the module version the binary was built from.
+func version() string {
+	if bi, ok := debug.ReadBuildInfo(); ok && bi.Main.Version != "" && bi.Main.Version != "(devel)" {
+		return bi.Main.Version
+	}
+	return "dev"
+}
+
+func newRootCommand() *cobra.Command {
+	root := &cobra.Command{
+		Use:   "spanbreak",
+		Short: "Where to splice a long steel beam, and what each bolted splice costs",
+		Long: `spanbreak analyses a continuous steel beam (spans, supports, load cases, EN 1990
+combinations with pattern loading) to exact ULS and SLS envelopes, designs bolted cover-plate
+splices to EN 1993-1-8 and finds where to break the beam for transport and erection.
+
+` + caution,
+		SilenceErrors: true,
+		SilenceUsage:  true,
+		Version:       version(),
+	}
+	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return usageError(err) })
+	root.AddCommand(
+		newDemoCommand(),
+		newAnalyseCommand(),
+		newSectionsCommand(),
+	)
+	return root
+}
+
+// checkFormat validates a --format value against the formats a command prints.
+func checkFormat(format string, allowed ...string) error {
+	for _, a := range allowed {
+		if format == a {
+			return nil
+		}
+	}
+	return usageError(fmt.Errorf("--format %q: want one of %s", format, strings.Join(allowed, ", ")))
+}
+
+// argsUsage wraps a cobra argument validator so that its errors exit with status 2.
+func argsUsage(v cobra.PositionalArgs) cobra.PositionalArgs {
+	return func(cmd *cobra.Command, args []string) error {
+		if err := v(cmd, args); err != nil {
+			return usageError(err)
+		}
+		return nil
+	}
+}

@@ -1,0 +1,12 @@
+package optimise
+
+import _ "embed"
+
+//go:embed demo.yaml
+var demoJob []byte
+
+// DemoJobName is the file name the embedded demo job is reported under.
+const DemoJobName = "demo.yaml (embedded, invented data)"
+
+// DemoJob returns a copy of the embedded demo job file: a scenario invented for the tool.
+func DemoJob() []byte { return append([]byte(nil), demoJob...) }

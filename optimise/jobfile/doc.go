@@ -1,0 +1,56 @@
+// Package jobfile reads spanbreak's input files — the job file and the fixed-splice file of
+// DESIGN.md section 8 — into plain data structs, strictly, reporting every problem of a file
+// in one pass with its file, line, column and key path.
+//
+// # Decoding
+//
+// Decode parses one YAML document with go.yaml.in/yaml/v3 into a yaml.Node tree and walks it
+// into a struct by the fields' `yaml:"name"` tags (`yaml:"name,required"` for a key that must
+// be present). Unknown keys (with the allowed keys and a did-you-mean), wrong types, duplicate
+// keys, NaN and infinities, hexadecimal or octal numbers, merge keys and non-standard tags are
+// problems. Aliases are rejected wherever they appear and the tree is never expanded, so an
+// alias bomb costs no more than its size; input over MaxFileSize (4 MiB) is refused before
+// parsing. Types that read themselves implement NodeDecoder; Map keeps a mapping's order and
+// key positions.
+//
+// # Units
+//
+// Unit-bearing values take a bare number in the field's documented unit or a string with a
+// unit ("7.2 m", "7200 mm", "25 kN/m", "180 kNm", "2.5 t"); a wrong dimension or an unknown
+// unit is a problem. The value types hold the internal unit of spanbreak — mm, N, N·mm, N/mm,
+// kg — and their names say the unit of a bare number in the file:
+//
+//	type         bare number   held in   accepted units
+//	Metres       m             mm        m, cm, mm
+//	Millimetres  mm            mm        m, cm, mm
+//	KiloNewtons  kN            N         kN, N, MN
+//	KiloNewtonMetres kNm       N·mm      kNm, Nm, Nmm, kNmm, MNm (kN·m, kN m also)
+//	LineLoad     kN/m          N/mm      kN/m, N/mm, N/m, kN/mm, MN/m
+//	Stiffness    kN/m          N/mm      as LineLoad (a spring's force per deflection)
+//	Kilograms    kg            kg        kg, t
+//
+// Read them with MM, N, NMM, NPerMM or KG; a conversion like float64(Metres) gives mm, not m.
+//
+// # Signs
+//
+// As in the job file: x from the left end of the beam; transverse loads positive downward,
+// point moments positive clockwise, axial forces positive along +x. The package does not
+// change signs.
+//
+// # Checks
+//
+// LoadJob and LoadSpliceFile add the checks that need no analysis: required keys, counts
+// (one support per span end), ranges (spans > 0, positions on the beam, from < to, ψ in
+// [0, 1], no negative limits or rates), allowed values, references between blocks (case
+// names in combinations, bolt sizes in the costs) and overlapping keep-out ranges. Section
+// and grade names are not looked up here: the caller does that and may add its problems to
+// the same list through each struct's Meta (Meta.Where gives the location of any key below
+// it) and Problems.Add. List indices in key paths count from 0.
+//
+// # Errors
+//
+// Everything a file can cause is a returned Problems (which implements error, one line
+// "file:line:col: path: message" per problem, sorted by position); the decoder never panics on
+// input. Panics are kept for programmer error: decoding into something other than a pointer
+// to a struct, or a schema field without a yaml tag. The package never prints.
+package jobfile

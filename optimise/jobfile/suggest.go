@@ -1,0 +1,69 @@
+package jobfile
+
+import (
+	"strconv"
+	"strings"
+)
+
+// Suggest returns the allowed word closest to got when it is close enough to be a likely
+// typing slip (a case difference, or an edit distance of 1 for short words, 2 for longer
+// ones, counting a swap of neighbours as one edit), or "" otherwise.
+func Suggest(got string, allowed []string) string {
+	if len(got) > 64 {
+		return ""
+	}
+	best, bestD := "", 1<<30
+	for _, a := range allowed {
+		if strings.EqualFold(a, got) && a != got {
+			return a
+		}
+		d := editDistance(strings.ToLower(got), strings.ToLower(a))
+		if d < bestD {
+			best, bestD = a, d
+		}
+	}
+	limit := 1
+	if len(got) > 4 {
+		limit = 2
+	}
+	if bestD == 0 || bestD > limit {
+		return ""
+	}
+	return best
+}
+
+// oneOf formats an allowed-values list with a did-you-mean, as used after "unknown ...":
+// ` (allowed: a, b, c); did you mean "b"?`.
+func oneOf(got string, allowed []string) string {
+	s := " (allowed: " + strings.Join(allowed, ", ") + ")"
+	if g := Suggest(got, allowed); g != "" {
+		s += "; did you mean " + strconv.Quote(g) + "?"
+	}
+	return s
+}
+
+// editDistance is the optimal-string-alignment distance between a and b (insertions,
+// deletions, substitutions and swaps of adjacent characters, each costing 1), over bytes.
+func editDistance(a, b string) int {
+	prev2 := make([]int, len(b)+1)
+	prev := make([]int, len(b)+1)
+	cur := make([]int, len(b)+1)
+	for j := range prev {
+		prev[j] = j
+	}
+	for i := 1; i <= len(a); i++ {
+		cur[0] = i
+		for j := 1; j <= len(b); j++ {
+			cost := 1
+			if a[i-1] == b[j-1] {
+				cost = 0
+			}
+			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
+			if i > 1 && j > 1 && a[i-1] == b[j-2] && a[i-2] == b[j-1] {
+				cur[j] = min(cur[j], prev2[j-2]+1)
+			}
+		}
+		prev2, prev, cur = prev, cur, prev2
+	}
+	return prev[len(b)]
+}

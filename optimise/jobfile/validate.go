@@ -1,0 +1,683 @@
+package jobfile
+
+import (
+	"slices"
+	"sort"
+	"strconv"
+	"strings"
+)
+
+// LoadJob decodes and checks a job file in one pass: every decoding problem (syntax, unknown
+// keys, wrong types, bad units, NaN) and every check that needs no analysis (ranges, counts,
+// references between blocks), each with file:line:column and key path. It does not look up
+// section or grade names, nor analyse the beam.
+//
+// The error is nil or a Problems. When the file parsed, the Job is returned even with
+// problems, decoded as far as it could be, so the caller can add its own checks to the same
+// list; when it did not parse (too large, not YAML, empty) the Job is nil.
+func LoadJob(file string, data []byte) (*Job, error) {
+	job := new(Job)
+	d, parsed := decodeFile(file, data, job)
+	if !parsed {
+		return nil, d.problems.Err()
+	}
+	c := newChecker(d)
+	c.job(job)
+	return job, d.problems.Err()
+}
+
+// LoadSpliceFile decodes and checks a fixed-splice file like LoadJob does a job file.
+func LoadSpliceFile(file string, data []byte) (*SpliceFile, error) {
+	sf := new(SpliceFile)
+	d, parsed := decodeFile(file, data, sf)
+	if !parsed {
+		return nil, d.problems.Err()
+	}
+	c := newChecker(d)
+	c.spliceFile(sf)
+	return sf, d.problems.Err()
+}
+
+// checker adds the semantic checks to a decoder's problems. A value that already failed to
+// decode is not checked again (it holds a zero that would only mislead).
+type checker struct {
+	failedPaths []string // values that did not decode
+	out         *Problems
+}
+
+func newChecker(d *Decoder) *checker {
+	return &checker{failedPaths: slices.Clone(d.failed), out: &d.problems}
+}
+
+// add records a problem unless the value it is about, or one containing it, did not decode.
+func (c *checker) add(at Loc, format string, args ...any) {
+	for _, p := range c.failedPaths {
+		if ancestorOrSelf(p, at.Path) {
+			return
+		}
+	}
+	c.out.Add(at, format, args...)
+}
+
+// failed reports whether a value at, inside or around the location's path did not decode: a
+// check that sums or counts what is inside (the beam length, the number of supports) is then
+// left out.
+func (c *checker) failed(at Loc) bool {
+	for _, p := range c.failedPaths {
+		if ancestorOrSelf(p, at.Path) || ancestorOrSelf(at.Path, p) {
+			return true
+		}
+	}
+	return false
+}
+
+// enum checks that a given string is one of the allowed values.
+func (c *checker) enum(m Meta, key, what, got string, allowed []string) {
+	if !m.Has(key) || slices.Contains(allowed, got) {
+		return
+	}
+	c.add(m.Where(key), "unknown %s %q%s", what, clip(got), oneOf(got, allowed))
+}
+
+// positive checks v > 0 for a present value.
+func (c *checker) positive(at Loc, what string, v float64, show string) {
+	if !(v > 0) {
+		c.add(at, "%s must be greater than 0, got %s", what, show)
+	}
+}
+
+// nonNegative checks v ≥ 0 for a present value.
+func (c *checker) nonNegative(at Loc, what string, v float64, show string) {
+	if v < 0 {
+		c.add(at, "%s must not be negative, got %s", what, show)
+	}
+}
+
+// beamLength is the total length when it can be trusted for position checks.
+type beamLength struct {
+	mm float64
+	ok bool
+}
+
+func (l beamLength) String() string { return Metres(l.mm).String() }
+
+func (c *checker) job(j *Job) {
+	length := c.beam(&j.Beam)
+	names := c.cases(j, length)
+	c.combinations(j.Combinations, names)
+	c.spliceOptions(j.Splice)
+	c.limits(j.Limits, length)
+	c.vehicles(j.Vehicles)
+	c.costs(j.Costs, j.Splice)
+	c.scan(j.Scan, length)
+}
+
+func (c *checker) beam(b *Beam) beamLength {
+	c.section(b.Section)
+	if b.Has("grade") && strings.TrimSpace(b.Grade) == "" {
+		c.add(b.Where("grade"), "the grade is empty; write a steel grade such as S355")
+	}
+	c.enum(b.Meta, "grade_table", "grade table", b.GradeTable, []string{GradeTableEN1993, GradeTableEN10025})
+	ok := !c.failed(b.Where("spans")) && !c.failed(b.Where("overhang"))
+	if b.Has("spans") && len(b.Spans) == 0 && ok {
+		c.add(b.Where("spans"), "the beam needs at least one span")
+		ok = false
+	}
+	for i, s := range b.Spans {
+		if !(s > 0) {
+			c.add(b.Where(indexPath("spans", i)), "a span must be longer than 0, got %s", s)
+			ok = false
+		}
+	}
+	if o := b.Overhang; o != nil {
+		for _, side := range []struct {
+			key string
+			v   Metres
+		}{{"left", o.Left}, {"right", o.Right}} {
+			if side.v < 0 {
+				c.add(o.Where(side.key), "an overhang must not be negative, got %s", side.v)
+				ok = false
+			}
+		}
+	}
+	length := beamLength{mm: b.Length(), ok: ok && len(b.Spans) > 0}
+	c.supports(b, length.ok)
+	c.hinges(b, length)
+	return length
+}
+
+func (c *checker) section(s Section) {
+	w := s.Welded
+	if w == nil {
+		return
+	}
+	dims := []struct {
+		key string
+		v   Millimetres
+	}{{"h", w.H}, {"b", w.B}, {"tw", w.Tw}, {"tf", w.Tf}}
+	allPositive := true
+	for _, dim := range dims {
+		if w.Has(dim.key) && !(dim.v > 0) {
+			c.add(w.Where(dim.key), "%s must be greater than 0, got %s", dim.key, dim.v)
+			allPositive = false
+		}
+	}
+	if !allPositive || c.failed(w.Meta.Loc) {
+		return
+	}
+	if 2*w.Tf >= w.H {
+		c.add(w.Where("tf"), "two flanges of tf = %s leave no web in h = %s", w.Tf, w.H)
+	}
+	if w.Tw >= w.B {
+		c.add(w.Where("tw"), "the web (tw = %s) is not narrower than the flange (b = %s)", w.Tw, w.B)
+	}
+}
+
+func (c *checker) supports(b *Beam, spansOK bool) {
+	if spansOK && b.Has("supports") && !c.failed(b.Where("supports")) && len(b.Supports) != len(b.Spans)+1 {
+		c.add(b.Where("supports"), "%d span(s) need %d supports, one per span end; got %d",
+			len(b.Spans), len(b.Spans)+1, len(b.Supports))
+	}
+	for _, s := range b.Supports {
+		if !slices.Contains(SupportTypes(), s.Type) {
+			where := s.Meta.Loc
+			if s.Has("type") {
+				where = s.Where("type")
+			}
+			c.add(where, "unknown support type %q%s", clip(s.Type), oneOf(s.Type, SupportTypes()))
+			continue
+		}
+		switch {
+		case s.Type == SupportSpring && s.K == nil:
+			c.add(s.Meta.Loc, "a spring support needs its stiffness: {type: spring, k: 50000} (kN/m)")
+		case s.Type == SupportSpring:
+			c.positive(s.Where("k"), "a spring stiffness", s.K.NPerMM(), s.K.String())
+		case s.K != nil:
+			c.add(s.Where("k"), "k applies to spring supports only; this one is %s", s.Type)
+		}
+	}
+}
+
+func (c *checker) hinges(b *Beam, length beamLength) {
+	if !length.ok {
+		return
+	}
+	seen := make(map[Metres]int)
+	for i, h := range b.Hinges {
+		at := b.Where(indexPath("hinges", i))
+		if !(h > 0 && h.MM() < length.mm) {
+			c.add(at, "a hinge at %s is not inside the beam (0 to %s)", h, length)
+			continue
+		}
+		if first, dup := seen[h]; dup {
+			c.add(at, "a second hinge at %s (hinges[%d])", h, first)
+			continue
+		}
+		seen[h] = i
+	}
+}
+
+// cases checks every load case and returns the names combinations may use (SW included when
+// the self weight is on).
+func (c *checker) cases(j *Job, length beamLength) []string {
+	selfWeight := j.Beam.IncludesSelfWeight()
+	if j.Has("cases") && len(j.Cases) == 0 && !c.failed(j.Where("cases")) {
+		c.add(j.Where("cases"), "at least one load case is needed")
+	}
+	var names []string
+	for _, e := range j.Cases {
+		names = append(names, e.Key)
+		switch {
+		case strings.TrimSpace(e.Key) == "":
+			c.add(e.Loc, "a case needs a name")
+		case e.Key == SelfWeightCase && selfWeight:
+			how := "self_weight: true"
+			if j.Beam.SelfWeight == nil {
+				how = "self_weight is on unless set to false"
+			}
+			c.add(e.Loc, "the case name %q is taken by the self weight (%s); rename the case or set self_weight: false",
+				SelfWeightCase, how)
+		}
+		c.loadCase(e.Value, length)
+	}
+	if selfWeight && !slices.Contains(names, SelfWeightCase) {
+		names = append(names, SelfWeightCase)
+	}
+	return names
+}
+
+func (c *checker) loadCase(lc Case, length beamLength) {
+	c.enum(lc.Meta, "kind", "case kind", lc.Kind, CaseKinds())
+	switch lc.Kind {
+	case KindImposed:
+		c.enum(lc.Meta, "category", "imposed load category", lc.Category, ImposedCategories())
+		if !lc.Has("category") && lc.Psi == nil {
+			c.add(lc.Meta.Loc, "an imposed case needs a category (A to H, EN 1990 Table A1.1) or psi")
+		}
+	case KindSnow:
+		c.enum(lc.Meta, "category", "snow category", lc.Category, SnowCategories())
+	default:
+		if lc.Has("category") {
+			c.add(lc.Where("category"), "category applies to imposed and snow cases, not %s", clip(lc.Kind))
+		}
+	}
+	if lc.Kind == KindPermanent {
+		if lc.Pattern != nil && *lc.Pattern {
+			c.add(lc.Where("pattern"), "a permanent case is not patterned: a permanent action from one source takes one γG over the whole beam")
+		}
+		if lc.Has("psi") {
+			c.add(lc.Where("psi"), "psi applies to variable actions, not to a permanent case")
+		}
+	}
+	if lc.Kind == KindOther && !lc.Has("psi") {
+		c.add(lc.Meta.Loc, "an 'other' case needs psi: [ψ0, ψ1, ψ2] (EN 1990 Table A1.1 has no row for it)")
+	}
+	if lc.Psi != nil {
+		for i, psi := range lc.Psi {
+			if psi < 0 || psi > 1 {
+				c.add(lc.Where(indexPath("psi", i)), "ψ%d must lie between 0 and 1, got %s", i, formatNumber(psi))
+			}
+		}
+	}
+	switch {
+	case !lc.Has("loads"):
+		c.add(lc.Meta.Loc, "the case has no loads")
+	case len(lc.Loads) == 0:
+		c.add(lc.Where("loads"), "the list of loads is empty")
+	}
+	for _, l := range lc.Loads {
+		c.load(l, length)
+	}
+}
+
+func (c *checker) load(l Load, length beamLength) {
+	if !length.ok || l.Kind == "" {
+		return
+	}
+	onBeam := func(key string, x Metres) bool {
+		if x < 0 || x.MM() > length.mm {
+			c.add(l.Where(key), "position %s is off the beam (0 to %s)", x, length)
+			return false
+		}
+		return true
+	}
+	if !l.Distributed() {
+		onBeam("at", l.At)
+		return
+	}
+	ends := true
+	if l.From != nil {
+		ends = onBeam("from", *l.From) && ends
+	}
+	if l.To != nil {
+		ends = onBeam("to", *l.To) && ends
+	}
+	from, to := l.Range(length.mm)
+	if ends && !(from < to) {
+		key := "to"
+		if l.To == nil {
+			key = "from"
+		}
+		c.add(l.Where(key), "from (%s) must be less than to (%s)", Metres(from), Metres(to))
+	}
+}
+
+func (c *checker) combinations(cb *Combinations, caseNames []string) {
+	if cb == nil {
+		return
+	}
+	c.enum(cb.Meta, "rules", "rule set", cb.Rules, []string{RulesEN1990})
+	c.enum(cb.Meta, "uls", "ULS combination", cb.ULS, []string{ULS610, ULS610ab})
+	c.enum(cb.Meta, "sls", "SLS combination", cb.SLS, []string{SLSCharacteristic, SLSFrequent, SLSQuasiPermanent})
+	for _, o := range cb.Overrides {
+		switch {
+		case !slices.Contains(OverrideKeys(), o.Key):
+			c.add(o.Loc, "unknown override %q%s", clip(o.Key), oneOf(o.Key, OverrideKeys()))
+		case o.Key == "xi" && !(o.Value > 0 && o.Value <= 1):
+			c.add(o.Loc, "xi must lie in (0, 1], got %s", formatNumber(o.Value))
+		default:
+			c.nonNegative(o.Loc, o.Key, o.Value, formatNumber(o.Value))
+		}
+	}
+	if sup, ok := cb.Overrides.Get("gamma_G_sup"); ok {
+		if inf, ok := cb.Overrides.Get("gamma_G_inf"); ok && inf > sup {
+			c.add(cb.Where("overrides.gamma_G_inf"), "gamma_G_inf (%s) exceeds gamma_G_sup (%s)",
+				formatNumber(inf), formatNumber(sup))
+		}
+	}
+	seen := make(map[string]int)
+	for i, x := range cb.Extra {
+		if x.Has("name") {
+			if first, dup := seen[x.Name]; dup {
+				c.add(x.Where("name"), "a second combination named %q (extra[%d])", clip(x.Name), first)
+			} else if strings.TrimSpace(x.Name) == "" {
+				c.add(x.Where("name"), "a combination needs a name")
+			}
+			seen[x.Name] = i
+		}
+		c.enum(x.Meta, "state", "limit state", x.State, []string{StateULS, StateSLS})
+		if x.Has("factors") && len(x.Factors) == 0 && !c.failed(x.Where("factors")) {
+			c.add(x.Where("factors"), "a combination needs at least one factor")
+		}
+		for _, f := range x.Factors {
+			if !slices.Contains(caseNames, f.Key) {
+				c.add(f.Loc, "case %q is not defined (cases: %s)%s", clip(f.Key),
+					strings.Join(caseNames, ", "), didYouMean(f.Key, caseNames))
+			}
+			c.nonNegative(f.Loc, "a factor", f.Value, formatNumber(f.Value))
+		}
+	}
+}
+
+// didYouMean returns `; did you mean "x"?` or "".
+func didYouMean(got string, allowed []string) string {
+	if g := Suggest(got, allowed); g != "" {
+		return "; did you mean " + strconv.Quote(g) + "?"
+	}
+	return ""
+}
+
+func (c *checker) spliceOptions(s *SpliceOptions) {
+	if s == nil {
+		return
+	}
+	c.enum(s.Meta, "category", "splice category", s.Category, SpliceCategories())
+	c.enum(s.Meta, "friction_class", "friction class", s.FrictionClass, FrictionClasses())
+	c.enum(s.Meta, "distribution", "force distribution", s.Distribution,
+		[]string{DistributionProportional, DistributionFlangesOnly})
+	if b := s.Bolts; b != nil {
+		list(c, b.Meta, "sizes", "bolt sizes", b.Sizes, c.boltSize)
+		list(c, b.Meta, "classes", "bolt classes", b.Classes, func(at Loc, class string) {
+			c.boltClass(at, class, s.Category)
+		})
+	}
+	if p := s.Plates; p != nil {
+		if p.Has("grade") && strings.TrimSpace(p.Grade) == "" {
+			c.add(p.Where("grade"), "the plate grade is empty; write a steel grade such as S355")
+		}
+		list(c, p.Meta, "thicknesses", "plate thicknesses", p.Thicknesses, func(at Loc, t Millimetres) {
+			c.positive(at, "a plate thickness", t.MM(), t.String())
+		})
+	}
+	list(c, s.Meta, "flange_plates", "flange plate arrangements", s.FlangePlates, func(at Loc, f string) {
+		if !slices.Contains([]string{FlangeOuter, FlangeOuterInner}, f) {
+			c.add(at, "unknown flange plate arrangement %q%s", clip(f), oneOf(f, []string{FlangeOuter, FlangeOuterInner}))
+		}
+	})
+	if s.Gap != nil {
+		c.nonNegative(s.Where("gap"), "the gap", s.Gap.MM(), s.Gap.String())
+	}
+}
+
+// list checks a present list is not empty, has no repeated entry, and each entry passes each.
+func list[T comparable](c *checker, m Meta, key, what string, xs []T, each func(Loc, T)) {
+	if !m.Has(key) || c.failed(m.Where(key)) {
+		return
+	}
+	if len(xs) == 0 {
+		c.add(m.Where(key), "the list of %s is empty", what)
+	}
+	seen := make(map[T]int)
+	for i, x := range xs {
+		at := m.Where(indexPath(key, i))
+		if first, dup := seen[x]; dup {
+			c.add(at, "%v is listed twice (also [%d])", x, first)
+			continue
+		}
+		seen[x] = i
+		each(at, x)
+	}
+}
+
+func (c *checker) boltSize(at Loc, size string) {
+	if !isBoltSize(size) {
+		c.add(at, "bolt size %q is not a metric size such as M20", clip(size))
+	}
+}
+
+// isBoltSize reports whether s reads "M" and a whole diameter in mm.
+func isBoltSize(s string) bool {
+	d, ok := strings.CutPrefix(s, "M")
+	return ok && d != "" && d[0] != '0' && digitsAt(d, 0) == len(d) && len(d) <= 3
+}
+
+func (c *checker) boltClass(at Loc, class, category string) {
+	if !slices.Contains(BoltClasses(), class) {
+		c.add(at, "unknown bolt class %q%s", clip(class), oneOf(class, BoltClasses()))
+		return
+	}
+	if (category == CategoryB || category == CategoryC) && !PreloadableClass(class) {
+		c.add(at, "class %s bolts cannot be preloaded (EN 1993-1-8 3.1.2: 8.8 and 10.9 only), as category %s needs",
+			class, category)
+	}
+}
+
+func (c *checker) limits(l *Limits, length beamLength) {
+	if l == nil {
+		return
+	}
+	if l.MaxPieceLength != nil {
+		c.positive(l.Where("max_piece_length"), "max_piece_length", l.MaxPieceLength.MM(), l.MaxPieceLength.String())
+	}
+	if l.MinPieceLength != nil {
+		c.nonNegative(l.Where("min_piece_length"), "min_piece_length", l.MinPieceLength.MM(), l.MinPieceLength.String())
+	}
+	if l.MaxPieceMass != nil {
+		c.positive(l.Where("max_piece_mass"), "max_piece_mass", l.MaxPieceMass.KG(), l.MaxPieceMass.String())
+	}
+	if l.MinPieceLength != nil && l.MaxPieceLength != nil && *l.MaxPieceLength > 0 &&
+		*l.MinPieceLength >= *l.MaxPieceLength {
+		c.add(l.Where("min_piece_length"), "min_piece_length (%s) must be less than max_piece_length (%s)",
+			*l.MinPieceLength, *l.MaxPieceLength)
+	}
+	if k := l.KeepOut; k != nil {
+		c.keepOut(k, length)
+	}
+	if s := l.Splices; s != nil {
+		if s.Min != nil && *s.Min < 0 {
+			c.add(s.Where("min"), "splices.min must not be negative, got %d", *s.Min)
+		}
+		if s.Max != nil && *s.Max < 0 {
+			c.add(s.Where("max"), "splices.max must not be negative, got %d", *s.Max)
+		}
+		if s.Min != nil && s.Max != nil && *s.Min > *s.Max {
+			c.add(s.Where("min"), "splices.min (%d) exceeds splices.max (%d)", *s.Min, *s.Max)
+		}
+	}
+}
+
+func (c *checker) keepOut(k *KeepOut, length beamLength) {
+	if k.Supports != nil {
+		c.nonNegative(k.Where("supports"), "keep_out.supports", k.Supports.MM(), k.Supports.String())
+	}
+	if k.PointLoads != nil {
+		c.nonNegative(k.Where("point_loads"), "keep_out.point_loads", k.PointLoads.MM(), k.PointLoads.String())
+	}
+	type span struct {
+		i      int
+		lo, hi Metres
+	}
+	var good []span
+	for i, r := range k.Ranges {
+		at := k.Where(indexPath("ranges", i))
+		if c.failed(at) {
+			continue
+		}
+		switch {
+		case !(r[0] < r[1]):
+			c.add(at, "the range [%s, %s] is inverted or empty: write [from, to] with from < to", r[0], r[1])
+			continue
+		case length.ok && (r[0] < 0 || r[1].MM() > length.mm):
+			c.add(at, "the range [%s, %s] is not on the beam (0 to %s)", r[0], r[1], length)
+		}
+		good = append(good, span{i, r[0], r[1]})
+	}
+	sort.SliceStable(good, func(a, b int) bool { return good[a].lo < good[b].lo })
+	for j := 1; j < len(good); j++ {
+		prev, cur := good[j-1], good[j]
+		if cur.lo < prev.hi {
+			later, earlier := cur, prev
+			if later.i < earlier.i {
+				later, earlier = earlier, later
+			}
+			c.add(k.Where(indexPath("ranges", later.i)), "the range [%s, %s] overlaps ranges[%d] [%s, %s]; merge them",
+				later.lo, later.hi, earlier.i, earlier.lo, earlier.hi)
+		}
+	}
+}
+
+func (c *checker) vehicles(vs []Vehicle) {
+	seen := make(map[string]int)
+	for i, v := range vs {
+		if v.Has("name") {
+			if first, dup := seen[v.Name]; dup {
+				c.add(v.Where("name"), "a second vehicle named %q (vehicles[%d])", clip(v.Name), first)
+			} else if strings.TrimSpace(v.Name) == "" {
+				c.add(v.Where("name"), "a vehicle needs a name")
+			}
+			seen[v.Name] = i
+		}
+		if v.Has("max_length") {
+			c.positive(v.Where("max_length"), "max_length", v.MaxLength.MM(), v.MaxLength.String())
+		}
+		if v.Has("payload") {
+			c.positive(v.Where("payload"), "payload", v.Payload.KG(), v.Payload.String())
+		}
+		if v.Has("cost") {
+			c.nonNegative(v.Where("cost"), "cost", v.Cost, formatNumber(v.Cost))
+		}
+	}
+}
+
+func (c *checker) costs(k *Costs, s *SpliceOptions) {
+	if k == nil {
+		return
+	}
+	for _, e := range k.Bolt {
+		if !isBoltSize(e.Key) {
+			c.add(e.Loc, "bolt size %q is not a metric size such as M20", clip(e.Key))
+		}
+		c.nonNegative(e.Loc, "a bolt rate", e.Value, formatNumber(e.Value))
+	}
+	for _, e := range k.BoltClassFactor {
+		if !slices.Contains(BoltClasses(), e.Key) {
+			c.add(e.Loc, "unknown bolt class %q%s", clip(e.Key), oneOf(e.Key, BoltClasses()))
+		}
+		c.positive(e.Loc, "a class factor", e.Value, formatNumber(e.Value))
+	}
+	rates := []struct {
+		key string
+		v   *float64
+	}{{"plate_per_kg", k.PlatePerKg}, {"hole", k.Hole}, {"faying_per_m2", k.FayingPerM2},
+		{"splice", k.Splice}, {"lift", k.Lift}}
+	for _, r := range rates {
+		if r.v != nil {
+			c.nonNegative(k.Where(r.key), r.key, *r.v, formatNumber(*r.v))
+		}
+	}
+	if len(k.Bolt) == 0 || s == nil || s.Bolts == nil {
+		return
+	}
+	for i, size := range s.Bolts.Sizes {
+		if isBoltSize(size) && !k.Bolt.Has(size) {
+			c.add(s.Bolts.Where(indexPath("sizes", i)), "costs.bolt has no rate for %s (rates for: %s)",
+				size, strings.Join(k.Bolt.Keys(), ", "))
+		}
+	}
+}
+
+func (c *checker) scan(s *Scan, length beamLength) {
+	if s == nil {
+		return
+	}
+	if s.Step != nil {
+		c.positive(s.Where("step"), "the scan step", s.Step.MM(), s.Step.String())
+		if length.ok && s.Step.MM() > length.mm {
+			c.add(s.Where("step"), "the scan step %s exceeds the beam length %s", *s.Step, length)
+		}
+	}
+	if s.Alternatives != nil && *s.Alternatives < 0 {
+		c.add(s.Where("alternatives"), "alternatives must not be negative, got %d", *s.Alternatives)
+	}
+}
+
+func (c *checker) spliceFile(sf *SpliceFile) {
+	b := sf.Bolt
+	if b.Has("size") {
+		c.boltSize(b.Where("size"), b.Size)
+	}
+	if b.Has("class") {
+		c.boltClass(b.Where("class"), b.Class, sf.Category)
+	}
+	c.enum(sf.Meta, "category", "splice category", sf.Category, SpliceCategories())
+	c.enum(sf.Meta, "friction_class", "friction class", sf.FrictionClass, FrictionClasses())
+	if (sf.Category == CategoryB || sf.Category == CategoryC) && !sf.Has("friction_class") {
+		c.add(sf.Meta.Loc, "a category %s (slip-resistant) splice needs friction_class (%s)",
+			sf.Category, strings.Join(FrictionClasses(), ", "))
+	}
+	c.enum(sf.Meta, "holes", "hole type", sf.Holes, []string{HolesNormal, HolesOversize})
+	if sf.Has("gap") {
+		c.nonNegative(sf.Where("gap"), "the gap", sf.Gap.MM(), sf.Gap.String())
+	}
+	c.flangeSpec(&sf.Flange)
+	c.webSpec(&sf.Web)
+}
+
+// sizes checks that each present size is greater than 0.
+func (c *checker) sizes(m Meta, sizes map[string]Millimetres) {
+	keys := make([]string, 0, len(sizes))
+	for k := range sizes {
+		keys = append(keys, k)
+	}
+	sort.Strings(keys)
+	for _, k := range keys {
+		if m.Has(k) {
+			c.positive(m.Where(k), k, sizes[k].MM(), sizes[k].String())
+		}
+	}
+}
+
+func (c *checker) plateSpec(p *PlateSpec) {
+	c.sizes(p.Meta, map[string]Millimetres{"thickness": p.Thickness, "width": p.Width})
+}
+
+func (c *checker) flangeSpec(f *FlangeSpec) {
+	if !f.Has("") {
+		return
+	}
+	c.plateSpec(&f.Outer)
+	if f.Inner != nil {
+		c.plateSpec(f.Inner)
+	}
+	c.sizes(f.Meta, map[string]Millimetres{"gauge": f.Gauge, "end": f.End, "edge": f.Edge})
+	if f.Has("columns") && f.Columns != 2 && f.Columns != 4 {
+		c.add(f.Where("columns"), "a flange has 2 or 4 bolt lines, got %d", f.Columns)
+	}
+	c.rowsAndPitch(f.Meta, "rows", f.Rows, "pitch", f.Pitch)
+}
+
+func (c *checker) webSpec(w *WebSpec) {
+	if !w.Has("") {
+		return
+	}
+	c.sizes(w.Meta, map[string]Millimetres{"thickness": w.Thickness, "depth": w.Depth, "end": w.End, "edge": w.Edge})
+	c.rowsAndPitch(w.Meta, "columns", w.Columns, "spacing", w.Spacing)
+	c.rowsAndPitch(w.Meta, "rows", w.Rows, "pitch", w.Pitch)
+}
+
+// rowsAndPitch checks a bolt count (≥ 1) and the spacing it needs when above 1.
+func (c *checker) rowsAndPitch(m Meta, countKey string, count int, spacingKey string, spacing *Millimetres) {
+	if !m.Has(countKey) || c.failed(m.Where(countKey)) {
+		return
+	}
+	if count < 1 {
+		c.add(m.Where(countKey), "%s must be at least 1, got %d", countKey, count)
+		return
+	}
+	switch {
+	case spacing != nil:
+		c.positive(m.Where(spacingKey), spacingKey, spacing.MM(), spacing.String())
+	case count > 1:
+		c.add(m.Loc, "%s %d needs %s (mm)", countKey, count, spacingKey)
+	}
+}
