@@ -32,13 +32,22 @@ type Setup struct {
 // cases and the combinations. The error is a jobfile.Problems where it can point into the file.
 func Prepare(file string, data []byte) (*Setup, error) {
 	job, err := jobfile.LoadJob(file, data)
-	if err != nil {
+	if job == nil {
+		return nil, err
+	}
+	// the section and grade are looked up even when the file has other problems, so that
+	// every problem is reported in one pass
+	var probs jobfile.Problems
+	if !errors.As(err, &probs) && err != nil {
 		return nil, err
 	}
 	s := &Setup{File: file, Job: job}
-	var probs jobfile.Problems
-	s.section(&probs)
-	s.grade(&probs)
+	if job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil {
+		s.section(&probs)
+		if s.Section.Name != "" {
+			s.grade(&probs)
+		}
+	}
 	if len(probs) > 0 {
 		return nil, probs.Err()
 	}

@@ -70,8 +70,8 @@ func decodeFile(file string, data []byte, v any) (*Decoder, bool) {
 func (d *Decoder) parse(data []byte) (*yaml.Node, bool) {
 	if len(data) > MaxFileSize {
 		d.problems.add(Problem{File: d.file, Message: fmt.Sprintf(
-			"the file is %.1f MiB; the limit is %d MiB (a job file is a few kilobytes)",
-			float64(len(data))/(1<<20), MaxFileSize>>20)})
+			"the file is %d bytes; the limit is %d MiB (%d bytes), and a job file is a few kilobytes",
+			len(data), MaxFileSize>>20, MaxFileSize)})
 		return nil, false
 	}
 	if !utf8.Valid(data) {
@@ -191,6 +191,7 @@ var nodeDecoderType = reflect.TypeFor[NodeDecoder]()
 func (d *Decoder) decode(n *yaml.Node, v reflect.Value) {
 	d.index.record(d.path, pos(n))
 	if !d.plainNode(n) {
+		d.setMeta(n, v) // so that later checks know the value's path, and leave it alone
 		return
 	}
 	if v.Kind() == reflect.Pointer {
@@ -234,6 +235,19 @@ func (d *Decoder) decode(n *yaml.Node, v reflect.Value) {
 		}
 	default:
 		panic(fmt.Sprintf("jobfile: cannot decode into %s", v.Type()))
+	}
+}
+
+// setMeta fills the embedded Meta of a struct value, if it has one.
+func (d *Decoder) setMeta(n *yaml.Node, v reflect.Value) {
+	if v.Kind() != reflect.Struct {
+		return
+	}
+	for i := range v.NumField() {
+		if v.Type().Field(i).Type == metaType {
+			v.Field(i).Set(reflect.ValueOf(d.Meta(n)))
+			return
+		}
 	}
 }
 

@@ -196,7 +196,7 @@ func TestDecodeSizeLimit(t *testing.T) {
 	over := "name: " + strings.Repeat("x", MaxFileSize) + "\n"
 	start := time.Now()
 	_, ps := decodeDoc(t, over)
-	checkProblems(t, "d.yaml", ps, []string{` the file is 4.0 MiB; the limit is 4 MiB`})
+	checkProblems(t, "d.yaml", ps, []string{` the file is 4194311 bytes; the limit is 4 MiB (4194304 bytes)`})
 	assert.Less(t, time.Since(start), 100*time.Millisecond, "refused before parsing")
 
 	// Exactly at the limit is parsed.

@@ -20,14 +20,14 @@
 // unit is a problem. The value types hold the internal unit of spanbreak — mm, N, N·mm, N/mm,
 // kg — and their names say the unit of a bare number in the file:
 //
-//	type         bare number   held in   accepted units
-//	Metres       m             mm        m, cm, mm
-//	Millimetres  mm            mm        m, cm, mm
-//	KiloNewtons  kN            N         kN, N, MN
-//	KiloNewtonMetres kNm       N·mm      kNm, Nm, Nmm, kNmm, MNm (kN·m, kN m also)
-//	LineLoad     kN/m          N/mm      kN/m, N/mm, N/m, kN/mm, MN/m
-//	Stiffness    kN/m          N/mm      as LineLoad (a spring's force per deflection)
-//	Kilograms    kg            kg        kg, t
+//	type              bare number  held in  units a string may carry
+//	Metres            m            mm       m, cm, mm
+//	Millimetres       mm           mm       m, cm, mm
+//	KiloNewtons       kN           N        kN, N, MN
+//	KiloNewtonMetres  kNm          N·mm     kNm, Nm, Nmm, kNmm, MNm ("kN·m", "kN m" too)
+//	LineLoad          kN/m         N/mm     kN/m, N/mm, N/m, kN/mm, MN/m
+//	Stiffness         kN/m         N/mm     as LineLoad (a spring's force per deflection)
+//	Kilograms         kg           kg       kg, t
 //
 // Read them with MM, N, NMM, NPerMM or KG; a conversion like float64(Metres) gives mm, not m.
 //
@@ -46,6 +46,14 @@
 // and grade names are not looked up here: the caller does that and may add its problems to
 // the same list through each struct's Meta (Meta.Where gives the location of any key below
 // it) and Problems.Add. List indices in key paths count from 0.
+//
+// # References
+//
+// The allowed values follow the standards they come from: imposed-load categories A to H and
+// the snow rows of EN 1990 Table A1.1; γ and ξ overrides of EN 1990 Table A1.2(B) and
+// expression (6.10b); bolt classes of EN 1993-1-8 Table 3.1, splice categories of Table 3.2,
+// and 3.1.2 (only 8.8 and 10.9 may be preloaded, as categories B and C need); friction
+// classes A to D and normal or oversize holes of EN 1090-2. Unit factors are the SI prefixes.
 //
 // # Errors
 //

@@ -1,6 +1,7 @@
 package jobfile
 
 import (
+	"slices"
 	"strings"
 
 	"go.yaml.in/yaml/v3"
@@ -284,7 +285,11 @@ func (l *Load) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	}
 	switch len(shapes) {
 	case 0:
-		d.Problemf(n, "a load needs one of %s", strings.Join(LoadKinds(), ", "))
+		if !hasUnknownKey(n, d) { // else the unknown key's message (with its did-you-mean) says it
+			d.Problemf(n, "a load needs one of %s", strings.Join(LoadKinds(), ", "))
+		} else {
+			d.markFailed(d.path)
+		}
 		return
 	case 1:
 	default:
@@ -331,6 +336,17 @@ func (l *Load) checkPositionKeys(d *Decoder, at *Metres) {
 		return
 	}
 	l.At = *at
+}
+
+// hasUnknownKey reports whether a mapping node has a key outside the load keys.
+func hasUnknownKey(n *yaml.Node, d *Decoder) bool {
+	allowed := append(LoadKinds(), "from", "to", "at")
+	for i := 0; i+1 < len(n.Content); i += 2 {
+		if k := n.Content[i]; k.Kind != yaml.ScalarNode || !slices.Contains(allowed, k.Value) {
+			return true
+		}
+	}
+	return false
 }
 
 func deref[T any](p *T) T {

@@ -6,27 +6,38 @@ import (
 )
 
 // Suggest returns the allowed word closest to got when it is close enough to be a likely
-// typing slip (a case difference, or an edit distance of 1 for short words, 2 for longer
-// ones, counting a swap of neighbours as one edit), or "" otherwise.
+// typing slip, or "" otherwise. Close enough is a difference of letter case only, or an edit
+// distance (a swap of neighbours counting as one edit) of 1 for words of 3 or 4 characters
+// and 2 for longer ones, with no other allowed word as close. Words of 1 or 2 characters get
+// a suggestion for a case difference only: any letter is one edit from any other.
 func Suggest(got string, allowed []string) string {
 	if len(got) > 64 {
 		return ""
 	}
-	best, bestD := "", 1<<30
 	for _, a := range allowed {
 		if strings.EqualFold(a, got) && a != got {
 			return a
 		}
-		d := editDistance(strings.ToLower(got), strings.ToLower(a))
-		if d < bestD {
-			best, bestD = a, d
+	}
+	limit := 0
+	switch {
+	case len(got) > 4:
+		limit = 2
+	case len(got) > 2:
+		limit = 1
+	}
+	best, bestD, ties := "", limit+1, 0
+	for _, a := range allowed {
+		switch d := editDistance(strings.ToLower(got), strings.ToLower(a)); {
+		case d == 0:
+			return ""
+		case d < bestD:
+			best, bestD, ties = a, d, 1
+		case d == bestD:
+			ties++
 		}
 	}
-	limit := 1
-	if len(got) > 4 {
-		limit = 2
-	}
-	if bestD == 0 || bestD > limit {
+	if ties != 1 {
 		return ""
 	}
 	return best

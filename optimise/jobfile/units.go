@@ -219,6 +219,7 @@ func (v Metres) MM() float64 { return float64(v) }
 // String prints the length in metres, "7.2 m".
 func (v Metres) String() string { return formatNumber(float64(v)/1e3) + " m" }
 
+// DecodeYAMLNode reads a length: a bare number in m or a string with a unit.
 func (v *Metres) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	if f, ok := decodeQuantity(n, d, quantity{dimLength, "m", "a length", "7200 mm"}); ok {
 		*v = Metres(f)
@@ -235,6 +236,7 @@ func (v Millimetres) MM() float64 { return float64(v) }
 // String prints the size, "15 mm".
 func (v Millimetres) String() string { return formatNumber(float64(v)) + " mm" }
 
+// DecodeYAMLNode reads a size: a bare number in mm or a string with a unit.
 func (v *Millimetres) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	if f, ok := decodeQuantity(n, d, quantity{dimLength, "mm", "a size", "15 mm"}); ok {
 		*v = Millimetres(f)
@@ -254,6 +256,7 @@ func (v KiloNewtons) N() float64 { return float64(v) }
 // String prints the force in kN, "45 kN".
 func (v KiloNewtons) String() string { return formatNumber(float64(v)/1e3) + " kN" }
 
+// DecodeYAMLNode reads a force: a bare number in kN or a string with a unit.
 func (v *KiloNewtons) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	if f, ok := decodeQuantity(n, d, quantity{dimForce, "kN", "a force", "45 kN"}); ok {
 		*v = KiloNewtons(f)
@@ -274,6 +277,7 @@ func (v KiloNewtonMetres) NMM() float64 { return float64(v) }
 // String prints the moment in kNm, "180 kNm".
 func (v KiloNewtonMetres) String() string { return formatNumber(float64(v)/1e6) + " kNm" }
 
+// DecodeYAMLNode reads a moment: a bare number in kNm or a string with a unit.
 func (v *KiloNewtonMetres) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	if f, ok := decodeQuantity(n, d, quantity{dimMoment, "kNm", "a moment", "180 kNm"}); ok {
 		*v = KiloNewtonMetres(f)
@@ -290,6 +294,7 @@ func (v LineLoad) NPerMM() float64 { return float64(v) }
 // String prints the intensity in kN/m, "25 kN/m".
 func (v LineLoad) String() string { return formatNumber(float64(v)) + " kN/m" }
 
+// DecodeYAMLNode reads a line load: a bare number in kN/m or a string with a unit.
 func (v *LineLoad) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	if f, ok := decodeQuantity(n, d, quantity{dimForcePerLength, "kN/m", "a line load", "25 kN/m"}); ok {
 		*v = LineLoad(f)
@@ -306,6 +311,7 @@ func (v Stiffness) NPerMM() float64 { return float64(v) }
 // String prints the stiffness in kN/m, "50000 kN/m".
 func (v Stiffness) String() string { return formatNumber(float64(v)) + " kN/m" }
 
+// DecodeYAMLNode reads a stiffness: a bare number in kN/m or a string with a unit.
 func (v *Stiffness) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	if f, ok := decodeQuantity(n, d, quantity{dimForcePerLength, "kN/m", "a spring stiffness", "50000 kN/m"}); ok {
 		*v = Stiffness(f)
@@ -322,6 +328,7 @@ func (v Kilograms) KG() float64 { return float64(v) }
 // String prints the mass, "4000 kg".
 func (v Kilograms) String() string { return formatNumber(float64(v)) + " kg" }
 
+// DecodeYAMLNode reads a mass: a bare number in kg or a string with a unit.
 func (v *Kilograms) DecodeYAMLNode(n *yaml.Node, d *Decoder) {
 	if f, ok := decodeQuantity(n, d, quantity{dimMass, "kg", "a mass", "2.5 t"}); ok {
 		*v = Kilograms(f)

@@ -51,6 +51,9 @@ func newChecker(d *Decoder) *checker {
 
 // add records a problem unless the value it is about, or one containing it, did not decode.
 func (c *checker) add(at Loc, format string, args ...any) {
+	if len(*c.out) > maxProblems {
+		return // the list is full
+	}
 	for _, p := range c.failedPaths {
 		if ancestorOrSelf(p, at.Path) {
 			return
@@ -612,7 +615,7 @@ func (c *checker) spliceFile(sf *SpliceFile) {
 	c.enum(sf.Meta, "category", "splice category", sf.Category, SpliceCategories())
 	c.enum(sf.Meta, "friction_class", "friction class", sf.FrictionClass, FrictionClasses())
 	if (sf.Category == CategoryB || sf.Category == CategoryC) && !sf.Has("friction_class") {
-		c.add(sf.Meta.Loc, "a category %s (slip-resistant) splice needs friction_class (%s)",
+		c.add(sf.Where("category"), "a category %s (slip-resistant) splice needs friction_class (%s)",
 			sf.Category, strings.Join(FrictionClasses(), ", "))
 	}
 	c.enum(sf.Meta, "holes", "hole type", sf.Holes, []string{HolesNormal, HolesOversize})
@@ -678,6 +681,6 @@ func (c *checker) rowsAndPitch(m Meta, countKey string, count int, spacingKey st
 	case spacing != nil:
 		c.positive(m.Where(spacingKey), spacingKey, spacing.MM(), spacing.String())
 	case count > 1:
-		c.add(m.Loc, "%s %d needs %s (mm)", countKey, count, spacingKey)
+		c.add(m.Where(countKey), "%d %s need %s (mm)", count, countKey, spacingKey)
 	}
 }
