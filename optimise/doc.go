@@ -2,8 +2,69 @@
 // positions and the cheapest layouts of splices under transport and site limits.
 //
 // Units: internally N and mm like every spanbreak package; the job file's units (m, kN, kNm,
-// kN/m, kg) are converted where it is read, in package jobfile.
+// kN/m, kg) are converted where it is read, in package jobfile. Masses are in kg, costs in the
+// currency of the job's rates.
 //
 // Errors: every problem a user can cause is returned as a jobfile.Problems, each with the file,
 // line, column and key path of the value at fault; nothing here prints or exits.
+//
+// # Scan
+//
+// Grid places candidate positions every step from the left end, strictly inside the beam.
+// KeepOutZones lists where no splice may go — each side of every support, of every point load
+// and point moment, the user ranges, and the ends closer than min_piece_length — as closed
+// intervals; a position in a zone keeps the zone's reason and key. At every other position
+// DesignForces reads the ULS and SLS envelopes (at a jump, both sides, the worse of each
+// extreme): M_max and M_min, each paired with the largest |V| and with N_max and N_min
+// (DESIGN.md section 5). A Designer sizes the cheapest splice for those forces; SpliceDesigner
+// does it with package splice (Size, or SizeExhaustive for the reference run) from the job's
+// splice and costs blocks (Setup.SpliceProblem). A position where nothing passes keeps the
+// governing check of the closest configuration and by how much it fails.
+//
+// The normal scan computes all envelopes in one pass over the stations, sizes each distinct
+// force set once and sizes on a bounded pool of goroutines; the exhaustive scan evaluates
+// each position on its own, one after another, with the exhaustive sizing. Both give the same
+// candidates.
+//
+// # Layouts
+//
+// A layout is a set of splice positions; its pieces run between them, each ending gap/2 short
+// of a splice. A piece weighs its steel (length × mass per length), half of each splice at its
+// ends (plates and bolt assemblies) and the rigging allowance; it must lie within the minimum
+// and maximum piece length (the minimum does not apply to an unspliced beam) and the crane's
+// mass limit, and within the length and payload of the vehicle. The cost is
+//
+//	Σ splice costs + trips × cost per trip of the vehicle + pieces × cost per lift,
+//
+// where the vehicle is the one of the listed tiers that makes this cheapest among those that
+// take every piece, and trips is the fewest trips carrying all pieces with no trip over the
+// payload (pieces side by side or stacked on the deck; exact bin packing up to
+// MaxExactPacking pieces, first-fit decreasing above). Costs are summed in integer
+// micro-units, so every search order gives the same sums.
+//
+// Layouts finds, for each vehicle tier and splice count k, the cheapest layout exactly:
+// dynamic programming over the positions, layer ℓ being the ℓ-th splice, with the admissible
+// previous splices of each position a window in x kept by two pointers and a sliding-window
+// minimum (the mass limit checked piece by piece only where the splices' own masses decide
+// it). The trips depend on all pieces at once, so the layouts of one tier and k are then
+// enumerated in order of splice cost (recursive enumeration of k shortest paths, Jiménez and
+// Marzal 1999) until the least possible number of trips, ⌈least total mass / payload⌉, proves
+// that no later one is cheaper; usually the first layout already meets it. Ties go to fewer
+// splices, then to the smaller sum of the ranking's measure (the utilisation for the cost
+// ranking: splices where they work least), then to splices further left, compared from the
+// right end.
+//
+// The result holds the best layout for each splice count from the fewest that satisfies the
+// limits up to two more (and any larger count that would be cheaper still, which a lower bound
+// on the cost of more splices rules out), and the near-best alternatives: the next layouts in
+// cost order that differ from every one listed before in the stretch or splice design of at
+// least one splice (variants of one layout — the same splice designs in the same stretches of
+// consecutive admissible positions — are listed once), found by Lawler's partitioning over the
+// sequence of those classes. When no layout meets the limits, the error names the limit whose
+// removal alone would admit one (splices.max, max_piece_mass, the vehicles' payload,
+// min_piece_length, max_piece_length, the vehicles' length) or the stretch of beam without an
+// admissible position, with the job-file location.
+//
+// Batch optimises several jobs on a bounded pool of goroutines and reports progress through a
+// callback; the command decides whether to draw a bar.
 package optimise

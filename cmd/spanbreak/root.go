@@ -39,6 +39,9 @@ splices to EN 1993-1-8 and finds where to break the beam for transport and erect
 		newDemoCommand(),
 		newAnalyseCommand(),
 		newSectionsCommand(),
+		newInitCommand(),
+		newCheckCommand(),
+		newJobFileHelpTopic(),
 	)
 	return root
 }

@@ -1,0 +1,696 @@
+package main
+
+import (
+	"bytes"
+	"fmt"
+	"io"
+	"slices"
+	"strconv"
+	"strings"
+	"text/tabwriter"
+
+	"github.com/spf13/cobra"
+
+	"spanbreak/beam"
+	"spanbreak/optimise"
+	"spanbreak/optimise/jobfile"
+	"spanbreak/splice"
+)
+
+// checkOptions are the inputs of `spanbreak check`.
+type checkOptions struct {
+	JobFile string // path of the job file
+	Format  string // text | json
+}
+
+func newCheckCommand() *cobra.Command {
+	opts := checkOptions{}
+	cmd := &cobra.Command{
+		Use:   "check JOB.yaml",
+		Short: "Validate a job file and print what spanbreak understood from it",
+		Long: `check reads a job file strictly and reports every problem in one pass, each with its file,
+line, column and key path (exit status 1). A valid job is also analysed, so that a mechanism
+(too few supports, a misplaced hinge) is reported, and check then prints what it understood:
+the section and grade with fy and fu at the flange and web thickness, the length, spans,
+supports, hinges and overhangs, each load case (kind, category, ψ used, pattern, number of loads
+and total downward load), the combinations and their γ values, the limits, vehicles, splice
+options, costs and scan. Values the file leaves out are shown with their defaults, marked.`,
+		Args: argsUsage(cobra.ExactArgs(1)),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			opts.JobFile = args[0]
+			return runCheck(opts, cmd.OutOrStdout())
+		},
+	}
+	cmd.Flags().StringVar(&opts.Format, "format", "text", "output format: text or json")
+	return cmd
+}
+
+// runCheck validates and analyses the job, then prints its summary; nothing is written on
+// error.
+func runCheck(opts checkOptions, stdout io.Writer) error {
+	if err := checkFormat(opts.Format, "text", "json"); err != nil {
+		return err
+	}
+	setup, err := loadSetup(opts.JobFile, false)
+	if err != nil {
+		return err
+	}
+	an, err := setup.Analyse()
+	if err != nil {
+		return err
+	}
+	sp, err := setup.SpliceProblem()
+	if err != nil {
+		return err
+	}
+	sum, err := summarise(setup, an, sp)
+	if err != nil {
+		return err
+	}
+	var buf bytes.Buffer
+	if opts.Format == "json" {
+		if err := writeJSON(&buf, sum); err != nil {
+			return err
+		}
+	} else {
+		writeCheckText(&buf, sum)
+	}
+	_, err = stdout.Write(buf.Bytes())
+	return err
+}
+
+// checkSummary is what check understood from a job, in output units (m, mm, kN, kN/m, kg,
+// N/mm²). It is the JSON output of check; the text output prints the same values.
+type checkSummary struct {
+	Input        string            `json:"input"`
+	Version      string            `json:"version"`
+	Valid        bool              `json:"valid"`
+	Units        map[string]string `json:"units"`
+	Title        string            `json:"title"`
+	Section      checkSection      `json:"section"`
+	Grade        checkGrade        `json:"grade"`
+	Length       float64           `json:"length"`
+	Spans        []float64         `json:"spans"`
+	Overhang     [2]float64        `json:"overhang"` // left, right
+	Supports     []checkSupport    `json:"supports"`
+	Hinges       []float64         `json:"hinges"`
+	SelfWeight   float64           `json:"self_weight"` // kN/m, 0 when off
+	Cases        []checkCase       `json:"cases"`
+	Combinations checkCombinations `json:"combinations"`
+	Regions      []string          `json:"pattern_regions"`
+	Limits       checkLimits       `json:"limits"`
+	Vehicles     []checkVehicle    `json:"vehicles"`
+	Splice       checkSplice       `json:"splice"`
+	Costs        checkCosts        `json:"costs"`
+	Scan         checkScan         `json:"scan"`
+	Defaults     []string          `json:"defaults"` // key paths the file leaves out, which take their default
+	Notes        []string          `json:"notes"`
+}
+
+type checkSection struct {
+	Name      string  `json:"name"`
+	Series    string  `json:"series"`
+	Source    string  `json:"source"`
+	H         float64 `json:"h"`
+	B         float64 `json:"b"`
+	Tw        float64 `json:"tw"`
+	Tf        float64 `json:"tf"`
+	R         float64 `json:"r"`
+	A         float64 `json:"A_cm2"`
+	Iy        float64 `json:"Iy_cm4"`
+	MassPerM  float64 `json:"mass_kg_per_m"`
+	Catalogue bool    `json:"catalogue"`
+}
+
+type checkGrade struct {
+	Name     string  `json:"name"`
+	Standard string  `json:"standard"`
+	Table    string  `json:"table"`
+	FyFlange float64 `json:"fy_flange"`
+	FuFlange float64 `json:"fu_flange"`
+	FyWeb    float64 `json:"fy_web"`
+	FuWeb    float64 `json:"fu_web"`
+}
+
+type checkSupport struct {
+	X    float64  `json:"x"`
+	Type string   `json:"type"`
+	K    *float64 `json:"k"` // kN/m, springs only
+}
+
+type checkCase struct {
+	Name      string      `json:"name"`
+	Kind      string      `json:"kind"`
+	Category  string      `json:"category"`
+	Psi       *[3]float64 `json:"psi"`        // ψ0, ψ1, ψ2 used; null for permanent cases
+	PsiSource string      `json:"psi_source"` // "job file", "EN 1990 Table A1.1" or ""
+	Pattern   bool        `json:"pattern"`
+	Loads     int         `json:"loads"`
+	TotalDown float64     `json:"total_down"` // kN, the sum of the transverse loads, downward +
+	SelfW     bool        `json:"self_weight"`
+}
+
+type checkCombinations struct {
+	Rules     string   `json:"rules"`
+	ULS       string   `json:"uls"`
+	SLS       string   `json:"sls"`
+	GammaGSup float64  `json:"gamma_G_sup"`
+	GammaGInf float64  `json:"gamma_G_inf"`
+	GammaQ    float64  `json:"gamma_Q"`
+	Xi        float64  `json:"xi"`
+	ULSCount  int      `json:"uls_count"`
+	SLSCount  int      `json:"sls_count"`
+	UserCount int      `json:"user_count"` // of the above, from combinations.extra
+	Names     []string `json:"names"`
+}
+
+type checkLimits struct {
+	MaxPieceLength *float64     `json:"max_piece_length"` // null: no limit
+	MinPieceLength float64      `json:"min_piece_length"`
+	MaxPieceMass   *float64     `json:"max_piece_mass"` // null: no limit
+	KeepSupports   float64      `json:"keep_out_supports"`
+	KeepPointLoads float64      `json:"keep_out_point_loads"`
+	KeepRanges     [][2]float64 `json:"keep_out_ranges"`
+	MinSplices     int          `json:"splices_min"`
+	MaxSplices     *int         `json:"splices_max"` // null: no limit
+}
+
+type checkVehicle struct {
+	Name      string  `json:"name"`
+	MaxLength float64 `json:"max_length"`
+	Payload   float64 `json:"payload"`
+	Cost      float64 `json:"cost"`
+}
+
+type checkSplice struct {
+	Category      string    `json:"category"`
+	FrictionClass string    `json:"friction_class"` // "" for category A
+	BoltSizes     []string  `json:"bolt_sizes"`
+	BoltClasses   []string  `json:"bolt_classes"`
+	PlateGrade    string    `json:"plate_grade"`
+	Thicknesses   []float64 `json:"plate_thicknesses"`
+	FlangePlates  []string  `json:"flange_plates"`
+	Distribution  string    `json:"distribution"`
+	Gap           float64   `json:"gap"`
+}
+
+type checkCosts struct {
+	Indicative      bool               `json:"indicative"` // no costs block: the splice package's invented rates
+	Bolt            map[string]float64 `json:"bolt"`
+	BoltClassFactor map[string]float64 `json:"bolt_class_factor"`
+	PlatePerKg      float64            `json:"plate_per_kg"`
+	Hole            float64            `json:"hole"`
+	FayingPerM2     float64            `json:"faying_per_m2"`
+	Splice          float64            `json:"splice"`
+	Lift            float64            `json:"lift"`
+}
+
+type checkScan struct {
+	Step         float64 `json:"step"`
+	Alternatives int     `json:"alternatives"`
+}
+
+var checkUnits = map[string]string{
+	"x": "m", "length": "m", "spans": "m", "sizes": "mm", "A": "cm2", "Iy": "cm4",
+	"strength": "N/mm2", "self_weight": "kN/m", "total_down": "kN", "k": "kN/m", "mass": "kg",
+	"cost": "currency of the job",
+}
+
+// checkBuilder collects the values and the key paths that took their default.
+type checkBuilder struct {
+	checkSummary
+	defaults map[string]bool
+}
+
+// given records whether a key path was written; when not, it takes its default.
+func (s *checkBuilder) given(present bool, path string) bool {
+	if !present {
+		s.defaults[path] = true
+	}
+	return present
+}
+
+func summarise(st *optimise.Setup, an *beam.Analysis, sp splice.Problem) (checkSummary, error) {
+	job := st.Job
+	s := &checkBuilder{defaults: map[string]bool{}}
+	s.Defaults, s.Notes, s.Vehicles = []string{}, []string{}, []checkVehicle{}
+	s.Input, s.Version, s.Valid, s.Units, s.Title = st.File, version(), true, checkUnits, job.Title
+	if err := s.beam(st); err != nil {
+		return checkSummary{}, err
+	}
+	s.cases(st)
+	s.combinations(st)
+	for _, r := range an.Regions() {
+		s.Regions = append(s.Regions, r.Name)
+	}
+	s.limits(job)
+	for _, v := range job.Vehicles {
+		s.Vehicles = append(s.Vehicles, checkVehicle{v.Name, round(v.MaxLength.MM() * toM), round(v.Payload.KG()), v.Cost})
+	}
+	s.splice(job, sp)
+	s.costs(job)
+	s.scan(job)
+	s.notes(job)
+	for p := range s.defaults {
+		s.Defaults = append(s.Defaults, p)
+	}
+	slices.Sort(s.Defaults)
+	return s.checkSummary, nil
+}
+
+func (s *checkBuilder) beam(st *optimise.Setup) error {
+	b, sec := st.Job.Beam, st.Section
+	s.Section = checkSection{Name: sec.Name, Series: sec.Series, Source: sec.Source, H: sec.H, B: sec.B,
+		Tw: sec.Tw, Tf: sec.Tf, R: sec.R, A: round(sec.A / 1e2), Iy: round(sec.Iy / 1e4),
+		MassPerM: round(sec.Mass), Catalogue: !sec.Welded()}
+	s.given(b.Has("grade"), "beam.grade")
+	s.given(b.Has("grade_table"), "beam.grade_table")
+	fyF, fuF, err := st.Grade.Strength(sec.Tf, st.GradeTable)
+	if err != nil {
+		return err
+	}
+	fyW, fuW, err := st.Grade.Strength(sec.Tw, st.GradeTable)
+	if err != nil {
+		return err
+	}
+	s.Grade = checkGrade{Name: st.Grade.Name, Standard: st.Grade.Standard, Table: st.GradeTable.String(),
+		FyFlange: fyF, FuFlange: fuF, FyWeb: fyW, FuWeb: fuW}
+	s.Length = round(st.Model.Length * toM)
+	for _, sp := range b.Spans {
+		s.Spans = append(s.Spans, round(sp.MM()*toM))
+	}
+	s.given(b.Has("overhang.left"), "beam.overhang.left")
+	s.given(b.Has("overhang.right"), "beam.overhang.right")
+	s.Overhang = [2]float64{round(b.LeftOverhang() * toM), round(b.RightOverhang() * toM)}
+	for _, sp := range st.Model.Supports {
+		c := checkSupport{X: round(sp.X * toM), Type: sp.Kind.String()}
+		if sp.Kind == beam.Spring {
+			k := round(sp.K) // N/mm = kN/m
+			c.K = &k
+		}
+		s.Supports = append(s.Supports, c)
+	}
+	s.given(b.Has("hinges"), "beam.hinges")
+	s.Hinges = []float64{}
+	for _, h := range st.Model.Hinges {
+		s.Hinges = append(s.Hinges, round(h*toM))
+	}
+	s.given(b.Has("self_weight"), "beam.self_weight")
+	if b.IncludesSelfWeight() {
+		s.SelfWeight = round(st.SelfWeight()) // N/mm = kN/m
+	}
+	return nil
+}
+
+func (s *checkBuilder) cases(st *optimise.Setup) {
+	for _, c := range st.Cases {
+		row := checkCase{Name: c.Name, Kind: c.Kind.String(), Category: c.Category, Pattern: c.Pattern,
+			Loads: len(c.Loads), TotalDown: round(totalDown(c) * toKN)}
+		if jc, ok := st.Job.Cases.Get(c.Name); ok {
+			s.given(jc.Has("pattern"), "cases."+c.Name+".pattern")
+		} else {
+			row.SelfW = true
+		}
+		if c.Kind.Variable() {
+			switch {
+			case c.Psi != nil:
+				psi := *c.Psi
+				row.Psi, row.PsiSource = &psi, "job file"
+			default:
+				if psi, err := beam.Psi(c.Kind, c.Category); err == nil {
+					row.Psi, row.PsiSource = &psi, "EN 1990 Table A1.1"
+				}
+			}
+		}
+		s.Cases = append(s.Cases, row)
+	}
+}
+
+// totalDown is the resultant of a case's transverse loads [N], positive downward.
+func totalDown(c beam.Case) float64 {
+	var f float64
+	for _, l := range c.Loads {
+		switch l.Kind {
+		case beam.Distributed:
+			f += (l.W1 + l.W2) / 2 * (l.X2 - l.X1)
+		case beam.PointForce:
+			f += l.P
+		}
+	}
+	return f
+}
+
+func (s *checkBuilder) combinations(st *optimise.Setup) {
+	r, cb := st.Rules, st.Job.Combinations
+	has := func(key string) bool { return cb != nil && cb.Has(key) }
+	s.given(has("rules"), "combinations.rules")
+	s.given(has("uls"), "combinations.uls")
+	s.given(has("sls"), "combinations.sls")
+	for _, k := range jobfile.OverrideKeys() {
+		s.given(has("overrides."+k), "combinations.overrides."+k)
+	}
+	c := checkCombinations{Rules: r.Set, ULS: r.ULS, SLS: r.SLS, GammaGSup: r.GammaGSup, GammaGInf: r.GammaGInf,
+		GammaQ: r.GammaQ, Xi: r.Xi}
+	for _, cm := range st.Combinations {
+		if cm.State == beam.ULS {
+			c.ULSCount++
+		} else {
+			c.SLSCount++
+		}
+		if cm.Rule == beam.RuleUser {
+			c.UserCount++
+		}
+		c.Names = append(c.Names, cm.Name)
+	}
+	s.Combinations = c
+}
+
+func (s *checkBuilder) limits(job *jobfile.Job) {
+	l := job.Limits
+	if l == nil {
+		l = &jobfile.Limits{}
+	}
+	has := func(key string) bool { return job.Limits != nil && l.Has(key) }
+	s.Limits = checkLimits{KeepRanges: [][2]float64{}}
+	if s.given(has("max_piece_length"), "limits.max_piece_length") && l.MaxPieceLength != nil {
+		v := round(l.MaxPieceLength.MM() * toM)
+		s.Limits.MaxPieceLength = &v
+	}
+	if s.given(has("min_piece_length"), "limits.min_piece_length") && l.MinPieceLength != nil {
+		s.Limits.MinPieceLength = round(l.MinPieceLength.MM() * toM)
+	}
+	if s.given(has("max_piece_mass"), "limits.max_piece_mass") && l.MaxPieceMass != nil {
+		v := round(l.MaxPieceMass.KG())
+		s.Limits.MaxPieceMass = &v
+	}
+	k := l.KeepOut
+	if k == nil {
+		k = &jobfile.KeepOut{}
+	}
+	if s.given(has("keep_out.supports"), "limits.keep_out.supports") && k.Supports != nil {
+		s.Limits.KeepSupports = round(k.Supports.MM() * toM)
+	}
+	if s.given(has("keep_out.point_loads"), "limits.keep_out.point_loads") && k.PointLoads != nil {
+		s.Limits.KeepPointLoads = round(k.PointLoads.MM() * toM)
+	}
+	for _, r := range k.Ranges {
+		s.Limits.KeepRanges = append(s.Limits.KeepRanges, [2]float64{round(r[0].MM() * toM), round(r[1].MM() * toM)})
+	}
+	n := l.Splices
+	if n == nil {
+		n = &jobfile.SpliceCount{}
+	}
+	if s.given(has("splices.min"), "limits.splices.min") && n.Min != nil {
+		s.Limits.MinSplices = *n.Min
+	}
+	if s.given(has("splices.max"), "limits.splices.max") && n.Max != nil {
+		v := *n.Max
+		s.Limits.MaxSplices = &v
+	}
+}
+
+func (s *checkBuilder) splice(job *jobfile.Job, sp splice.Problem) {
+	o := job.Splice
+	has := func(key string) bool { return o != nil && o.Has(key) }
+	z, def := sp.Sizing, splice.DefaultDesignSpace()
+	c := checkSplice{Category: string(z.Category), FrictionClass: string(z.FrictionClass),
+		PlateGrade: sp.PlateSteel.Name, Distribution: string(sp.Distribution), Gap: z.Gap}
+	s.given(has("category"), "splice.category")
+	s.given(has("distribution"), "splice.distribution")
+	s.given(has("gap"), "splice.gap")
+	c.BoltSizes = z.Space.Sizes
+	if !s.given(has("bolts.sizes"), "splice.bolts.sizes") && len(c.BoltSizes) == 0 {
+		c.BoltSizes = def.Sizes
+	}
+	c.BoltClasses = z.Space.Classes
+	if !s.given(has("bolts.classes"), "splice.bolts.classes") {
+		c.BoltClasses = def.Classes
+	}
+	s.given(has("plates.grade"), "splice.plates.grade")
+	c.Thicknesses = z.Space.Thicknesses
+	if !s.given(has("plates.thicknesses"), "splice.plates.thicknesses") {
+		c.Thicknesses = def.Thicknesses
+	}
+	for _, a := range z.Space.Arrangements {
+		c.FlangePlates = append(c.FlangePlates, string(a))
+	}
+	if !s.given(has("flange_plates"), "splice.flange_plates") {
+		c.FlangePlates = nil
+		for _, a := range def.Arrangements {
+			c.FlangePlates = append(c.FlangePlates, string(a))
+		}
+	}
+	s.Splice = c
+}
+
+func (s *checkBuilder) costs(job *jobfile.Job) {
+	k := job.Costs
+	if k == nil {
+		s.given(false, "costs")
+		r := splice.DefaultRates()
+		s.Costs = checkCosts{Indicative: true, Bolt: r.Bolt, BoltClassFactor: r.BoltClassFactor,
+			PlatePerKg: r.PlatePerKg, Hole: r.Hole, FayingPerM2: r.FayingPerM2, Splice: r.Splice}
+		return
+	}
+	c := checkCosts{Bolt: map[string]float64{}, BoltClassFactor: map[string]float64{}}
+	for _, e := range k.Bolt {
+		c.Bolt[e.Key] = e.Value
+	}
+	for _, e := range k.BoltClassFactor {
+		c.BoltClassFactor[e.Key] = e.Value
+	}
+	rates := []struct {
+		key string
+		v   *float64
+		out *float64
+	}{{"plate_per_kg", k.PlatePerKg, &c.PlatePerKg}, {"hole", k.Hole, &c.Hole},
+		{"faying_per_m2", k.FayingPerM2, &c.FayingPerM2}, {"splice", k.Splice, &c.Splice}, {"lift", k.Lift, &c.Lift}}
+	for _, r := range rates {
+		if s.given(r.v != nil, "costs."+r.key) {
+			*r.out = *r.v
+		}
+	}
+	s.Costs = c
+}
+
+func (s *checkBuilder) scan(job *jobfile.Job) {
+	sc := job.Scan
+	s.Scan = checkScan{Step: round(optimise.DefaultStep * toM), Alternatives: optimise.DefaultAlternatives}
+	if s.given(sc != nil && sc.Step != nil, "scan.step") {
+		s.Scan.Step = round(sc.Step.MM() * toM)
+	}
+	if s.given(sc != nil && sc.Alternatives != nil, "scan.alternatives") {
+		s.Scan.Alternatives = *sc.Alternatives
+	}
+}
+
+func (s *checkBuilder) notes(job *jobfile.Job) {
+	if job.Limits == nil || (job.Limits.MaxPieceLength == nil && job.Limits.MaxPieceMass == nil) {
+		s.Notes = append(s.Notes, "no max_piece_length or max_piece_mass: nothing forces a splice, and optimise may find the unspliced beam best")
+	}
+	if len(job.Vehicles) == 0 {
+		s.Notes = append(s.Notes, "no vehicles: transport is not costed")
+	}
+	if job.Costs == nil {
+		s.Notes = append(s.Notes, "no costs block: splices are priced at invented indicative rates, for ranking only, and lifts cost nothing")
+	}
+}
+
+// --- text ------------------------------------------------------------------------------
+
+func writeCheckText(w io.Writer, s checkSummary) {
+	dflt := make(map[string]bool, len(s.Defaults))
+	for _, p := range s.Defaults {
+		dflt[p] = true
+	}
+	mark := func(paths ...string) string {
+		for _, p := range paths {
+			if dflt[p] {
+				return " (default)"
+			}
+		}
+		return ""
+	}
+	fmt.Fprintf(w, "spanbreak %s: check of %s: the job is valid and the beam analyses\n", s.Version, s.Input)
+	if s.Title != "" {
+		fmt.Fprintf(w, "Title:     %s\n", s.Title)
+	}
+	sec := s.Section
+	kind := "catalogue, " + sec.Source
+	if !sec.Catalogue {
+		kind = "welded from plates"
+	}
+	fmt.Fprintf(w, "Section:   %s (%s): h %g, b %g, tw %g, tf %g, r %g mm; A %.1f cm², Iy %.0f cm⁴, %.1f kg/m\n",
+		sec.Name, kind, sec.H, sec.B, sec.Tw, sec.Tf, sec.R, sec.A, sec.Iy, sec.MassPerM)
+	g := s.Grade
+	fmt.Fprintf(w, "Grade:     %s%s, %s; strengths from %s%s: fy %g, fu %g N/mm² at tf = %g mm; fy %g, fu %g N/mm² at tw = %g mm\n",
+		g.Name, mark("beam.grade"), g.Standard, g.Table, mark("beam.grade_table"), g.FyFlange, g.FuFlange, sec.Tf, g.FyWeb, g.FuWeb, sec.Tw)
+	fmt.Fprintf(w, "Length:    %s m\n", shortNum(s.Length))
+	fmt.Fprintf(w, "Spans:     %s m\n", joinShortNums(s.Spans, ", "))
+	fmt.Fprintf(w, "Overhangs: left %s m%s, right %s m%s\n", shortNum(s.Overhang[0]), mark("beam.overhang.left"),
+		shortNum(s.Overhang[1]), mark("beam.overhang.right"))
+	var sup []string
+	for _, sp := range s.Supports {
+		t := fmt.Sprintf("x = %s m %s", shortNum(sp.X), sp.Type)
+		if sp.K != nil {
+			t += fmt.Sprintf(" (k = %s kN/m)", shortNum(*sp.K))
+		}
+		sup = append(sup, t)
+	}
+	fmt.Fprintf(w, "Supports:  %s\n", strings.Join(sup, "; "))
+	hinges := "none"
+	if len(s.Hinges) > 0 {
+		hinges = "x = " + joinShortNums(s.Hinges, ", ") + " m"
+	}
+	fmt.Fprintf(w, "Hinges:    %s%s\n", hinges, mark("beam.hinges"))
+	sw := "off"
+	if s.SelfWeight > 0 {
+		sw = fmt.Sprintf("on, %.3f kN/m as permanent case %s", s.SelfWeight, jobfile.SelfWeightCase)
+	}
+	fmt.Fprintf(w, "Self weight: %s%s\n", sw, mark("beam.self_weight"))
+	fmt.Fprintf(w, "Pattern regions: %s\n", strings.Join(s.Regions, ", "))
+
+	fmt.Fprintln(w, "\nLoad cases (characteristic)")
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "case\tkind\tcategory\tψ0, ψ1, ψ2\tpattern\tloads\ttotal down [kN]")
+	for _, c := range s.Cases {
+		psi := "-"
+		if c.Psi != nil {
+			psi = fmt.Sprintf("%g, %g, %g (%s)", c.Psi[0], c.Psi[1], c.Psi[2], c.PsiSource)
+		}
+		pattern := "no"
+		if c.Pattern {
+			pattern = "yes"
+		}
+		pattern += mark("cases." + c.Name + ".pattern")
+		name := c.Name
+		if c.SelfW {
+			name += " (self weight)"
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%d\t%.2f\n", name, c.Kind, dashIfEmpty(c.Category), psi, pattern, c.Loads, z(c.TotalDown))
+	}
+	tw.Flush()
+
+	cb := s.Combinations
+	fmt.Fprintf(w, "\nCombinations: %d ULS by EN 1990 %s%s, %d SLS %s%s, %d of them from combinations.extra\n",
+		cb.ULSCount, cb.ULS, mark("combinations.uls"), cb.SLSCount, cb.SLS, mark("combinations.sls"), cb.UserCount)
+	fmt.Fprintf(w, "Rules:     %s%s: γG,sup %.2f%s, γG,inf %.2f%s, γQ %.2f%s, ξ %.2f%s\n", cb.Rules, mark("combinations.rules"),
+		cb.GammaGSup, mark("combinations.overrides.gamma_G_sup"), cb.GammaGInf, mark("combinations.overrides.gamma_G_inf"),
+		cb.GammaQ, mark("combinations.overrides.gamma_Q"), cb.Xi, mark("combinations.overrides.xi"))
+	for _, n := range cb.Names {
+		fmt.Fprintf(w, "  %s\n", n)
+	}
+
+	writeCheckLimits(w, s, mark)
+	sp := s.Splice
+	fmt.Fprintln(w, "\nSplice options")
+	fc := sp.FrictionClass
+	if fc == "" {
+		fc = "not used (category A)"
+	}
+	fmt.Fprintf(w, "  category %s%s, friction class %s, gap %g mm%s, distribution %s%s\n",
+		sp.Category, mark("splice.category"), fc, sp.Gap, mark("splice.gap"), sp.Distribution, mark("splice.distribution"))
+	fmt.Fprintf(w, "  bolts %s%s in classes %s%s\n", strings.Join(sp.BoltSizes, ", "), mark("splice.bolts.sizes"),
+		strings.Join(sp.BoltClasses, ", "), mark("splice.bolts.classes"))
+	fmt.Fprintf(w, "  plates %s%s, thicknesses %s mm%s; flange plates %s%s\n", sp.PlateGrade, mark("splice.plates.grade"),
+		joinShortNums(sp.Thicknesses, ", "), mark("splice.plates.thicknesses"), strings.Join(sp.FlangePlates, ", "), mark("splice.flange_plates"))
+
+	writeCheckCosts(w, s.Costs, mark)
+	fmt.Fprintf(w, "\nScan: candidates every %s m%s, %d alternative layouts%s\n", shortNum(s.Scan.Step), mark("scan.step"),
+		s.Scan.Alternatives, mark("scan.alternatives"))
+	if len(s.Notes) > 0 {
+		fmt.Fprintln(w, "\nNotes")
+		for _, n := range s.Notes {
+			fmt.Fprintf(w, "  - %s\n", n)
+		}
+	}
+	fmt.Fprintf(w, "\n%s\n", caution)
+}
+
+func writeCheckLimits(w io.Writer, s checkSummary, mark func(...string) string) {
+	l := s.Limits
+	fmt.Fprintln(w, "\nLimits")
+	limit := func(v *float64, unit string) string {
+		if v == nil {
+			return "no limit"
+		}
+		return shortNum(*v) + " " + unit
+	}
+	fmt.Fprintf(w, "  max piece length %s%s, min piece length %s m%s, max piece mass %s%s\n",
+		limit(l.MaxPieceLength, "m"), mark("limits.max_piece_length"), shortNum(l.MinPieceLength), mark("limits.min_piece_length"),
+		limit(l.MaxPieceMass, "kg"), mark("limits.max_piece_mass"))
+	var ranges []string
+	for _, r := range l.KeepRanges {
+		ranges = append(ranges, shortNum(r[0])+" to "+shortNum(r[1])+" m")
+	}
+	if len(ranges) == 0 {
+		ranges = []string{"none"}
+	}
+	fmt.Fprintf(w, "  keep out %s m each side of supports%s, %s m each side of point loads%s; ranges %s\n",
+		shortNum(l.KeepSupports), mark("limits.keep_out.supports"), shortNum(l.KeepPointLoads), mark("limits.keep_out.point_loads"),
+		strings.Join(ranges, ", "))
+	maxS := "no limit"
+	if l.MaxSplices != nil {
+		maxS = strconv.Itoa(*l.MaxSplices)
+	}
+	fmt.Fprintf(w, "  splices from %d%s to %s%s\n", l.MinSplices, mark("limits.splices.min"), maxS, mark("limits.splices.max"))
+	fmt.Fprintln(w, "\nVehicles")
+	if len(s.Vehicles) == 0 {
+		fmt.Fprintln(w, "  none")
+		return
+	}
+	tw := tabwriter.NewWriter(w, 0, 0, 2, ' ', 0)
+	fmt.Fprintln(tw, "  name\tmax length [m]\tpayload [kg]\tcost per trip")
+	for _, v := range s.Vehicles {
+		fmt.Fprintf(tw, "  %s\t%s\t%s\t%s\n", v.Name, shortNum(v.MaxLength), shortNum(v.Payload), shortNum(v.Cost))
+	}
+	tw.Flush()
+}
+
+func writeCheckCosts(w io.Writer, c checkCosts, mark func(...string) string) {
+	head := "Costs"
+	if c.Indicative {
+		head += " (no costs block: invented indicative rates, for ranking only)"
+	}
+	fmt.Fprintf(w, "\n%s\n", head)
+	var bolts []string
+	for _, k := range sortedRateKeys(c.Bolt) {
+		bolts = append(bolts, k+" "+shortNum(c.Bolt[k]))
+	}
+	var factors []string
+	for _, k := range sortedRateKeys(c.BoltClassFactor) {
+		factors = append(factors, k+" ×"+shortNum(c.BoltClassFactor[k]))
+	}
+	fmt.Fprintf(w, "  per bolt assembly: %s; class factors: %s\n", dashIfEmpty(strings.Join(bolts, ", ")), dashIfEmpty(strings.Join(factors, ", ")))
+	fmt.Fprintf(w, "  plate per kg %s%s, hole %s%s, faying surface per m² %s%s, per splice %s%s, per lift %s%s\n",
+		shortNum(c.PlatePerKg), mark("costs.plate_per_kg", "costs"), shortNum(c.Hole), mark("costs.hole", "costs"),
+		shortNum(c.FayingPerM2), mark("costs.faying_per_m2", "costs"), shortNum(c.Splice), mark("costs.splice", "costs"),
+		shortNum(c.Lift), mark("costs.lift", "costs"))
+}
+
+func sortedRateKeys(m map[string]float64) []string {
+	keys := make([]string, 0, len(m))
+	for k := range m {
+		keys = append(keys, k)
+	}
+	slices.Sort(keys)
+	return keys
+}
+
+// shortNum prints a rounded value in its shortest form, "7.8", "0.05", "2600".
+func shortNum(v float64) string { return strconv.FormatFloat(round(v), 'f', -1, 64) }
+
+func joinShortNums(v []float64, sep string) string {
+	parts := make([]string, len(v))
+	for i, x := range v {
+		parts[i] = shortNum(x)
+	}
+	return strings.Join(parts, sep)
+}
+
+func dashIfEmpty(s string) string {
+	if s == "" {
+		return "-"
+	}
+	return s
+}

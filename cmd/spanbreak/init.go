@@ -1,0 +1,65 @@
+package main
+
+import (
+	_ "embed"
+	"errors"
+	"fmt"
+	"io"
+	"io/fs"
+
+	"github.com/spf13/cobra"
+)
+
+// starterJob is the commented job `spanbreak init` writes: a transfer beam in a car-park deck,
+// a scenario invented for the tool, that checks and analyses as it stands.
+//
+//go:embed starter.yaml
+var starterJob []byte
+
+// initOptions are the inputs of `spanbreak init`.
+type initOptions struct {
+	File  string // where to write the starter job; "" prints it to stdout
+	Force bool   // replace File if it exists
+}
+
+func newInitCommand() *cobra.Command {
+	opts := initOptions{}
+	cmd := &cobra.Command{
+		Use:   "init [FILE]",
+		Short: "Write a commented starter job file (invented data) to edit",
+		Long: `init writes a commented starter job: a transfer beam under an offset column in a car-park deck,
+a scenario invented to show every block of a job file. It runs as it stands; replace its values
+with your project's, then run "spanbreak check FILE". Without FILE it prints the job to stdout.
+An existing FILE is never replaced unless --force is given; the file is written whole or not at
+all. Every key is described by "spanbreak help job-file".`,
+		Args: argsUsage(cobra.MaximumNArgs(1)),
+		RunE: func(cmd *cobra.Command, args []string) error {
+			if len(args) == 1 {
+				opts.File = args[0]
+			}
+			return runInit(opts, cmd.OutOrStdout())
+		},
+	}
+	cmd.Flags().BoolVar(&opts.Force, "force", false, "replace FILE if it already exists")
+	return cmd
+}
+
+// runInit prints the starter job, or writes it to opts.File and says so on stdout.
+func runInit(opts initOptions, stdout io.Writer) error {
+	if opts.File == "" {
+		if opts.Force {
+			return usageError(errors.New("--force needs a FILE to replace"))
+		}
+		_, err := stdout.Write(starterJob)
+		return err
+	}
+	if err := writeFileAtomic(opts.File, starterJob, opts.Force); err != nil {
+		if errors.Is(err, fs.ErrExist) {
+			return fmt.Errorf("%w (pass --force to replace it)", err)
+		}
+		return err
+	}
+	_, err := fmt.Fprintf(stdout, "wrote %s: a starter job with invented data; edit it, then run: spanbreak check %s\n",
+		opts.File, opts.File)
+	return err
+}

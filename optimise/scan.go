@@ -1,0 +1,243 @@
+package optimise
+
+import (
+	"fmt"
+	"math"
+	"runtime"
+	"sync"
+
+	"spanbreak/beam"
+)
+
+// SpliceDesign is the cheapest splice a Designer found for one set of design forces, or the
+// reason that none passes.
+type SpliceDesign struct {
+	Feasible    bool
+	Cost        float64 // splice cost from the cost model [currency]; 0 when not feasible
+	Bolts       int     // bolt assemblies, both sides of the joint, flanges and web
+	Holes       int     // holes drilled, beam and cover plates
+	PlateMass   float64 // cover plates [kg]
+	BoltMass    float64 // bolt assemblies (bolt, nut, washers) [kg]
+	FayingArea  float64 // prepared slip surface (categories B and C) [m²]
+	Utilisation float64 // governing utilisation; when not feasible, that of the configuration closest to passing
+	Governing   string  // id of the governing check, e.g. "web.bolt.bearing.beam"
+	Summary     string  // one line: bolts, plates, e.g. "M20 10.9; flanges 2×3 outer 15 mm; web 2×5"
+	Reason      string  // when not feasible: which check fails and by how much
+	Detail      any     // the designer's full result (checks, geometry) for reports; may be nil
+}
+
+// Mass returns the mass of the splice the pieces carry: plates and bolts [kg].
+func (d SpliceDesign) Mass() float64 { return d.PlateMass + d.BoltMass }
+
+// Designer sizes the cheapest splice for a set of design forces. The answer must depend on
+// the forces alone (the section, grade, options and rates are the designer's own), so that
+// equal force sets may share one answer, and Design must be safe for concurrent use. An error
+// is for a designer that cannot work at all (bad options), not for forces that no splice
+// takes: that is a SpliceDesign with Feasible false and its Reason.
+type Designer interface {
+	Design(f PositionForces) (SpliceDesign, error)
+}
+
+// Candidate is one position of the scan.
+type Candidate struct {
+	X        float64        // [mm] from the left end
+	Feasible bool           // a splice may go here: outside every keep-out and a splice passes
+	Reason   string         // why not, when not feasible
+	Zone     *Zone          // the keep-out zone it lies in, if any
+	Forces   PositionForces // design forces; zero inside a keep-out zone (not evaluated)
+	Design   SpliceDesign   // the cheapest splice; zero inside a keep-out zone
+	Rank     int            // 1 = best by the ranking of the run; 0 when not feasible
+}
+
+// ScanSettings control the scan.
+type ScanSettings struct {
+	// Exhaustive evaluates each position on its own: one envelope calculation per position,
+	// no sharing of equal force sets, one position after another. It is the reference the
+	// normal scan must equal; the designer's own pruning is switched off by whoever builds it.
+	Exhaustive bool
+	// Workers bounds the positions sized at once; 0 takes runtime.GOMAXPROCS(0).
+	Workers int
+}
+
+// ScanStats count the work a scan did.
+type ScanStats struct {
+	Candidates int // positions on the grid
+	KeptOut    int // in a keep-out zone, not evaluated
+	Sized      int // calls to the designer
+	Shared     int // positions that took the answer of an equal force set
+}
+
+// MaxCandidates bounds the grid, so that a tiny step fails with a message instead of running
+// for hours.
+const MaxCandidates = 200_000
+
+// Grid returns the candidate positions every step [mm] from the left end, strictly inside the
+// beam (a splice at an end is no splice).
+func Grid(length, step float64) ([]float64, error) {
+	if !(step > 0) || math.IsInf(step, 0) {
+		return nil, fmt.Errorf("the scan step must be positive, got %g mm", step)
+	}
+	n := int(math.Ceil(length/step-1e-9)) - 1
+	if n > MaxCandidates {
+		return nil, fmt.Errorf("the scan step %s gives %d positions on a %s beam; at most %d are allowed",
+			metres(step), n, metres(length), MaxCandidates)
+	}
+	xs := make([]float64, 0, max(n, 0))
+	for i := 1; i <= n; i++ {
+		if x := float64(i) * step; x < length-zoneTol {
+			xs = append(xs, x)
+		}
+	}
+	return xs, nil
+}
+
+// Scan evaluates every position xs [mm]: the keep-out zones first (the first zone that holds
+// a position is its reason), then the design forces from the envelopes, then the cheapest
+// splice. The normal scan computes the envelopes at all positions at once and sizes each
+// distinct force set once, in parallel; the exhaustive scan does neither and must give the
+// same candidates.
+func Scan(an *beam.Analysis, combos []beam.Combination, xs []float64, zones []Zone, d Designer,
+	set ScanSettings) ([]Candidate, ScanStats, error) {
+	cands := make([]Candidate, len(xs))
+	stats := ScanStats{Candidates: len(xs)}
+	var open []int // positions outside every zone
+	for i, x := range xs {
+		cands[i].X = x
+		if z := zoneAt(zones, x); z != nil {
+			cands[i].Zone, cands[i].Reason = z, z.Reason
+			stats.KeptOut++
+			continue
+		}
+		open = append(open, i)
+	}
+	var err error
+	if set.Exhaustive {
+		err = scanExhaustive(an, combos, cands, open, d, &stats)
+	} else {
+		err = scanShared(an, combos, cands, open, d, set.Workers, &stats)
+	}
+	if err != nil {
+		return nil, stats, err
+	}
+	for _, i := range open {
+		c := &cands[i]
+		c.Feasible = c.Design.Feasible
+		if !c.Feasible {
+			c.Reason = c.Design.Reason
+			if c.Reason == "" {
+				c.Reason = "no splice passes"
+			}
+		}
+	}
+	return cands, stats, nil
+}
+
+func zoneAt(zones []Zone, x float64) *Zone {
+	for i := range zones {
+		if zones[i].Contains(x) {
+			z := zones[i]
+			return &z
+		}
+	}
+	return nil
+}
+
+// scanExhaustive is the reference: each position on its own, in order.
+func scanExhaustive(an *beam.Analysis, combos []beam.Combination, cands []Candidate, open []int, d Designer,
+	stats *ScanStats) error {
+	for _, i := range open {
+		f, err := DesignForces(an, combos, []float64{cands[i].X})
+		if err != nil {
+			return err
+		}
+		cands[i].Forces = f[0]
+		des, err := d.Design(f[0])
+		if err != nil {
+			return err
+		}
+		stats.Sized++
+		cands[i].Design = des
+	}
+	return nil
+}
+
+// scanShared computes the forces at every open position in one envelope pass, then sizes each
+// distinct force set once on a bounded pool of workers.
+func scanShared(an *beam.Analysis, combos []beam.Combination, cands []Candidate, open []int, d Designer,
+	workers int, stats *ScanStats) error {
+	if len(open) == 0 {
+		return nil
+	}
+	xs := make([]float64, len(open))
+	for k, i := range open {
+		xs[k] = cands[i].X
+	}
+	forces, err := DesignForces(an, combos, xs)
+	if err != nil {
+		return err
+	}
+	first := make(map[PositionForces]int, len(open)) // force set → index into unique
+	var unique []PositionForces
+	slot := make([]int, len(open))
+	for k, f := range forces {
+		u, ok := first[f]
+		if !ok {
+			u = len(unique)
+			first[f] = u
+			unique = append(unique, f)
+		} else {
+			stats.Shared++
+		}
+		slot[k] = u
+	}
+	designs, err := designAll(d, unique, workers)
+	if err != nil {
+		return err
+	}
+	stats.Sized += len(unique)
+	for k, i := range open {
+		cands[i].Forces = forces[k]
+		cands[i].Design = designs[slot[k]]
+	}
+	return nil
+}
+
+// designAll sizes each force set, at most workers at a time; the first error wins.
+func designAll(d Designer, fs []PositionForces, workers int) ([]SpliceDesign, error) {
+	if workers <= 0 {
+		workers = runtime.GOMAXPROCS(0)
+	}
+	workers = min(workers, len(fs))
+	out := make([]SpliceDesign, len(fs))
+	errs := make([]error, len(fs))
+	if workers <= 1 {
+		for i, f := range fs {
+			if out[i], errs[i] = d.Design(f); errs[i] != nil {
+				return nil, errs[i]
+			}
+		}
+		return out, nil
+	}
+	var wg sync.WaitGroup
+	next := make(chan int)
+	for w := 0; w < workers; w++ {
+		wg.Add(1)
+		go func() {
+			defer wg.Done()
+			for i := range next {
+				out[i], errs[i] = d.Design(fs[i])
+			}
+		}()
+	}
+	for i := range fs {
+		next <- i
+	}
+	close(next)
+	wg.Wait()
+	for _, err := range errs {
+		if err != nil {
+			return nil, err
+		}
+	}
+	return out, nil
+}

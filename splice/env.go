@@ -1,0 +1,90 @@
+package splice
+
+import (
+	"fmt"
+	"math"
+)
+
+// boltData caches one bolt size and class with the resistances that do not depend on the plies.
+type boltData struct {
+	size     BoltSize
+	class    BoltClass
+	threads  bool
+	d, d0    float64
+	fvPlane  float64 // Fv,Rd per shear plane [N]
+	fpC      float64 // Fp,C [N]
+	fsPerSur float64 // Fs,Rd per friction surface in the slip state [N] (0 for category A)
+	hf       float64 // bearing factor for the hole type
+	key      [2]int  // size and class index in the design space
+}
+
+// env is everything fixed for one evaluation: member, factors, actions and the splice type.
+type env struct {
+	m       Member
+	f       PartialFactors
+	det     Detailing
+	act     Actions
+	cat     Category
+	fc      FrictionClass
+	mu      float64
+	holes   HoleType
+	gap     float64
+	gammaS  float64 // γM3,ser (B) or γM3 (C)
+	slipSt  string  // limit state of the slip checks
+	e       float64 // Young's modulus [N/mm²]
+	rFit    float64 // r + clearance [mm]
+	minimum MinimumAction
+}
+
+func newBoltData(e *env, size BoltSize, class BoltClass, threads bool) boltData {
+	b := boltData{size: size, class: class, threads: threads, d: size.D, d0: size.HoleDiameter(e.holes)}
+	b.fvPlane = ShearResistancePerPlane(size, class, threads, e.f.GammaM2)
+	b.fpC = PreloadForce(class.Fub, size.As)
+	if e.cat.Preloaded() {
+		b.fsPerSur = SlipResistance(e.holes.Ks(), 1, e.mu, b.fpC, e.gammaS)
+	}
+	b.hf = e.holes.BearingFactor()
+	return b
+}
+
+func newEnv(p *Problem, cat Category, fc FrictionClass, holes HoleType, gap float64, det Detailing) (*env, error) {
+	e := &env{m: p.Member, f: p.Factors.resolved(), det: det.resolved(), cat: cat, fc: fc, holes: holes, gap: gap,
+		e: youngModulus, minimum: p.Minimum}
+	if cat.Preloaded() {
+		e.mu = fc.SlipFactor()
+		if e.mu == 0 {
+			return nil, fmt.Errorf("friction_class: %q is not one of A, B, C, D", fc)
+		}
+	}
+	e.gammaS = e.f.GammaM3
+	e.slipSt = StateULS
+	if cat == CategoryB {
+		e.gammaS = e.f.GammaM3Ser
+		e.slipSt = StateSLS
+	}
+	e.act = designActions(p.Member, p.ULS, p.SLS, p.Distribution, p.Minimum, e.f, cat == CategoryB)
+	e.rFit = p.Member.Section.R + e.det.Clearance
+	return e, nil
+}
+
+// notes are the warnings the sheet prints beside the checks.
+func (e *env) notes(fl *flangeLayout, wl *webLayout) []string {
+	var out []string
+	s := e.m.Section
+	if e.act.MinimumNote != "" {
+		out = append(out, e.act.MinimumNote)
+	}
+	if e.cat == CategoryB && !e.act.SLSGiven {
+		out = append(out, "no SLS forces given: the slip checks use the ULS forces (conservative)")
+	}
+	npl := s.A * e.m.FyWeb / e.f.GammaM0
+	nmax := math.Max(math.Abs(e.act.ULS.NMax), math.Abs(e.act.ULS.NMin))
+	if nmax > 0.05*npl {
+		out = append(out, fmt.Sprintf("|N| = %.1f kN exceeds 5%% of Npl,Rd = %.1f kN: the joint methods of EN 1993-1-8 6.2.7 assume less; treat the splice as a member splice and confirm the load path",
+			nmax*toKN, 0.05*npl*toKN))
+	}
+	if fl != nil && wl != nil && fl.inner && math.Min(fl.ti, wl.tp) > e.rFit {
+		out = append(out, fmt.Sprintf("inner flange plates (%g mm) and web plates (%g mm) are both thicker than r + clearance = %g mm: confirm by drawing that they do not clash", fl.ti, wl.tp, e.rFit))
+	}
+	return out
+}

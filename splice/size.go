@@ -1,0 +1,841 @@
+package splice
+
+import (
+	"errors"
+	"fmt"
+	"math"
+)
+
+// Size finds the cheapest splice in p.Sizing.Space that passes every check at this position.
+//
+// The result is exactly the one SizeExhaustive finds. The search uses three facts that hold by
+// construction: the flange checks depend only on the bolt and the flange configuration and the
+// web checks only on the bolt and the web configuration, so with the bolt fixed the cheapest
+// splice is the cheapest flange plus the cheapest web; the cost (and the tie-breaks, fewer bolts
+// then lighter plates) never falls when a thickness, a column or a row is added, so the scan
+// of each list stops at the first passing entry or at the first entry dearer than the best so
+// far; and no configuration with fewer bolts than the shear (or slip) resistance needs can pass.
+// Costs are summed in whole micro-units, so these comparisons are exact.
+//
+// When nothing passes, the result (Status NoFeasible) is the configuration with the lowest
+// utilisation, cheapest among equals, with its governing check; that search visits every
+// configuration.
+func Size(p Problem) (Result, error) {
+	s, err := newSearcher(&p)
+	if err != nil {
+		return Result{}, err
+	}
+	return s.size()
+}
+
+// SizeExhaustive evaluates every combination of the design space with every check and returns
+// the same result as Size. It exists to prove Size; it is slow.
+func SizeExhaustive(p Problem) (Result, error) {
+	s, err := newSearcher(&p)
+	if err != nil {
+		return Result{}, err
+	}
+	return s.exhaustive()
+}
+
+type searcher struct {
+	p      *Problem
+	e      *env
+	sp     space
+	sr     sectionRules
+	hr     []holeRules // per bolt size
+	cr     []capRules  // per plate thickness
+	crTf   capRules    // for the beam flange as the thinner outer part
+	bolts  []boltData  // index = size index × classes + class index
+	rates  []unitRates
+	memoA  []int8 // flange row-free checks per size, arrangement, columns, thicknesses: 0 unknown, 1 pass, 2 fail
+	memoW  []int8 // web plate checks per size, columns, thickness, rows
+	r0F    []int  // flangeFirstRows per bolt, arrangement, columns
+	r0W    []int  // webFirstRows per bolt, columns
+	evals  int
+	nth    int
+	nfc    int
+	nwc    int
+	nwr    int
+	nclass int
+}
+
+func newSearcher(p *Problem) (*searcher, error) {
+	var errs []error
+	if err := p.validate(); err != nil {
+		errs = append(errs, err)
+	}
+	z := p.Sizing
+	cat, err := ParseCategory(string(z.Category))
+	if err != nil {
+		errs = append(errs, fmt.Errorf("splice.category: %w", err))
+	}
+	fc := z.FrictionClass
+	if cat.Preloaded() {
+		if fc, err = ParseFrictionClass(string(z.FrictionClass)); err != nil {
+			errs = append(errs, fmt.Errorf("splice.friction_class: %w", err))
+		}
+	}
+	holes, err := ParseHoleType(string(z.Holes))
+	if err != nil {
+		errs = append(errs, fmt.Errorf("splice.holes: %w", err))
+	}
+	if !(z.Gap >= 0) || math.IsInf(z.Gap, 0) {
+		errs = append(errs, fmt.Errorf("splice.gap: %g mm must not be negative", z.Gap))
+	}
+	sp, err := z.Space.resolve(cat, p.PlateSteel)
+	if err != nil {
+		errs = append(errs, err)
+	}
+	if len(errs) > 0 {
+		return nil, joinErrors(errs)
+	}
+	if len(sp.sizes) == 0 || len(sp.classes) == 0 || len(sp.th) == 0 || len(sp.inner) == 0 {
+		return nil, errors.New("splice: the design space is empty")
+	}
+	e, err := newEnv(p, cat, fc, holes, z.Gap, p.Detailing)
+	if err != nil {
+		return nil, err
+	}
+	s := &searcher{p: p, e: e, sp: sp, nth: len(sp.th), nfc: len(sp.fcols), nwc: len(sp.wcols), nwr: len(sp.wrows), nclass: len(sp.classes)}
+	s.sr = newSectionRules(&e.m, &e.det, e.gap)
+	s.hr = make([]holeRules, len(sp.sizes))
+	for i, size := range sp.sizes {
+		s.hr[i] = newHoleRules(&e.m, &e.det, &s.sr, size, size.HoleDiameter(holes))
+	}
+	s.cr = make([]capRules, s.nth)
+	for i, t := range sp.th {
+		s.cr[i] = newCapRules(&e.det, &s.sr, t)
+	}
+	s.crTf = newCapRules(&e.det, &s.sr, e.m.Section.Tf)
+	rates := p.Rates.resolved()
+	n := len(sp.sizes) * len(sp.classes)
+	s.bolts = make([]boltData, 0, n)
+	s.rates = make([]unitRates, 0, n)
+	for si, size := range sp.sizes {
+		for ci, class := range sp.classes {
+			b := newBoltData(e, size, class, !z.ShankInShearPlanes)
+			b.key = [2]int{si, ci}
+			u, err := unitRatesOf(&rates, &b, cat)
+			if err != nil {
+				errs = append(errs, err)
+				continue
+			}
+			s.bolts = append(s.bolts, b)
+			s.rates = append(s.rates, u)
+		}
+	}
+	if len(errs) > 0 {
+		return nil, joinErrors(errs)
+	}
+	na := len(sp.sizes) * len(sp.inner) * s.nfc * s.nth * s.nth
+	nw := len(sp.sizes) * s.nwc * s.nth * s.nwr
+	memo := make([]int8, na+nw)
+	s.memoA, s.memoW = memo[:na], memo[na:]
+	nf, nwc := len(s.bolts)*len(sp.inner)*s.nfc, len(s.bolts)*s.nwc
+	r0 := make([]int, nf+nwc)
+	s.r0F, s.r0W = r0[:nf], r0[nf:]
+	for bi := range s.bolts {
+		b := &s.bolts[bi]
+		for ai, inner := range sp.inner {
+			for ci := range sp.fcols {
+				s.r0F[(bi*len(sp.inner)+ai)*s.nfc+ci] = s.flangeFirstRows(b, ci, inner)
+			}
+		}
+		for ci := range sp.wcols {
+			s.r0W[bi*s.nwc+ci] = s.webFirstRows(b, ci)
+		}
+	}
+	return s, nil
+}
+
+// fastAcc collects utilisations the way contribution and Check.Pass do, without building checks.
+type fastAcc struct {
+	stop    bool // stop at the first failure
+	pass    bool
+	measure float64
+}
+
+func newAcc(stop bool) fastAcc { return fastAcc{stop: stop, pass: true} }
+
+func (a *fastAcc) util(u float64, detailing bool) bool {
+	p := passes(u)
+	if !(detailing && p) && u > a.measure {
+		a.measure = u
+	}
+	if !p {
+		a.pass = false
+		return !a.stop
+	}
+	return true
+}
+
+func (a *fastAcc) num(demand, resistance float64) bool {
+	return a.util(utilisation(demand, resistance), false)
+}
+
+func (a *fastAcc) rules(r rules) bool { return a.util(r.u, true) }
+
+// fastA are the flange checks that do not depend on the number of rows once there are two, nor
+// on the bolt class.
+func (x *flangeEval) fastA(a *fastAcc) bool {
+	f := &x.e.act.Flange
+	return a.num(f.Tension, x.tensionN().res) && a.num(f.Compression, x.compressionN().res) &&
+		a.num(f.Tension, x.beamNetN().res) && a.num(f.Compression, x.bucklingN().res) &&
+		a.rules(x.spacingR(false)) && a.rules(x.fitR(false))
+}
+
+func (x *flangeEval) fastB(a *fastAcc) bool {
+	f := &x.e.act.Flange
+	nb := x.nb()
+	ok := a.num(f.Bolt/nb, x.shearN().res)
+	if ok && x.e.cat.Preloaded() {
+		ok = a.num(f.SlipBolt/nb, x.slipN())
+	}
+	return ok && a.num(f.Bolt/nb, x.bearingBeamN().res) && a.num(f.Bolt/nb, x.bearingPlateN().res) &&
+		a.num(f.Tension, x.blockN().res) && a.num(f.Tension, x.beamBlockN().res)
+}
+
+// fastBolts are the web checks that depend on the bolt class.
+func (x *webEval) fastBolts(a *fastAcc) bool {
+	ok := a.num(x.g.r, x.shearN().res) && a.util(x.bearingBeamU(), false) && a.util(x.bearingPlateU(), false)
+	if ok && x.e.cat.Preloaded() {
+		ok = a.num(x.gs.r, 2*x.b.fsPerSur)
+	}
+	return ok
+}
+
+// fastPlates are the web checks that depend only on the bolt size and the plates.
+func (x *webEval) fastPlates(a *fastAcc) bool {
+	c := x.combinedN()
+	d, r := c.demandResistance()
+	_, net := x.shearNetN()
+	_, _, blk := x.blockN()
+	_, _, _, beam := x.beamNetShearN()
+	v := x.g.shear
+	return a.num(v, x.shearGrossN()) && a.num(d, r) && a.num(v, net) && a.num(v, blk) && a.num(v, beam) &&
+		a.rules(x.spacingR(false)) && a.rules(x.fitR(false))
+}
+
+// flangeAt builds a flange layout of the design space with its plate strengths.
+func (s *searcher) flangeAt(b *boltData, ai, ci, toI, tiI, ri int) (flangeLayout, bool) {
+	inner := s.sp.inner[ai]
+	ti := 0.0
+	cr := &s.crTf
+	if inner {
+		ti = s.sp.th[tiI]
+		cr = &s.cr[min(toI, tiI)]
+	} else {
+		tiI = 0
+		if s.sp.th[toI] < s.e.m.Section.Tf {
+			cr = &s.cr[toI]
+		}
+	}
+	fl, ok := sizingFlange(&s.sr, &s.hr[b.key[0]], cr, inner, s.sp.fcols[ci], s.sp.frows[ri], s.sp.th[toI], ti)
+	fl.fyo, fl.fuo = s.sp.fy[toI], s.sp.fu[toI]
+	if inner {
+		fl.fyi, fl.fui = s.sp.fy[tiI], s.sp.fu[tiI]
+	}
+	fl.key = [5]int{ai, ci, toI, tiI, ri}
+	return fl, ok
+}
+
+func (s *searcher) webAt(b *boltData, ci, tpI, ri int) (webLayout, bool) {
+	wl, ok := sizingWeb(&s.sr, &s.hr[b.key[0]], &s.cr[tpI], &s.e.det, s.sp.wcols[ci], s.sp.wrows[ri], s.sp.th[tpI])
+	wl.fy, wl.fu = s.sp.fy[tpI], s.sp.fu[tpI]
+	wl.key = [3]int{ci, tpI, ri}
+	return wl, ok
+}
+
+// boundMargin keeps the row bounds clear of rounding: a configuration is skipped only when a
+// utilisation exceeds 1 by more than this.
+const boundMargin = 1e-6
+
+// enough reports whether n bolts of the given resistance can carry the force.
+func enough(n, resistance, force float64) bool { return n*resistance*(1+boundMargin) >= force }
+
+// maxBearing is an upper bound of Fb,Rd on a part of thickness t and strength fu (k1 ≤ 2.5,
+// αb ≤ min(fub/fu, 1)).
+func maxBearing(b *boltData, fu, t, gammaM2 float64) float64 {
+	return BearingResistance(2.5, min(b.class.Fub/fu, 1), fu, b.d, t, gammaM2, b.hf)
+}
+
+// flangeFirstRows is the first rows entry with enough bolts for shear, slip and bearing on the
+// beam flange at their largest possible values, −1 when none has.
+func (s *searcher) flangeFirstRows(b *boltData, ci int, inner bool) int {
+	np := 1.0
+	if inner {
+		np = 2
+	}
+	e := s.e
+	a := &e.act.Flange
+	fb := maxBearing(b, e.m.FuFlange, e.m.Section.Tf, e.f.GammaM2)
+	per := float64(s.sp.fcols[ci])
+	for i, r := range s.sp.frows {
+		n := float64(r) * per
+		if enough(n, np*b.fvPlane, a.Bolt) && enough(n, fb, a.Bolt) && (!e.cat.Preloaded() || enough(n, np*b.fsPerSur, a.SlipBolt)) {
+			return i
+		}
+	}
+	return -1
+}
+
+// webFirstRows is the first rows entry whose corner bolt can pass shear, slip and bearing on the
+// beam web and plates, with each bolt-force component bounded from below over every plate of
+// the design space: the eccentricity and spacing no less than with the thinnest plate, the
+// pitch anywhere between 2.4 d0 and the full spread (EN 1993-1-8 Table 3.3 limits), the
+// resistances no more than their largest values. −1 when none.
+func (s *searcher) webFirstRows(b *boltData, ci int) int {
+	e, hr := s.e, &s.hr[b.key[0]]
+	a := &e.act.Web
+	crLo, crHi := &s.cr[0], &s.cr[s.nth-1]
+	fbBeam := maxBearing(b, e.m.FuWeb, e.m.Section.Tw, e.f.GammaM2)
+	fbPlate := maxBearing(b, s.sp.fu[0], s.sp.th[s.nth-1], e.f.GammaM2)
+	for i := range s.sp.fu {
+		fbPlate = max(fbPlate, maxBearing(b, s.sp.fu[i], s.sp.th[s.nth-1], e.f.GammaM2))
+	}
+	c := float64(s.sp.wcols[ci])
+	ehLo := clamp(hr.e1T, hr.eMin, crLo.eMax)
+	phLo, phHi := 0.0, 0.0
+	if c > 1 {
+		phLo, phHi = clamp(hr.p1T, hr.p2Min, crLo.pMax), clamp(hr.p1T, hr.p2Min, crHi.pMax)
+	}
+	for i, rows := range s.sp.wrows {
+		r := float64(rows)
+		if rows < 2 {
+			continue
+		}
+		pvLo, pvHi := hr.p2Min, min(s.e.det.down((s.sr.hp-2*hr.eMin)/(r-1)), crHi.pMax)
+		if pvHi < pvLo {
+			continue
+		}
+		n := r * c
+		// z/Ip and x/Ip at the corner: Ip = r·c·(ph²(c² − 1) + pv²(r² − 1))/12.
+		ip := func(ph, pv float64) float64 { return r * c * (ph*ph*(c*c-1) + pv*pv*(r*r-1)) / 12 }
+		zOverIp := min(0.5*(r-1)*pvLo/ip(phHi, pvLo), 0.5*(r-1)*pvHi/ip(phHi, pvHi))
+		xOverIp := 0.0
+		if c > 1 {
+			xOverIp = min(0.5*(c-1)*phLo/ip(phLo, pvHi), 0.5*(c-1)*phHi/ip(phHi, pvHi))
+		}
+		eLo := e.gap/2 + ehLo + (c-1)*phLo/2
+		comp := func(mw, nw, v float64) (h, vv float64) {
+			mg := mw + v*eLo
+			return mg*zOverIp + nw/n, v/n + mg*xOverIp
+		}
+		h, v := comp(a.Moment, a.Axial, a.Shear)
+		ok := enough(1, 2*b.fvPlane, math.Sqrt(h*h+v*v)) && enough(1, fbBeam, h) && enough(1, fbBeam, v) &&
+			enough(1, fbPlate, h/2) && enough(1, fbPlate, v/2)
+		if ok && e.cat.Preloaded() {
+			hs, vs := comp(a.SlipMoment, a.SlipAxial, a.SlipShear)
+			ok = enough(1, 2*b.fsPerSur, math.Sqrt(hs*hs+vs*vs))
+		}
+		if ok {
+			return i
+		}
+	}
+	return -1
+}
+
+type flangeBest struct {
+	found bool
+	sc    score
+	fl    flangeLayout
+}
+
+type webBest struct {
+	found bool
+	sc    score
+	wl    webLayout
+}
+
+// prune says whether a score can no longer improve on the part's best (found earlier, so with a
+// smaller key: a tie loses) or on the limit from the whole splice (a tie may still win).
+func prune(sc score, found bool, best score, haveLimit bool, limit score) bool {
+	return (found && sc.cmp(best) >= 0) || (haveLimit && sc.cmp(limit) > 0)
+}
+
+func (s *searcher) memoAIndex(b *boltData, ai, ci, toI, tiI int) int {
+	return (((b.key[0]*len(s.sp.inner)+ai)*s.nfc+ci)*s.nth+toI)*s.nth + tiI
+}
+
+// rowFreeFlange runs (once per bolt size) the flange checks that do not depend on the rows.
+func (s *searcher) rowFreeFlange(b *boltData, fl flangeLayout) bool {
+	k := s.memoAIndex(b, fl.key[0], fl.key[1], fl.key[2], fl.key[3])
+	if m := s.memoA[k]; m != 0 {
+		return m == 1
+	}
+	if fl.rows < 2 {
+		fl.rows = 2
+	}
+	x := flangeEval{e: s.e, b: b, l: &fl}
+	a := newAcc(true)
+	s.evals++
+	ok := x.fastA(&a)
+	s.memoA[k] = 2
+	if ok {
+		s.memoA[k] = 1
+	}
+	return ok
+}
+
+// rowsNeeded is the first rows index from r0 (with two rows or more) whose bolts can carry the
+// flange force in shear, slip and bearing on beam and plates; −1 when none.
+func (s *searcher) rowsNeeded(b *boltData, fl flangeLayout, r0 int) int {
+	if fl.rows < 2 {
+		fl.rows = 2
+	}
+	x := flangeEval{e: s.e, b: b, l: &fl}
+	a := &s.e.act.Flange
+	fv := float64(x.planes()) * PackingFactor(fl.packing, b.d) * b.fvPlane
+	fb := min(x.bearingBeamN().res, x.bearingPlateN().res)
+	fs := x.slipN()
+	per := float64(fl.cols)
+	for i := r0; i < len(s.sp.frows); i++ {
+		n := float64(s.sp.frows[i]) * per
+		if s.sp.frows[i] < 2 {
+			return i
+		}
+		if enough(n, fv, a.Bolt) && enough(n, fb, a.Bolt) && (!s.e.cat.Preloaded() || enough(n, fs, a.SlipBolt)) {
+			return i
+		}
+	}
+	return -1
+}
+
+func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
+	b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+	var best flangeBest
+	for ai, inner := range s.sp.inner {
+		nti := 1
+		if inner {
+			nti = s.nth
+		}
+		for ci := range s.sp.fcols {
+			r0 := s.r0F[(bi*len(s.sp.inner)+ai)*s.nfc+ci]
+			if r0 < 0 {
+				continue
+			}
+		thickness:
+			for toI := 0; toI < s.nth; toI++ {
+				for tiI := 0; tiI < nti; tiI++ {
+					fl, ok := s.flangeAt(b, ai, ci, toI, tiI, r0)
+					if prune(u.score(flangeQty(&fl, e.gap)), best.found, best.sc, haveLimit, limit) {
+						if tiI == 0 {
+							break thickness
+						}
+						break
+					}
+					if !ok {
+						continue
+					}
+					if f, ok := s.scanFlangeRows(b, u, fl, r0, &best, haveLimit, limit); ok {
+						best = f
+					}
+				}
+			}
+		}
+	}
+	return best
+}
+
+// scanFlangeRows tries the rows from r0 up for one plate set and returns the first that passes.
+func (s *searcher) scanFlangeRows(b *boltData, u *unitRates, fl flangeLayout, r0 int, best *flangeBest, haveLimit bool, limit score) (flangeBest, bool) {
+	e := s.e
+	rowFree := 0 // 0 not yet run, 1 passes, 2 fails
+	for ri := r0; ri < len(s.sp.frows); ri++ {
+		fl.rows = s.sp.frows[ri]
+		fl.length = flangeLength(e.gap, fl.e1, fl.p1, fl.rows)
+		fl.key[4] = ri
+		sc := u.score(flangeQty(&fl, e.gap))
+		if prune(sc, best.found, best.sc, haveLimit, limit) {
+			return flangeBest{}, false
+		}
+		x := flangeEval{e: e, b: b, l: &fl}
+		a := newAcc(true)
+		if fl.rows >= 2 {
+			if rowFree == 0 {
+				rowFree = 2
+				if s.rowFreeFlange(b, fl) {
+					rowFree = 1
+					next := s.rowsNeeded(b, fl, ri)
+					if next < 0 {
+						return flangeBest{}, false
+					}
+					if next > ri {
+						ri = next - 1
+						continue
+					}
+				}
+			}
+			if rowFree != 1 {
+				return flangeBest{}, false
+			}
+		} else if !x.fastA(&a) {
+			s.evals++
+			continue
+		}
+		s.evals++
+		if x.fastB(&a) {
+			return flangeBest{found: true, sc: sc, fl: fl}, true
+		}
+	}
+	return flangeBest{}, false
+}
+
+// webRowFree reports whether the plates can pass the checks that do not depend on the rows: the
+// gross shear resistance, and the combined resistance bounded by the gross plastic modulus.
+func (s *searcher) webRowFree(b *boltData, wl *webLayout) bool {
+	e := s.e
+	x := webEval{e: e, b: b, l: wl}
+	v := e.act.Web.Shear
+	if !passes(utilisation(v, x.shearGrossN())) {
+		return false
+	}
+	f := &e.f
+	a := 2 * wl.hp * wl.tp
+	vpl := a * wl.fy / (math.Sqrt(3) * f.GammaM0)
+	rho := 0.0
+	if v > 0.5*vpl {
+		rho = math.Pow(2*v/vpl-1, 2)
+	}
+	fyr := (1 - min(rho, 1)) * wl.fy
+	npl := a * fyr / f.GammaM0
+	n := e.act.Web.Axial
+	if n >= npl {
+		return true // the combined check decides
+	}
+	mUpper := 2 * wl.tp * wl.hp * wl.hp / 4 * fyr / f.GammaM0 * (1 - (n/npl)*(n/npl))
+	med := e.act.Web.Moment + v*(e.gap/2+wl.eh)
+	return med <= mUpper*(1+boundMargin)
+}
+
+func (s *searcher) webPlates(b *boltData, x *webEval) bool {
+	k := ((b.key[0]*s.nwc+x.l.key[0])*s.nth+x.l.key[1])*s.nwr + x.l.key[2]
+	if m := s.memoW[k]; m != 0 {
+		return m == 1
+	}
+	a := newAcc(true)
+	ok := x.fastPlates(&a)
+	s.memoW[k] = 2
+	if ok {
+		s.memoW[k] = 1
+	}
+	return ok
+}
+
+func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
+	b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+	var best webBest
+	for ci := range s.sp.wcols {
+		r0 := s.r0W[bi*s.nwc+ci]
+		if r0 < 0 {
+			continue
+		}
+		for tpI := range s.sp.th {
+			wl, _ := s.webAt(b, ci, tpI, r0)
+			if prune(u.score(webQty(&wl, e.gap)), best.found, best.sc, haveLimit, limit) {
+				break
+			}
+			if !s.webRowFree(b, &wl) {
+				continue
+			}
+			for ri := r0; ri < s.nwr; ri++ {
+				wl, ok := s.webAt(b, ci, tpI, ri)
+				sc := u.score(webQty(&wl, e.gap))
+				if prune(sc, best.found, best.sc, haveLimit, limit) {
+					break
+				}
+				if !ok {
+					continue
+				}
+				s.evals++
+				x := newWebEval(e, b, &wl)
+				a := newAcc(true)
+				if x.fastBolts(&a) && s.webPlates(b, &x) {
+					best = webBest{found: true, sc: sc, wl: wl}
+					break
+				}
+			}
+		}
+	}
+	return best
+}
+
+// lowerBounds are the cheapest flange and web any passing splice with this bolt can have:
+// thinnest plates, fewest admissible rows, every arrangement and column count.
+func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
+	b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+	var hf, hw bool
+	for ai := range s.sp.inner {
+		for ci := range s.sp.fcols {
+			r0 := s.r0F[(bi*len(s.sp.inner)+ai)*s.nfc+ci]
+			if r0 < 0 {
+				continue
+			}
+			fl, _ := s.flangeAt(b, ai, ci, 0, 0, r0)
+			if sc := u.score(flangeQty(&fl, e.gap)); !hf || sc.cmp(lf) < 0 {
+				lf, hf = sc, true
+			}
+		}
+	}
+	for ci := range s.sp.wcols {
+		r0 := s.r0W[bi*s.nwc+ci]
+		if r0 < 0 {
+			continue
+		}
+		wl, _ := s.webAt(b, ci, 0, r0)
+		if sc := u.score(webQty(&wl, e.gap)); !hw || sc.cmp(lw) < 0 {
+			lw, hw = sc, true
+		}
+	}
+	return lf, lw, hf && hw
+}
+
+func sub(a, b score) score {
+	return score{cost: a.cost - b.cost, bolts: a.bolts - b.bolts, mass: a.mass - b.mass}
+}
+
+// choice is a whole splice of the design space.
+type choice struct {
+	found   bool
+	bi      int
+	fl      flangeLayout
+	wl      webLayout
+	sc      score
+	measure float64
+}
+
+// keyLess orders whole splices by their position in the sorted design space.
+func keyLess(abi int, afl *flangeLayout, awl *webLayout, bbi int, bfl *flangeLayout, bwl *webLayout) bool {
+	if abi != bbi {
+		return abi < bbi
+	}
+	if afl.key != bfl.key {
+		return lessInts(afl.key[:], bfl.key[:])
+	}
+	return lessInts(awl.key[:], bwl.key[:])
+}
+
+func lessInts(a, b []int) bool {
+	for i := range a {
+		if a[i] != b[i] {
+			return a[i] < b[i]
+		}
+	}
+	return false
+}
+
+func (c *choice) better(o *choice) bool {
+	if !c.found {
+		return true
+	}
+	if k := o.sc.cmp(c.sc); k != 0 {
+		return k < 0
+	}
+	return keyLess(o.bi, &o.fl, &o.wl, c.bi, &c.fl, &c.wl)
+}
+
+func (c *choice) betterInfeasible(o *choice) bool {
+	if !c.found {
+		return true
+	}
+	if o.measure != c.measure {
+		return o.measure < c.measure
+	}
+	return c.better(o)
+}
+
+func (s *searcher) size() (Result, error) {
+	type cand struct {
+		bi         int
+		lb, lf, lw score
+	}
+	order := make([]cand, 0, len(s.bolts))
+	for bi := range s.bolts {
+		if lf, lw, ok := s.lowerBounds(bi); ok {
+			common := score{cost: s.rates[bi].splice}
+			order = append(order, cand{bi: bi, lb: common.add(lf).add(lw), lf: lf, lw: lw})
+		}
+	}
+	for i := 1; i < len(order); i++ {
+		for j := i; j > 0; j-- {
+			a, b := &order[j-1], &order[j]
+			if k := a.lb.cmp(b.lb); k < 0 || (k == 0 && a.bi < b.bi) {
+				break
+			}
+			order[j-1], order[j] = order[j], order[j-1]
+		}
+	}
+	var best choice
+	for _, c := range order {
+		if best.found {
+			if k := c.lb.cmp(best.sc); k > 0 || (k == 0 && c.bi > best.bi) {
+				break
+			}
+		}
+		common := score{cost: s.rates[c.bi].splice}
+		// The web first: its lower bound is the weaker one, so its exact cost prunes the flange.
+		w := s.bestWeb(c.bi, best.found, sub(sub(best.sc, common), c.lf))
+		if !w.found {
+			continue
+		}
+		f := s.bestFlange(c.bi, best.found, sub(sub(best.sc, common), w.sc))
+		if !f.found {
+			continue
+		}
+		o := choice{found: true, bi: c.bi, fl: f.fl, wl: w.wl, sc: common.add(f.sc).add(w.sc)}
+		if best.better(&o) {
+			best = o
+		}
+	}
+	if best.found {
+		return s.result(&best, Sized), nil
+	}
+	return s.sizeInfeasible()
+}
+
+type partEval struct {
+	measure float64
+	sc      score
+	idx     int
+}
+
+// sizeInfeasible finds, when nothing passes, the splice with the lowest utilisation (cheapest
+// among equals). With the bolt fixed that is the larger of the lowest flange and lowest web
+// utilisations, made with the cheapest flange and web that reach it.
+func (s *searcher) sizeInfeasible() (Result, error) {
+	var best choice
+	var fls []flangeLayout
+	var wls []webLayout
+	for bi := range s.bolts {
+		b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+		fls, wls = fls[:0], wls[:0]
+		s.forEachFlange(b, func(fl *flangeLayout) { fls = append(fls, *fl) })
+		s.forEachWeb(b, func(wl *webLayout) { wls = append(wls, *wl) })
+		if len(fls) == 0 || len(wls) == 0 {
+			continue
+		}
+		fe := make([]partEval, len(fls))
+		minF := math.Inf(1)
+		for i := range fls {
+			x := flangeEval{e: e, b: b, l: &fls[i]}
+			acc := newAcc(false)
+			x.fastA(&acc)
+			x.fastB(&acc)
+			s.evals++
+			fe[i] = partEval{measure: acc.measure, sc: u.score(flangeQty(&fls[i], e.gap)), idx: i}
+			minF = min(minF, acc.measure)
+		}
+		we := make([]partEval, len(wls))
+		minW := math.Inf(1)
+		for i := range wls {
+			x := newWebEval(e, b, &wls[i])
+			acc := newAcc(false)
+			x.fastBolts(&acc)
+			x.fastPlates(&acc)
+			s.evals++
+			we[i] = partEval{measure: acc.measure, sc: u.score(webQty(&wls[i], e.gap)), idx: i}
+			minW = min(minW, acc.measure)
+		}
+		level := max(minF, minW)
+		fi := cheapestWithin(fe, level)
+		wi := cheapestWithin(we, level)
+		common := score{cost: u.splice}
+		o := choice{found: true, bi: bi, fl: fls[fi], wl: wls[wi], measure: level,
+			sc: common.add(fe[fi].sc).add(we[wi].sc)}
+		if best.betterInfeasible(&o) {
+			best = o
+		}
+	}
+	if !best.found {
+		return Result{}, errors.New("splice: no configuration of the design space can be detailed on this section (check the web depth for two bolt rows and the flange width for the bolt lines)")
+	}
+	return s.result(&best, NoFeasible), nil
+}
+
+// cheapestWithin returns the index of the cheapest part (first in design-space order among
+// equals, which is the order the parts were listed in) whose measure does not exceed level.
+func cheapestWithin(parts []partEval, level float64) int {
+	bi := -1
+	for i := range parts {
+		if parts[i].measure > level {
+			continue
+		}
+		if bi < 0 || parts[i].sc.cmp(parts[bi].sc) < 0 {
+			bi = i
+		}
+	}
+	return bi
+}
+
+// forEachFlange visits every drawable flange configuration in design-space order.
+func (s *searcher) forEachFlange(b *boltData, visit func(*flangeLayout)) {
+	for ai, inner := range s.sp.inner {
+		nti := 1
+		if inner {
+			nti = len(s.sp.th)
+		}
+		for ci := range s.sp.fcols {
+			for toI := range s.sp.th {
+				for tiI := 0; tiI < nti; tiI++ {
+					for ri := range s.sp.frows {
+						if fl, ok := s.flangeAt(b, ai, ci, toI, tiI, ri); ok {
+							visit(&fl)
+						}
+					}
+				}
+			}
+		}
+	}
+}
+
+// forEachWeb visits every drawable web configuration in design-space order.
+func (s *searcher) forEachWeb(b *boltData, visit func(*webLayout)) {
+	for ci := range s.sp.wcols {
+		for tpI := range s.sp.th {
+			for ri := range s.sp.wrows {
+				if wl, ok := s.webAt(b, ci, tpI, ri); ok {
+					visit(&wl)
+				}
+			}
+		}
+	}
+}
+
+func (s *searcher) exhaustive() (Result, error) {
+	var feasible, infeasible choice
+	for bi := range s.bolts {
+		b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+		common := score{cost: u.splice}
+		s.forEachFlange(b, func(fl *flangeLayout) {
+			fsc := u.score(flangeQty(fl, e.gap))
+			s.forEachWeb(b, func(wl *webLayout) {
+				s.evals++
+				pass, measure := verdict(e, b, fl, wl)
+				o := choice{found: true, bi: bi, fl: *fl, wl: *wl, measure: measure,
+					sc: common.add(fsc).add(u.score(webQty(wl, e.gap)))}
+				if pass {
+					if feasible.better(&o) {
+						feasible = o
+					}
+				} else if infeasible.betterInfeasible(&o) {
+					infeasible = o
+				}
+			})
+		})
+	}
+	switch {
+	case feasible.found:
+		return s.result(&feasible, Sized), nil
+	case infeasible.found:
+		return s.result(&infeasible, NoFeasible), nil
+	}
+	return Result{}, errors.New("splice: no configuration of the design space can be detailed on this section (check the web depth for two bolt rows and the flange width for the bolt lines)")
+}
+
+func (s *searcher) result(c *choice, st Status) Result {
+	r := assemble(s.e, &s.bolts[c.bi], &c.fl, &c.wl, &s.rates[c.bi], !s.p.Brief)
+	r.Status = st
+	r.Evaluated = s.evals
+	return r
+}

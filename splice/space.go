@@ -1,0 +1,214 @@
+package splice
+
+import (
+	"fmt"
+)
+
+// DesignSpace lists the choices Size searches. An empty list takes the default list
+// (DefaultDesignSpace). Lists are sorted and duplicates dropped; ties in cost are broken by
+// fewer bolts, then lighter plates, then the first in the sorted lists (smaller bolt, weaker
+// class, outer before outer+inner, fewer columns, thinner plates, fewer rows).
+type DesignSpace struct {
+	Sizes         []string      // bolt sizes, e.g. "M20"
+	Classes       []string      // bolt classes, e.g. "8.8"
+	Thicknesses   []float64     // plate thicknesses for outer, inner and web plates [mm]
+	Arrangements  []Arrangement // flange plates
+	FlangeColumns []int         // 2 and/or 4
+	FlangeRows    []int         // rows each side of the joint, 1 or more
+	WebColumns    []int         // columns each side of the joint, 1 or more
+	WebRows       []int         // rows, 2 or more
+}
+
+// DefaultDesignSpace is M16–M30 in 8.8 and 10.9, plates 8–30 mm, both flange arrangements,
+// 2 or 4 flange lines with 2–10 rows, 1–3 web columns with 2–10 rows.
+func DefaultDesignSpace() DesignSpace {
+	return DesignSpace{
+		Sizes:         []string{"M16", "M20", "M22", "M24", "M27", "M30"},
+		Classes:       []string{"8.8", "10.9"},
+		Thicknesses:   []float64{8, 10, 12, 15, 20, 25, 30},
+		Arrangements:  []Arrangement{OuterOnly, OuterInner},
+		FlangeColumns: []int{2, 4},
+		FlangeRows:    []int{2, 3, 4, 5, 6, 7, 8, 9, 10},
+		WebColumns:    []int{1, 2, 3},
+		WebRows:       []int{2, 3, 4, 5, 6, 7, 8, 9, 10},
+	}
+}
+
+// space is a design space resolved for one Size call.
+type space struct {
+	sizes        []BoltSize
+	classes      []BoltClass
+	th           []float64
+	fy, fu       []float64 // plate strengths per thickness
+	inner        []bool
+	fcols, frows []int
+	wcols, wrows []int
+}
+
+const maxListLength = 100
+
+func sortedInts(field string, v []int, lo, hi int, allowed func(int) bool) ([]int, error) {
+	if len(v) > maxListLength {
+		return nil, fmt.Errorf("%s: %d entries is more than %d", field, len(v), maxListLength)
+	}
+	out := append([]int(nil), v...)
+	for i := 1; i < len(out); i++ {
+		for j := i; j > 0 && out[j] < out[j-1]; j-- {
+			out[j], out[j-1] = out[j-1], out[j]
+		}
+	}
+	out = dedupInts(out)
+	for _, x := range out {
+		if x < lo || x > hi || (allowed != nil && !allowed(x)) {
+			return nil, fmt.Errorf("%s: %d is not allowed (%d to %d)", field, x, lo, hi)
+		}
+	}
+	return out, nil
+}
+
+func sortedFloats(v []float64) []float64 {
+	out := append([]float64(nil), v...)
+	for i := 1; i < len(out); i++ {
+		for j := i; j > 0 && out[j] < out[j-1]; j-- {
+			out[j], out[j-1] = out[j-1], out[j]
+		}
+	}
+	return out
+}
+
+func dedupInts(v []int) []int {
+	out := v[:0]
+	for i, x := range v {
+		if i == 0 || x != v[i-1] {
+			out = append(out, x)
+		}
+	}
+	return out
+}
+
+func (d DesignSpace) resolve(cat Category, steel Steel) (space, error) {
+	def := DefaultDesignSpace()
+	if len(d.Sizes) == 0 {
+		d.Sizes = def.Sizes
+	}
+	if len(d.Classes) == 0 {
+		d.Classes = def.Classes
+	}
+	if len(d.Thicknesses) == 0 {
+		d.Thicknesses = def.Thicknesses
+	}
+	if len(d.Arrangements) == 0 {
+		d.Arrangements = def.Arrangements
+	}
+	if len(d.FlangeColumns) == 0 {
+		d.FlangeColumns = def.FlangeColumns
+	}
+	if len(d.FlangeRows) == 0 {
+		d.FlangeRows = def.FlangeRows
+	}
+	if len(d.WebColumns) == 0 {
+		d.WebColumns = def.WebColumns
+	}
+	if len(d.WebRows) == 0 {
+		d.WebRows = def.WebRows
+	}
+	var s space
+	var errs []error
+	if len(d.Sizes) > maxListLength || len(d.Classes) > maxListLength || len(d.Arrangements) > maxListLength {
+		return s, fmt.Errorf("bolts: more than %d sizes, classes or arrangements", maxListLength)
+	}
+	s.sizes = make([]BoltSize, 0, len(d.Sizes))
+	for _, n := range d.Sizes {
+		b, err := LookupBoltSize(n)
+		if err != nil {
+			errs = append(errs, fmt.Errorf("bolts.sizes: %w", err))
+			continue
+		}
+		// insert in order of diameter, dropping repeats
+		i := 0
+		for i < len(s.sizes) && s.sizes[i].D < b.D {
+			i++
+		}
+		if i < len(s.sizes) && s.sizes[i].Name == b.Name {
+			continue
+		}
+		s.sizes = append(s.sizes, BoltSize{})
+		copy(s.sizes[i+1:], s.sizes[i:])
+		s.sizes[i] = b
+	}
+	s.classes = make([]BoltClass, 0, len(d.Classes))
+	for _, n := range d.Classes {
+		c, err := LookupBoltClass(n)
+		if err != nil {
+			errs = append(errs, fmt.Errorf("bolts.classes: %w", err))
+			continue
+		}
+		if cat.Preloaded() && !c.Preloadable {
+			errs = append(errs, fmt.Errorf("bolts.classes: class %s cannot be preloaded; category %s needs 8.8 or 10.9 (EN 1993-1-8 3.1.2(1))", c.Name, cat))
+			continue
+		}
+		// insert in order of fub, then fyb, dropping repeats
+		i := 0
+		for i < len(s.classes) && (s.classes[i].Fub < c.Fub || (s.classes[i].Fub == c.Fub && s.classes[i].Fyb < c.Fyb)) {
+			i++
+		}
+		if i < len(s.classes) && s.classes[i].Name == c.Name {
+			continue
+		}
+		s.classes = append(s.classes, BoltClass{})
+		copy(s.classes[i+1:], s.classes[i:])
+		s.classes[i] = c
+	}
+	if len(d.Thicknesses) > maxListLength {
+		errs = append(errs, fmt.Errorf("plates.thicknesses: %d entries is more than %d", len(d.Thicknesses), maxListLength))
+	} else {
+		th := sortedFloats(d.Thicknesses)
+		s.th, s.fy, s.fu = make([]float64, 0, len(th)), make([]float64, 0, len(th)), make([]float64, 0, len(th))
+		for i, t := range th {
+			if i > 0 && t == th[i-1] {
+				continue
+			}
+			if !(t > 0 && t <= 200) {
+				errs = append(errs, fmt.Errorf("plates.thicknesses: %g mm is not a plate thickness (0 to 200 mm)", t))
+				continue
+			}
+			fy, fu, err := steel.strength(t)
+			if err != nil {
+				errs = append(errs, fmt.Errorf("plates.thicknesses: %w", err))
+				continue
+			}
+			s.th, s.fy, s.fu = append(s.th, t), append(s.fy, fy), append(s.fu, fu)
+		}
+	}
+	var haveOuter, haveInner bool
+	for _, a := range d.Arrangements {
+		switch a {
+		case OuterOnly:
+			haveOuter = true
+		case OuterInner:
+			haveInner = true
+		default:
+			errs = append(errs, fmt.Errorf("flange_plates: %q is not one of outer, outer+inner", a))
+		}
+	}
+	if haveOuter {
+		s.inner = append(s.inner, false)
+	}
+	if haveInner {
+		s.inner = append(s.inner, true)
+	}
+	var err error
+	if s.fcols, err = sortedInts("flange.columns", d.FlangeColumns, 2, 4, func(c int) bool { return c == 2 || c == 4 }); err != nil {
+		errs = append(errs, err)
+	}
+	if s.frows, err = sortedInts("flange.rows", d.FlangeRows, 1, 50, nil); err != nil {
+		errs = append(errs, err)
+	}
+	if s.wcols, err = sortedInts("web.columns", d.WebColumns, 1, 10, nil); err != nil {
+		errs = append(errs, err)
+	}
+	if s.wrows, err = sortedInts("web.rows", d.WebRows, 2, 50, nil); err != nil {
+		errs = append(errs, err)
+	}
+	return s, joinErrors(errs)
+}
