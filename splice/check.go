@@ -1,9 +1,6 @@
 package splice
 
-import (
-	"errors"
-	"math"
-)
+import "errors"
 
 // Limit states a check belongs to.
 const (
@@ -96,10 +93,3 @@ const (
 	toKN  = 1e-3 // N → kN
 	toKNm = 1e-6 // N·mm → kNm
 )
-
-func round6(x float64) float64 {
-	if math.IsInf(x, 0) || math.IsNaN(x) {
-		return x
-	}
-	return math.Round(x*1e6) / 1e6
-}

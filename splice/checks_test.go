@@ -58,12 +58,12 @@ func TestWorkedSpliceEveryCheck(t *testing.T) {
 	awA := 10.2 * 468 / 11550
 	z := 500.0 - 16 // lever arm h − tf
 	mf := 400e6 * (1 - iwIy)
-	ft := mf/z + 100e3*(1-awA)/2                // 677.0 + 29.3 = 706.4 kN, |M| largest with N_max
-	fc := mf/z + 150e3*(1-awA)/2                // 677.0 + 44.0 = 721.0 kN with N_min
+	ft := mf/z + 100e3*(1-awA)/2               // 677.0 + 29.3 = 706.4 kN, |M| largest with N_max
+	fc := mf/z + 150e3*(1-awA)/2               // 677.0 + 44.0 = 721.0 kN with N_min
 	fsls := 280e6*(1-iwIy)/z + 100e3*(1-awA)/2 // 474.0 + 29.3 = 503.3 kN (SLS, N_min governs)
-	n := 6.0                                    // bolts per flange each side: 3 rows × 2 lines
-	mw := 400e6 * iwIy                          // 72.31 kNm
-	nw := 150e3 * awA                           // 62.0 kN (|N_min| > N_max)
+	n := 6.0                                   // bolts per flange each side: 3 rows × 2 lines
+	mw := 400e6 * iwIy                         // 72.31 kNm
+	nw := 150e3 * awA                          // 62.0 kN (|N_min| > N_max)
 
 	assert.InEpsilon(t, ft, r.Actions.Flange.Tension, 1e-9)
 	assert.InEpsilon(t, fc, r.Actions.Flange.Compression, 1e-9)
@@ -94,8 +94,8 @@ func TestWorkedSpliceEveryCheck(t *testing.T) {
 	// e = 10/2 + 60 + 40 = 105 mm; Mg = Mw + V·e = 72.31 + 300×0.105 = 103.81 kNm.
 	ip := 112800.0
 	mg := mw + 300e3*105
-	h := mg*150/ip + nw/8      // 138.0 + 7.75 = 145.8 kN
-	v := 300e3/8 + mg*40/ip    // 37.5 + 36.8 = 74.3 kN
+	h := mg*150/ip + nw/8   // 138.0 + 7.75 = 145.8 kN
+	v := 300e3/8 + mg*40/ip // 37.5 + 36.8 = 74.3 kN
 	mgs := 280e6*iwIy + 210e3*105
 	hs := mgs*150/ip + 100e3*awA/8
 	vs := 210e3/8 + mgs*40/ip
@@ -277,4 +277,19 @@ func TestWebBoltGroup(t *testing.T) {
 		}
 	}
 	assert.InEpsilon(t, g.r, maxR, 1e-12, "the corner bolt is the most loaded")
+}
+
+// TestSingleLapOneRow: an outer plate alone with one bolt row each side is a single lap joint
+// with one bolt row; EN 1993-1-8 3.6.1(10) limits Fb,Rd to 1.5·fu·d·t/γM2.
+func TestSingleLapOneRow(t *testing.T) {
+	g := workedGeometry()
+	g.Flange.Inner = Plate{}
+	g.Flange.Rows, g.Flange.Pitch = 1, 0
+	r, err := Verify(workedProblem(t), g)
+	require.NoError(t, err)
+	// beam flange: 2.5 × 1 × 490 × 20 × 16/1.25 = 313.6 kN, limited to 1.5 × 490 × 20 × 16/1.25 = 188.16 kN
+	assert.InEpsilon(t, 1.5*490*20*16/1.25/1e3, byID(t, r, IDFlangeBearingBeam).Resistance, 1e-12)
+	// plate: limited to 1.5 × 490 × 20 × 15/1.25 = 176.4 kN
+	assert.InEpsilon(t, 1.5*490*20*15/1.25/1e3, byID(t, r, IDFlangeBearingPl).Resistance, 1e-12)
+	assert.Contains(t, byID(t, r, IDFlangeBearingBeam).Note, "3.6.1(10)")
 }

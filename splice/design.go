@@ -145,7 +145,11 @@ func verdict(e *env, b *boltData, fl *flangeLayout, wl *webLayout) (pass bool, m
 // assemble builds the complete result of one splice.
 func assemble(e *env, b *boltData, fl *flangeLayout, wl *webLayout, u *unitRates, full bool) Result {
 	r := Result{Pass: true, Actions: e.act}
-	r.Checks = make([]Check, 0, 24)
+	n := 19
+	if e.cat.Preloaded() {
+		n = 22
+	}
+	r.Checks = make([]Check, 0, n)
 	gov := -1
 	sheet(e, b, fl, wl, full, func(c Check) {
 		r.Checks = append(r.Checks, c)

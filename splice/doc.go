@@ -49,7 +49,10 @@
 // nearest the joint (6.2.8, 6.2.9.1); beam web net shear at the bolts.
 //
 // Not covered: fatigue, fire, seismic action, lateral-torsional buckling of the member, bolt
-// tension and prying (a cover-plate splice loads its bolts in shear), clearances of bolt heads
+// tension and prying (a cover-plate splice loads its bolts in shear), local buckling of the web
+// cover plates' compression zone (the flange plates are checked; the brief lists no such check
+// for the web plates), the beam's own member resistance (the result notes when |M| or |V|
+// exceed Mpl,Rd or Vpl,Rd), clearances of bolt heads
 // and of web plates against inner flange plates (the result notes when both plates are thicker
 // than the root radius plus the clearance), and block tearing of the beam web (the web has no
 // free edge at the splice).
@@ -72,7 +75,8 @@
 // slip-resistant design space) is a returned error naming the field and value; several
 // problems are joined. A drawable splice that breaks a rule gives failing detailing checks.
 // The package never prints and keeps no state between calls: Verify, Size and SizeExhaustive
-// are safe for concurrent use.
+// are safe for concurrent use (Steel.Strength must be too). Problem.Brief leaves the formula
+// text out of the result for whole-span scans; the numbers are the same.
 //
 // References: EN 1993-1-8:2005+AC:2009, EN 1993-1-1:2005, EN 1090-2 (hole clearances, slip
 // factors), EN ISO 898-1 (bolt stress areas). National annexes may change the partial factors

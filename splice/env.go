@@ -77,6 +77,14 @@ func (e *env) notes(fl *flangeLayout, wl *webLayout) []string {
 	if e.cat == CategoryB && !e.act.SLSGiven {
 		out = append(out, "no SLS forces given: the slip checks use the ULS forces (conservative)")
 	}
+	mpl := s.WplY * e.m.FyFlange / e.f.GammaM0
+	vpl := s.Avz * e.m.FyWeb / (math.Sqrt(3) * e.f.GammaM0)
+	if _, mAbs := stateM(e.act.ULS); mpl > 0 && mAbs > mpl {
+		out = append(out, fmt.Sprintf("|M| = %.1f kNm exceeds the section's Mpl,Rd = Wpl,y·fy/γM0 = %.1f kNm: the beam itself is overstressed here", mAbs*toKNm, mpl*toKNm))
+	}
+	if v := math.Abs(e.act.ULS.V); v > vpl {
+		out = append(out, fmt.Sprintf("|V| = %.1f kN exceeds the section's Vpl,Rd = %.1f kN: the beam itself is overstressed here", v*toKN, vpl*toKN))
+	}
 	npl := s.A * e.m.FyWeb / e.f.GammaM0
 	nmax := math.Max(math.Abs(e.act.ULS.NMax), math.Abs(e.act.ULS.NMin))
 	if nmax > 0.05*npl {

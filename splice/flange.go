@@ -43,6 +43,15 @@ func (x *flangeEval) share(ro, ri float64) (float64, string) {
 	return cap, "outer plate"
 }
 
+// shareText shows the sharing step of a plate check with inner plates.
+func (x *flangeEval) shareText(ro, ri float64) string {
+	if !x.l.inner {
+		return ""
+	}
+	ao, ai, sum := x.areas()
+	return sprintf("; shared by area: min(%s×%s/%s, %s×%s/%s)", kN(ro), mm(sum), mm(ao), kN(ri), mm(sum), mm(ai))
+}
+
 func (x *flangeEval) beamPly() ply {
 	y, n := x.l.lines()
 	b := x.e.m.Section.B
@@ -143,6 +152,7 @@ func (x *flangeEval) tension(full bool) Check {
 		c.Substituted += sprintf("; inner: A = 2×%s×%s = %s mm², Anet = 2×(%s − %d×%s)×%s = %s mm², Npl,Rd = %s kN, net %s kN",
 			mm(l.bi), mm(l.ti), mm(n.ai), mm(l.bi), l.cols/2, mm(d0), mm(l.ti), mm(n.anetI), kN(n.nplI), kN(n.nuI))
 	}
+	c.Substituted += x.shareText(math.Min(n.nplO, n.nuO), math.Min(n.nplI, n.nuI))
 	c.Substituted += sprintf("; Ft,Ed = %s kN ≤ Nt,Rd = %s kN", kN(e.act.Flange.Tension), kN(n.res))
 	c.Inputs = []Input{in("Ft,Ed", e.act.Flange.Tension*toKN, "kN"), in("fy,outer", l.fyo, "N/mm²"), in("fu,outer", l.fuo, "N/mm²"), in("d0", d0, "mm")}
 	c.Note = "governed by the " + n.gov + "; " + e.act.Flange.TensionState
@@ -175,6 +185,7 @@ func (x *flangeEval) compression(full bool) Check {
 	if l.inner {
 		c.Substituted += sprintf("; inner: %s mm² × %s / %s = %s kN", mm(n.ai), fnum(l.fyi, 0), f2(g0), kN(n.rI))
 	}
+	c.Substituted += x.shareText(n.rO, n.rI)
 	c.Substituted += sprintf("; Fc,Ed = %s kN ≤ %s kN", kN(e.act.Flange.Compression), kN(n.res))
 	c.Inputs = []Input{in("Fc,Ed", e.act.Flange.Compression*toKN, "kN")}
 	c.Note = "governed by the " + n.gov + "; " + e.act.Flange.CompressionState
@@ -229,6 +240,7 @@ func (x *flangeEval) buckling(full bool) Check {
 	if l.inner {
 		c.Substituted += sprintf("; inner: λ̄ = %s, χ = %s, Nb,Rd = %s kN", f3(n.lbI), f3(n.chiI), kN(n.rI))
 	}
+	c.Substituted += x.shareText(n.rO, n.rI)
 	c.Substituted += sprintf("; Fc,Ed = %s kN ≤ %s kN", kN(e.act.Flange.Compression), kN(n.res))
 	tmin, fy := l.to, l.fyo
 	if l.inner && l.ti < tmin {
@@ -328,7 +340,12 @@ func (x *flangeEval) shear(full bool) Check {
 
 type bearingBeamNums struct {
 	k1, ad, ab, res float64
+	lap             bool // single lap with one bolt row: 3.6.1(10) limit applied
 }
+
+// singleLapOneRow: an outer plate alone with one row each side is a single lap joint with one
+// bolt row, where EN 1993-1-8 3.6.1(10) limits Fb,Rd to 1.5·fu·d·t/γM2.
+func (x *flangeEval) singleLapOneRow() bool { return !x.l.inner && x.l.rows == 1 }
 
 func (x *flangeEval) bearingBeamN() (n bearingBeamNums) {
 	e, b := x.e, x.b
@@ -337,6 +354,10 @@ func (x *flangeEval) bearingBeamN() (n bearingBeamNums) {
 	n.ad = x.alphaDBeam()
 	n.ab = AlphaB(n.ad, b.class.Fub, e.m.FuFlange)
 	n.res = BearingResistance(n.k1, n.ab, e.m.FuFlange, b.d, e.m.Section.Tf, e.f.GammaM2, b.hf)
+	if x.singleLapOneRow() {
+		n.lap = true
+		n.res = min(n.res, 1.5*e.m.FuFlange*b.d*e.m.Section.Tf/e.f.GammaM2)
+	}
 	return n
 }
 
@@ -358,6 +379,9 @@ func (x *flangeEval) bearingBeam(full bool) Check {
 	p := x.beamPly()
 	c.Inputs = []Input{in("e1", l.e1, "mm"), in("p1", l.p1, "mm"), in("e2", s.B/2-p.y[p.n-1], "mm"), in("d0", b.d0, "mm"), in("t", s.Tf, "mm")}
 	c.Note = "beam flange; e1 to the beam end; the load reverses, so end and inner terms both apply"
+	if n.lap {
+		c.Note += sprintf("; single lap with one bolt row: Fb,Rd ≤ 1.5·fu·d·t/γM2 = %s kN (3.6.1(10)), washers under head and nut", kN(1.5*e.m.FuFlange*b.d*s.Tf/e.f.GammaM2))
+	}
 	return c
 }
 
@@ -373,6 +397,9 @@ func (x *flangeEval) bearingPlateN() (n bearingPlateNums) {
 	n.k1o = po.k1Min(b.d0)
 	n.abo = AlphaB(n.ad, b.class.Fub, l.fuo)
 	n.rO = BearingResistance(n.k1o, n.abo, l.fuo, b.d, l.to, e.f.GammaM2, b.hf)
+	if x.singleLapOneRow() {
+		n.rO = min(n.rO, 1.5*l.fuo*b.d*l.to/e.f.GammaM2)
+	}
 	if l.inner {
 		pi := x.innerPly()
 		n.k1i = pi.k1Min(b.d0)
@@ -395,9 +422,13 @@ func (x *flangeEval) bearingPlate(full bool) Check {
 	if l.inner {
 		c.Substituted += sprintf("; inner: k1 = %s, αb = %s, Fb,Rd = %s kN", f3(n.k1i), f3(n.abi), kN(n.rI))
 	}
+	c.Substituted += x.shareText(n.rO, n.rI)
 	c.Substituted += sprintf("; Fb,Ed = %s kN ≤ %s kN", kN(demand), kN(n.res))
 	c.Inputs = []Input{in("e1", l.e1, "mm"), in("p1", l.p1, "mm"), in("e2", l.e2, "mm"), in("gauge", l.g, "mm"), in("d0", b.d0, "mm")}
 	c.Note = "governed by the " + n.gov + "; plates share the bolt force by area"
+	if x.singleLapOneRow() {
+		c.Note += "; single lap with one bolt row: Fb,Rd ≤ 1.5·fu·d·t/γM2 (3.6.1(10)), washers under head and nut"
+	}
 	return c
 }
 
@@ -462,6 +493,7 @@ func (x *flangeEval) block(full bool) Check {
 	if l.inner {
 		c.Substituted += sprintf("; inner (×2): Ant = %s×%s mm², Anv = %s×%s mm², %s → %s kN", mm(n.antI), mm(l.ti), mm(n.anvI), mm(l.ti), veffName(n.concI), kN(n.rI))
 	}
+	c.Substituted += x.shareText(n.rO, n.rI)
 	c.Substituted += sprintf("; Ft,Ed = %s kN ≤ %s kN", kN(e.act.Flange.Tension), kN(n.res))
 	c.Inputs = []Input{in("Lv", n.lv, "mm"), in("d0", x.b.d0, "mm")}
 	c.Note = "governed by the " + n.gov + "; " + e.act.Flange.TensionState

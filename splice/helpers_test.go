@@ -67,7 +67,7 @@ func member(t testing.TB, name string, steel Steel) Member {
 }
 
 func knm(v float64) float64 { return v * 1e6 } // kNm → N·mm
-func kn(v float64) float64 { return v * 1e3 } // kN → N
+func kn(v float64) float64  { return v * 1e3 } // kN → N
 
 // smallSpace is a design space small enough for the exhaustive search to run hundreds of times.
 func smallSpace() DesignSpace {

@@ -290,10 +290,12 @@ func (s *searcher) webFirstRows(b *boltData, ci int) int {
 	a := &e.act.Web
 	crLo, crHi := &s.cr[0], &s.cr[s.nth-1]
 	fbBeam := maxBearing(b, e.m.FuWeb, e.m.Section.Tw, e.f.GammaM2)
-	fbPlate := maxBearing(b, s.sp.fu[0], s.sp.th[s.nth-1], e.f.GammaM2)
-	for i := range s.sp.fu {
-		fbPlate = max(fbPlate, maxBearing(b, s.sp.fu[i], s.sp.th[s.nth-1], e.f.GammaM2))
+	// 2.5·min(fub/fu, 1)·fu = 2.5·min(fub, fu) grows with fu: the strongest plate at the thickest
+	fuMax := s.sp.fu[0]
+	for _, fu := range s.sp.fu {
+		fuMax = max(fuMax, fu)
 	}
+	fbPlate := maxBearing(b, fuMax, s.sp.th[s.nth-1], e.f.GammaM2)
 	c := float64(s.sp.wcols[ci])
 	ehLo := clamp(hr.e1T, hr.eMin, crLo.eMax)
 	phLo, phHi := 0.0, 0.0

@@ -262,3 +262,50 @@ func TestDetailingDefaults(t *testing.T) {
 	assert.LessOrEqual(t, g.Flange.Outer.Width, 200.0)
 	assert.True(t, r.Pass)
 }
+
+// TestSizeEqualsExhaustiveOddSpaces: the equality holds for unusual design spaces too — single
+// rows, plates either side of the 40 mm strength step (where a thicker plate can be weaker),
+// sheltered detailing, zero rates (ties broken by bolts and mass), shank in the shear planes.
+func TestSizeEqualsExhaustiveOddSpaces(t *testing.T) {
+	rng := rand.New(rand.NewSource(13))
+	n := 80
+	if testing.Short() {
+		n = 15
+	}
+	spaces := []DesignSpace{
+		{Sizes: []string{"M16", "M24"}, Classes: []string{"10.9"}, Thicknesses: []float64{10, 40, 41, 50},
+			FlangeRows: []int{1, 2, 3, 5, 8}, WebColumns: []int{1, 3}, WebRows: []int{2, 4, 7}},
+		{Sizes: []string{"M20"}, Classes: []string{"8.8", "10.9"}, Thicknesses: []float64{6, 8, 12},
+			Arrangements: []Arrangement{OuterInner}, FlangeColumns: []int{4}, FlangeRows: []int{1, 2, 4, 6, 9}, WebRows: []int{2, 3, 5, 8}},
+		{Sizes: []string{"M12", "M30", "M36"}, Classes: []string{"8.8"}, Thicknesses: []float64{15, 25},
+			Arrangements: []Arrangement{OuterOnly}, FlangeRows: []int{3, 4, 10}, WebColumns: []int{2}, WebRows: []int{2, 6}},
+	}
+	sized, single := 0, 0
+	for i := 0; i < n; i++ {
+		p := randomProblem(t, rng)
+		p.Sizing.Space = spaces[rng.Intn(len(spaces))]
+		p.Detailing.Sheltered = rng.Intn(2) == 0
+		p.Sizing.ShankInShearPlanes = rng.Intn(3) == 0
+		if rng.Intn(3) == 0 {
+			p.Rates = Rates{Bolt: map[string]float64{"M12": 0, "M16": 0, "M20": 0, "M24": 0, "M30": 0, "M36": 0}}
+		}
+		a, err := Size(p)
+		b, errE := SizeExhaustive(p)
+		if err != nil || errE != nil {
+			require.Equal(t, errE != nil, err != nil, "case %d: %v / %v", i, err, errE)
+			continue
+		}
+		require.Equal(t, b.Status, a.Status, "case %d", i)
+		require.Equal(t, b.Geometry, a.Geometry, "case %d", i)
+		require.Equal(t, b.Cost, a.Cost, "case %d", i)
+		require.Equal(t, b.Utilisation, a.Utilisation, "case %d", i)
+		if a.Status == Sized {
+			sized++
+			if a.Geometry.Flange.Rows == 1 {
+				single++
+			}
+		}
+	}
+	assert.Greater(t, sized, n/5, "feasible cases exercised")
+	t.Logf("%d of %d sized, %d with single flange rows", sized, n, single)
+}

@@ -104,11 +104,23 @@ func TestAnalyseTextAndCSV(t *testing.T) {
 	assert.Equal(t, 1+7, len(lines), "a header and 7 stations at 1 m; the supports sit at the ends, one side each")
 }
 
+// TestDemoRuns runs the whole job on the embedded demo end to end: analysis, scan, layouts and
+// the report folder.
 func TestDemoRuns(t *testing.T) {
-	out, stderr, code := run(t, "demo")
+	dir := filepath.Join(t.TempDir(), "report")
+	out, stderr, code := run(t, "demo", "--out", dir)
 	require.Equal(t, 0, code, stderr)
 	assert.Contains(t, out, "demo data, invented")
+	assert.Contains(t, out, "RECOMMENDATION")
 	assert.Contains(t, out, "CAUTION")
+	assert.Contains(t, out, "Report written to")
+	for _, f := range []string{"report.pdf", "result.json", "scan.csv", "layouts.csv", "envelopes.svg", "cost.png"} {
+		assert.FileExists(t, filepath.Join(dir, f))
+	}
+	// a second run into a folder an earlier demo wrote needs no --force only for the default
+	// folder; an explicit --out is protected
+	_, _, code = run(t, "demo", "--out", dir)
+	assert.Equal(t, 2, code)
 }
 
 // TestBadJobs: bad input exits 1 with a message naming the field and its line.

@@ -1,35 +1,90 @@
 package main
 
 import (
+	"bytes"
+	"fmt"
 	"io"
+	"os"
+	"path/filepath"
 
 	"github.com/spf13/cobra"
+
+	"spanbreak/optimise"
 )
+
+// defaultDemoDir is the folder, in the current directory, that `demo` writes its report to.
+const defaultDemoDir = "spanbreak-demo-report"
 
 // demoOptions are the inputs of `spanbreak demo`.
 type demoOptions struct {
-	Format string
-	Step   float64 // [m]
+	Format   string // text | json | csv, of the optimisation printed
+	Out      string // report folder; "" takes defaultDemoDir
+	Force    bool   // replace Out if it exists
+	NoReport bool   // print the optimisation only
 }
 
 func newDemoCommand() *cobra.Command {
 	opts := demoOptions{}
 	cmd := &cobra.Command{
 		Use:   "demo",
-		Short: "Run the embedded demo job (invented data)",
+		Short: "Run the whole job on the embedded demo (invented data) and write its report",
 		Long: `demo runs spanbreak on an embedded job: a roof girder over a bus-depot wash bay, a scenario
-invented to show the tool. It needs no input file.`,
+invented to show the tool. It analyses the beam, scans every splice position, prints the
+recommended layout and the alternatives, and writes the full report (report.pdf, charts,
+scan.csv, layouts.csv, result.json) into ./` + defaultDemoDir + ` or --out. A report folder
+left by an earlier demo run is replaced; any other existing folder needs --force.`,
 		Args: argsUsage(cobra.NoArgs),
 		RunE: func(cmd *cobra.Command, _ []string) error {
-			return runDemo(opts, cmd.OutOrStdout())
+			return runDemo(opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
 		},
 	}
-	cmd.Flags().StringVar(&opts.Format, "format", "text", "output format: text, json or csv")
-	cmd.Flags().Float64Var(&opts.Step, "step", 0.5, "station spacing along the beam [m]")
+	f := cmd.Flags()
+	f.StringVar(&opts.Format, "format", "text", "output format of the printed result: text, json or csv")
+	f.StringVar(&opts.Out, "out", "", "report folder (default ./"+defaultDemoDir+")")
+	f.BoolVar(&opts.Force, "force", false, "replace the report folder if it exists")
+	f.BoolVar(&opts.NoReport, "no-report", false, "print the result only; write no report")
 	return cmd
 }
 
-// runDemo analyses the embedded demo job.
-func runDemo(opts demoOptions, w io.Writer) error {
-	return runAnalyse(analyseOptions{Demo: true, Format: opts.Format, Step: opts.Step}, w)
+// runDemo optimises the embedded demo job, prints the result and writes the report.
+func runDemo(opts demoOptions, stdout, stderr io.Writer) error {
+	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
+		return err
+	}
+	if err := runOptimise(optimiseOptions{Demo: true, Format: opts.Format}, stdout, stderr); err != nil {
+		return err
+	}
+	if opts.NoReport {
+		return nil
+	}
+	out, force := opts.Out, opts.Force
+	if out == "" {
+		out = defaultDemoDir
+		force = force || earlierDemoReport(out)
+	}
+	if err := runReport(reportOptions{Demo: true, Out: out, Force: force}, io.Discard); err != nil {
+		return err
+	}
+	where := stdout
+	if opts.Format != "text" {
+		where = stderr // keep JSON and CSV on stdout clean
+	}
+	abs, err := filepath.Abs(out)
+	if err != nil {
+		abs = out
+	}
+	fmt.Fprintf(where, "\nReport written to %s (report.pdf, the charts as PNG and SVG, scan.csv, layouts.csv, result.json)\n", abs)
+	return nil
+}
+
+// earlierDemoReport reports whether dir holds a report an earlier demo run wrote, which the
+// default demo run may replace without --force.
+func earlierDemoReport(dir string) bool {
+	for _, f := range []string{"report.pdf", "result.json", "scan.csv"} {
+		if _, err := os.Stat(filepath.Join(dir, f)); err != nil {
+			return false
+		}
+	}
+	data, err := os.ReadFile(filepath.Join(dir, "result.json"))
+	return err == nil && bytes.Contains(data, []byte(optimise.DemoJobName))
 }

@@ -1,0 +1,192 @@
+package main
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"os"
+	"path/filepath"
+	"slices"
+	"strings"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+
+	"spanbreak/optimise"
+)
+
+// demoSplices is the number of splices of the demo's recommended layout.
+func demoSplices(t *testing.T) int {
+	t.Helper()
+	s, err := optimise.Prepare(optimise.DemoJobName, optimise.DemoJob())
+	require.NoError(t, err)
+	res, err := optimise.Run(s, optimise.Settings{})
+	require.NoError(t, err)
+	return len(res.Recommended().Splices)
+}
+
+func TestRunReportDemoWritesTheFolder(t *testing.T) {
+	parent := t.TempDir()
+	out := filepath.Join(parent, "report")
+	var stdout bytes.Buffer
+	require.NoError(t, runReport(reportOptions{Demo: true, Out: out, Date: "2000-01-01"}, &stdout))
+
+	want := []string{"layouts.csv", "report.pdf", "result.json", "scan.csv"}
+	figures := []string{"cost", "envelopes", "layouts", "utilisation"}
+	for i := 1; i <= demoSplices(t); i++ {
+		figures = append(figures, fmt.Sprintf("splice-s%d", i))
+	}
+	for _, f := range figures {
+		want = append(want, f+".png", f+".svg")
+	}
+	slices.Sort(want)
+	assert.Equal(t, want, folderNames(t, out))
+	assert.Equal(t, []string{"report"}, folderNames(t, parent), "no temporary folder is left behind")
+
+	pdf, err := os.ReadFile(filepath.Join(out, "report.pdf"))
+	require.NoError(t, err)
+	assert.True(t, bytes.HasPrefix(pdf, []byte("%PDF-1.")))
+	png, err := os.ReadFile(filepath.Join(out, "envelopes.png"))
+	require.NoError(t, err)
+	assert.True(t, bytes.HasPrefix(png, []byte("\x89PNG")))
+	// result.json is the optimise command's JSON with the recommended layout's splices added
+	var keys map[string]json.RawMessage
+	raw, err := os.ReadFile(filepath.Join(out, "result.json"))
+	require.NoError(t, err)
+	require.NoError(t, json.Unmarshal(raw, &keys))
+	for _, key := range []string{"input", "version", "units", "candidates", "layouts", "caution", "chosen_splices"} {
+		_, ok := keys[key]
+		assert.True(t, ok, "result.json has %q", key)
+	}
+	var result struct {
+		Layouts []struct {
+			Recommended bool      `json:"recommended"`
+			Splices     []float64 `json:"splices"`
+		} `json:"layouts"`
+		Chosen []struct {
+			Position float64          `json:"position"`
+			Checks   []map[string]any `json:"checks"`
+		} `json:"chosen_splices"`
+	}
+	require.NoError(t, json.Unmarshal(raw, &result))
+	var rec []float64
+	for _, l := range result.Layouts {
+		if l.Recommended {
+			rec = l.Splices
+		}
+	}
+	require.Len(t, result.Chosen, len(rec))
+	for i, x := range rec {
+		assert.InDelta(t, x, result.Chosen[i].Position, 1e-9, "the sheets are the recommended layout's splices")
+		assert.NotEmpty(t, result.Chosen[i].Checks)
+	}
+	scan, err := os.ReadFile(filepath.Join(out, "scan.csv"))
+	require.NoError(t, err)
+	var optimiseCSV bytes.Buffer
+	require.NoError(t, runOptimise(optimiseOptions{Demo: true, Format: "csv"}, &optimiseCSV, &bytes.Buffer{}))
+	assert.Equal(t, optimiseCSV.String(), string(scan), "scan.csv is what optimise --format csv prints")
+	text := stdout.String()
+	assert.Contains(t, text, fmt.Sprintf("Wrote %d files to %s", len(want), out))
+	assert.Contains(t, text, "Recommended:")
+	assert.Contains(t, text, caution)
+}
+
+func TestRunReportReplacesOnlyWithForce(t *testing.T) {
+	parent := t.TempDir()
+	out := filepath.Join(parent, "report")
+	require.NoError(t, os.Mkdir(out, 0o755))
+	marker := filepath.Join(out, "keep-me.txt")
+	require.NoError(t, os.WriteFile(marker, []byte("earlier work"), 0o644))
+
+	var stdout bytes.Buffer
+	err := runReport(reportOptions{Demo: true, Out: out, Date: "2000-01-01"}, &stdout)
+	require.Error(t, err)
+	assert.Contains(t, err.Error(), "--force")
+	assert.Equal(t, exitUsage, exitCode(err))
+	assert.FileExists(t, marker, "the existing folder is untouched")
+	assert.Equal(t, []string{"report"}, folderNames(t, parent))
+	assert.Zero(t, stdout.Len())
+
+	require.NoError(t, runReport(reportOptions{Demo: true, Out: out, Force: true, Date: "2000-01-01"}, &stdout))
+	assert.NoFileExists(t, marker, "--force replaces the folder as a whole")
+	assert.FileExists(t, filepath.Join(out, "report.pdf"))
+	assert.Equal(t, []string{"report"}, folderNames(t, parent), "neither the temporary nor the old folder is left")
+}
+
+func TestRunReportErrors(t *testing.T) {
+	dir := t.TempDir()
+	job := filepath.Join(dir, "heavy.yaml")
+	// the demo with a crane that lifts 300 kg: no layout can meet that
+	heavy := strings.Replace(string(optimise.DemoJob()), "max_piece_mass: 3500", "max_piece_mass: 300", 1)
+	require.NotEqual(t, string(optimise.DemoJob()), heavy, "the demo sets max_piece_mass")
+	require.NoError(t, os.WriteFile(job, []byte(heavy), 0o644))
+	tests := []struct {
+		name string
+		opts reportOptions
+		want string
+		exit int
+	}{
+		{"no folder", reportOptions{Demo: true}, "--out", exitUsage},
+		{"negative step", reportOptions{Demo: true, Out: filepath.Join(dir, "a"), Step: -0.1}, "--step", exitUsage},
+		{"missing job file", reportOptions{JobFile: filepath.Join(dir, "none.yaml"), Out: filepath.Join(dir, "b")}, "none.yaml", exitFailure},
+		{"no layout meets the limits", reportOptions{JobFile: job, Out: filepath.Join(dir, "c")}, "max_piece_mass", exitInfeasible},
+	}
+	for _, tt := range tests {
+		t.Run(tt.name, func(t *testing.T) {
+			var stdout bytes.Buffer
+			err := runReport(tt.opts, &stdout)
+			require.Error(t, err)
+			assert.Contains(t, err.Error(), tt.want)
+			assert.Equal(t, tt.exit, exitCode(err))
+			assert.Zero(t, stdout.Len(), "nothing is printed on error")
+			if tt.opts.Out != "" {
+				assert.NoDirExists(t, tt.opts.Out, "nothing is written on error")
+			}
+		})
+	}
+	assert.Equal(t, []string{"heavy.yaml"}, folderNames(t, dir), "no temporary folders are left behind")
+}
+
+func TestReportCommandParsesArgsAndFlags(t *testing.T) {
+	dir := t.TempDir()
+	job := filepath.Join(dir, "job.yaml")
+	require.NoError(t, os.WriteFile(job, optimise.DemoJob(), 0o644))
+	out := filepath.Join(dir, "out")
+
+	cmd := newReportCommand()
+	var stdout bytes.Buffer
+	cmd.SetOut(&stdout)
+	cmd.SetErr(&bytes.Buffer{})
+	cmd.SetArgs([]string{job, "--out", out, "--step", "0.1"})
+	require.NoError(t, cmd.Execute())
+	assert.FileExists(t, filepath.Join(out, "report.pdf"))
+	assert.Contains(t, stdout.String(), "report on "+job)
+	raw, err := os.ReadFile(filepath.Join(out, "result.json"))
+	require.NoError(t, err)
+	var result struct{ Step float64 }
+	require.NoError(t, json.Unmarshal(raw, &result))
+	assert.InDelta(t, 0.1, result.Step, 1e-12, "--step reaches the scan")
+
+	cmd = newReportCommand()
+	cmd.SetOut(&bytes.Buffer{})
+	cmd.SetErr(&bytes.Buffer{})
+	cmd.SetArgs([]string{job, "--out", out}) // exists now, no --force
+	err = cmd.Execute()
+	require.Error(t, err)
+	assert.Equal(t, exitUsage, exitCode(err))
+
+	cmd = newReportCommand()
+	cmd.SetOut(&bytes.Buffer{})
+	cmd.SetErr(&bytes.Buffer{})
+	cmd.SetArgs([]string{job, "--out", out, "--force"})
+	require.NoError(t, cmd.Execute())
+
+	cmd = newReportCommand()
+	cmd.SetOut(&bytes.Buffer{})
+	cmd.SetErr(&bytes.Buffer{})
+	cmd.SetArgs([]string{"--out", out})
+	err = cmd.Execute()
+	require.Error(t, err, "the job file is required")
+	assert.Equal(t, exitUsage, exitCode(err))
+}

@@ -1,0 +1,765 @@
+package plots
+
+import (
+	"errors"
+	"fmt"
+	"math"
+	"slices"
+	"strings"
+
+	"spanbreak/beam"
+	"spanbreak/optimise"
+	"spanbreak/splice"
+)
+
+// ReportInput is everything the calculation report prints.
+type ReportInput struct {
+	Setup    *optimise.Setup  // the job: beam, loads, combinations
+	Result   *optimise.Result // the scan and the layouts
+	Version  string           // program version printed on every page
+	Date     string           // date printed on the report (the caller's today; tests fix it)
+	Caution  string           // the caution every output carries
+	Ranking  int              // rows of the ranking table; 0 means 10
+	Currency string           // cost unit; empty: "cost units"
+}
+
+// Report is the calculation report and everything it is made of.
+type Report struct {
+	PDF      []byte
+	Pages    int
+	Text     string        // every string the PDF prints, in order (headers and footers included)
+	Headings []Heading     // the numbered headings with the page each starts on
+	Figures  []*Figure     // every chart and drawing, for PNG and SVG files
+	Sheets   []SpliceSheet // the chosen layout's splices with their full checks
+	Scan     []ScanPoint   // the candidates as charted
+	Layouts  LayoutInput   // the layouts as charted
+	Charts   map[string]*Chart
+}
+
+// Heading is a numbered heading of the report and its page.
+type Heading struct {
+	Number, Title string
+	Page          int
+}
+
+// reportStations is the number of intervals the envelope chart samples along the beam (the
+// analysis adds every support, load point and jump on top).
+const reportStations = 600
+
+// BuildReport lays out the calculation report: the job summary, the beam and its loads, the
+// envelopes, the limits, the ranking of positions, the layouts, the full calculation sheet of
+// every splice of the recommended layout with its drawing, and the caution. The PDF is built
+// twice, the second time with the page count known for "page n of N"; it carries fixed
+// creation dates, so equal inputs give equal bytes.
+func BuildReport(in ReportInput) (*Report, error) {
+	if in.Setup == nil || in.Result == nil {
+		return nil, errors.New("report: needs the job setup and the optimisation result")
+	}
+	if len(in.Result.Layouts.ByCount) == 0 {
+		return nil, errors.New("report: the optimisation found no layout to report")
+	}
+	r := &Report{Charts: map[string]*Chart{}}
+	if err := r.build(in); err != nil {
+		return nil, err
+	}
+	// The contents list and "page n of N" need the page numbers: lay the report out until
+	// they no longer change (the contents has a fixed number of lines, so the second layout
+	// normally confirms the first).
+	final, err := r.document(in, 0, nil)
+	if err != nil {
+		return nil, err
+	}
+	for pass := 0; pass < 3; pass++ {
+		next, err := r.document(in, final.f.PageNo(), final.headings)
+		if err != nil {
+			return nil, err
+		}
+		same := next.f.PageNo() == final.f.PageNo() && slices.Equal(next.headings, final.headings)
+		final = next
+		if same {
+			break
+		}
+	}
+	pdf, err := final.bytes() // closes the document: the last footer is drawn here
+	if err != nil {
+		return nil, fmt.Errorf("report: writing the PDF: %w", err)
+	}
+	r.PDF = pdf
+	r.Pages = final.f.PageNo()
+	r.Text = final.text.String()
+	for _, h := range final.headings {
+		r.Headings = append(r.Headings, Heading{Number: h.Number, Title: h.Title, Page: h.Page})
+	}
+	return r, nil
+}
+
+// build prepares the charts, the drawing and the full splice sheets.
+func (r *Report) build(in ReportInput) error {
+	s, res := in.Setup, in.Result
+	an, err := s.Analyse()
+	if err != nil {
+		return err
+	}
+	st, err := an.Stations(math.Max(s.Model.Length/reportStations, 10))
+	if err != nil {
+		return err
+	}
+	env, err := an.Envelopes(s.Combinations, st)
+	if err != nil {
+		return err
+	}
+	rec := res.Recommended()
+	sheets, err := ChosenSplices(s, res, rec)
+	if err != nil {
+		return fmt.Errorf("report: %w", err)
+	}
+	r.Sheets = sheets
+	envChart, err := EnvelopeChart(EnvelopeInput{
+		Title: "Envelopes along the beam, " + s.Section.Name + " " + s.Grade.Name, Envelopes: &env,
+		Model: s.Model, KeepOut: KeepOutRanges(res), Splices: rec.Splices, Deflection: true,
+	})
+	if err != nil {
+		return err
+	}
+	r.Scan = ScanPoints(res)
+	scan := ScanInput{Title: "Cheapest splice at each candidate position", Model: s.Model, Points: r.Scan,
+		Chosen: rec.Splices, Currency: in.Currency}
+	cost, err := CostChart(scan)
+	if err != nil {
+		return err
+	}
+	scan.Title = "Utilisation of the cheapest splice at each candidate position"
+	util, err := UtilisationChart(scan)
+	if err != nil {
+		return err
+	}
+	r.Layouts = LayoutsOf(res, "Best layout for each number of splices", in.Currency)
+	lay, err := LayoutChart(r.Layouts)
+	if err != nil {
+		return err
+	}
+	r.Charts["envelopes"], r.Charts["cost"], r.Charts["utilisation"], r.Charts["layouts"] = envChart, cost, util, lay
+	r.Figures = []*Figure{&envChart.Figure, &cost.Figure, &util.Figure, &lay.Figure}
+	for _, sh := range sheets {
+		f, err := SpliceDrawing(DrawingInput{
+			Title:   fmt.Sprintf("Splice %s at x = %s, %s", sh.Name, fmtM(sh.Position), s.Section.Name),
+			Section: s.Section, Geometry: sh.Result.Geometry, Position: sh.Position,
+		})
+		if err != nil {
+			return err
+		}
+		f.Name = "splice-" + strings.ToLower(sh.Name)
+		f.Caption = fmt.Sprintf("Splice %s at x = %s: elevation and plan of the top flange, dimensions in mm", sh.Name, fmtM(sh.Position))
+		r.Figures = append(r.Figures, f)
+	}
+	return nil
+}
+
+// document writes the whole report once; pages is the total page count and toc the headings
+// of an earlier pass, when known.
+func (r *Report) document(in ReportInput, pages int, toc []heading) (*pdfDoc, error) {
+	s := in.Setup
+	title := s.Job.Title
+	if title == "" {
+		title = s.File
+	}
+	version := in.Version
+	if version == "" {
+		version = "dev"
+	}
+	d := newPDFDoc("spanbreak splice report: "+title, "spanbreak splice report — "+title,
+		fmt.Sprintf("spanbreak %s · %s · %s · design aid: check by a competent engineer", version, s.File, in.Date), pages)
+	w := reportWriter{d: d, in: in, r: r, cur: in.Currency, toc: toc}
+	if w.cur == "" {
+		w.cur = "cost units"
+	}
+	d.newPage()
+	w.summary(title, version)
+	w.beamAndLoads()
+	w.envelopes()
+	w.limits()
+	w.ranking()
+	w.layouts()
+	for i := range r.Sheets {
+		w.sheet(&r.Sheets[i])
+	}
+	w.closing()
+	if err := d.f.Error(); err != nil {
+		return nil, fmt.Errorf("report: %w", err)
+	}
+	return d, nil
+}
+
+// reportWriter writes the sections of the report.
+type reportWriter struct {
+	d       *pdfDoc
+	in      ReportInput
+	r       *Report
+	cur     string
+	figures int
+	toc     []heading // headings of the previous layout pass, for the contents
+}
+
+func (w *reportWriter) figure(f *Figure) {
+	w.figures++
+	w.d.figure(f, w.figures)
+}
+
+// keepFigure is the height a heading must keep with it so that its figure follows on the
+// same page [pt].
+func (w *reportWriter) keepFigure(name string) float64 {
+	if f := w.findFigure(name); f != nil {
+		return f.Height.Points() + smallLead + 8
+	}
+	return 0
+}
+
+func (w *reportWriter) findFigure(name string) *Figure {
+	for _, f := range w.r.Figures {
+		if f.Name == name {
+			return f
+		}
+	}
+	return nil
+}
+
+func (w *reportWriter) summary(title, version string) {
+	d, s, res := w.d, w.in.Setup, w.in.Result
+	d.paraStyled("Splice report", true, false, 18, 22)
+	d.paraStyled(title, true, false, 12, 15)
+	rec := res.Recommended()
+	d.heading(0, "Job summary", 80)
+	d.keyValues([][2]string{
+		{"Input file", s.File},
+		{"Program", "spanbreak " + version},
+		{"Date", w.in.Date},
+		{"Beam", fmt.Sprintf("%s, %s, length %s, %d supports", s.Section.Name, s.Grade.Name, fmtM(s.Model.Length), len(s.Model.Supports))},
+		{"Units", "positions m; forces kN; moments kNm; plate and bolt dimensions mm; masses kg; costs in " + w.cur},
+		{"Signs", "bending moment sagging +; V = dM/dx; axial force tension +; deflection downward +"},
+	})
+	d.heading(1, "Result", 60)
+	rows := [][2]string{
+		{"Recommended layout", layoutWords(rec)},
+		{"Cost", fmt.Sprintf("%s %s: splices %s, transport %s, erection %s", money(rec.Cost.Total), w.cur,
+			money(rec.Cost.Splices), money(rec.Cost.Transport), money(rec.Cost.Erection))},
+	}
+	for _, sh := range w.r.Sheets {
+		g := sh.Result.Governing
+		rows = append(rows, [2]string{fmt.Sprintf("Splice %s at %s", sh.Name, fmtM(sh.Position)),
+			fmt.Sprintf("%s; governing check %s (%s), utilisation %s", spliceWords(sh.Result.Geometry), g.ID, g.Clause,
+				fixed(sh.Result.Utilisation, 3))})
+	}
+	d.keyValues(rows)
+	for _, n := range res.Notes {
+		d.small("Note: " + n)
+	}
+	d.boxed("Caution", w.in.Caution)
+	w.contents()
+}
+
+// sectionTitles are the report's top-level headings in order.
+func (w *reportWriter) sectionTitles() []string {
+	t := []string{"Job summary", "Beam and loads", "Envelopes", "Limits", "Candidate positions", "Layouts"}
+	for _, sh := range w.r.Sheets {
+		t = append(t, sheetTitle(&sh))
+	}
+	return append(t, "Caution and references")
+}
+
+func sheetTitle(sh *SpliceSheet) string {
+	return fmt.Sprintf("Calculation sheet: splice %s at x = %s", sh.Name, fmtM(sh.Position))
+}
+
+// contents lists the top-level headings with their pages from the previous layout pass
+// (blank in the first); it always has one line per heading, so the layout does not move.
+func (w *reportWriter) contents() {
+	page := map[string]int{}
+	for _, h := range w.toc {
+		if h.Level == 0 {
+			page[h.Title] = h.Page
+		}
+	}
+	var rows [][]string
+	for i, t := range w.sectionTitles() {
+		p := ""
+		if n, ok := page[t]; ok {
+			p = fmt.Sprint(n)
+		}
+		rows = append(rows, []string{fmt.Sprint(i + 1), t, p})
+	}
+	w.d.paraStyled("Contents", true, false, bodySize, bodyLead)
+	w.d.plainTable([]float64{0.06, 0.8, 0.14}, rows)
+}
+
+// layoutWords describes a layout in one line.
+func layoutWords(l optimise.Layout) string {
+	if len(l.Splices) == 0 {
+		if len(l.Pieces) == 0 {
+			return "no splice"
+		}
+		return fmt.Sprintf("no splice: the beam goes in one piece of %s", fmtM(l.Pieces[0].Length))
+	}
+	xs := make([]string, len(l.Splices))
+	for i, x := range l.Splices {
+		xs[i] = fmt.Sprintf("S%d at %s", i+1, fmtM(x))
+	}
+	s := fmt.Sprintf("%s: %s; %d pieces", spliceCount(len(l.Splices)), strings.Join(xs, ", "), len(l.Pieces))
+	if l.Vehicle != "" {
+		s += fmt.Sprintf("; %s × %d", l.Vehicle, l.Trips)
+	}
+	return s
+}
+
+// spliceWords describes a splice's bolts and plates in one line.
+func spliceWords(g splice.Geometry) string {
+	f := g.Flange
+	out := fmt.Sprintf("%s %s cat. %s; flange plates %s×%s", g.Bolt.Size, g.Bolt.Class, g.Category, mm(f.Outer.Thickness), mm(f.Outer.Width))
+	if f.HasInner() {
+		out += fmt.Sprintf(" + 2×%s×%s", mm(f.Inner.Thickness), mm(f.Inner.Width))
+	}
+	out += fmt.Sprintf(", %d×%d bolts each side; web plates 2×%s×%s, %d×%d bolts each side",
+		f.Columns, f.Rows, mm(g.Web.Thickness), mm(g.Web.Depth), g.Web.Columns, g.Web.Rows)
+	return out
+}
+
+// money prints a cost in whole currency units (the rates are indicative to that precision).
+func money(v float64) string { return fixed(v, 0) }
+
+func (w *reportWriter) beamAndLoads() {
+	d, s := w.d, w.in.Setup
+	d.heading(0, "Beam and loads", 120)
+	sec := s.Section
+	fyf, fuf, _ := s.Grade.Strength(sec.Tf, s.GradeTable)
+	fyw, fuw, _ := s.Grade.Strength(sec.Tw, s.GradeTable)
+	d.heading(1, "Section and steel", 60)
+	d.keyValues([][2]string{
+		{"Section", fmt.Sprintf("%s (%s)", sec.Name, sec.Source)},
+		{"Dimensions", fmt.Sprintf("h %s, b %s, tw %s, tf %s, r %s mm", mm(sec.H), mm(sec.B), mm(sec.Tw), mm(sec.Tf), mm(sec.R))},
+		{"Properties", fmt.Sprintf("A %s cm², Iy %s cm⁴, Wel,y %s cm³, Wpl,y %s cm³, Avz %s cm², mass %s kg/m",
+			fourSig(sec.A/1e2), fourSig(sec.Iy/1e4), fourSig(sec.WelY/1e3), fourSig(sec.WplY/1e3), fourSig(sec.Avz/1e2), fourSig(sec.Mass))},
+		{"Steel", fmt.Sprintf("%s (%s): flange fy %s, fu %s N/mm²; web fy %s, fu %s N/mm²", s.Grade.Name, s.Grade.Standard,
+			fixed(fyf, 0), fixed(fuf, 0), fixed(fyw, 0), fixed(fuw, 0))},
+		{"Stiffness", fmt.Sprintf("E = %s N/mm², EI = %s kNm²", fixed(beam.YoungModulus, 0), fourSig(s.Model.EI/1e9))},
+	})
+	d.heading(1, "Spans and supports", 60)
+	var rows [][]string
+	for i, sp := range s.Model.Supports {
+		k := ""
+		if sp.Kind == beam.Spring {
+			k = fmt.Sprintf("k = %s kN/m", fourSig(sp.K))
+		}
+		rows = append(rows, []string{fmt.Sprint(i + 1), formatClean(sp.X/1e3, 3), sp.Kind.String(), k})
+	}
+	d.table(table{Columns: []column{{"support", 1, false}, {"x [m]", 1.2, true}, {"type", 1.5, false}, {"stiffness", 2.5, false}}, Rows: rows})
+	if len(s.Model.Hinges) > 0 {
+		var hs []string
+		for _, h := range s.Model.Hinges {
+			hs = append(hs, fmtM(h))
+		}
+		d.para("Internal hinges at " + strings.Join(hs, ", ") + ".")
+	}
+	d.heading(1, "Load cases (characteristic)", 60)
+	rows = nil
+	for _, c := range s.Cases {
+		kind := c.Kind.String()
+		if c.Category != "" {
+			kind += ", category " + c.Category
+		}
+		if c.Pattern {
+			kind += ", patterned span by span"
+		}
+		var loads []string
+		for _, l := range c.Loads {
+			loads = append(loads, loadWords(l))
+		}
+		rows = append(rows, []string{c.Name, kind, strings.Join(loads, "; ")})
+	}
+	d.table(table{Columns: []column{{"case", 0.7, false}, {"kind", 2, false}, {"loads (downward +; x from the left end)", 5, false}}, Rows: rows})
+	d.heading(1, "Combinations", 40)
+	nU, nS := 0, 0
+	for _, c := range s.Combinations {
+		if c.State == beam.ULS {
+			nU++
+		} else {
+			nS++
+		}
+	}
+	ru := s.Rules
+	d.para(fmt.Sprintf("EN 1990 (%s): %d ULS combinations by expression %s and %d SLS combinations (%s), with γG,sup = %s, "+
+		"γG,inf = %s, γQ = %s, ξ = %s and ψ from EN 1990 Table A1.1 unless the job sets them. Patterned cases are applied span by "+
+		"span wherever adverse, so the envelopes are exact over every pattern.", ru.Set, nU, ru.ULS, nS, ru.SLS,
+		fixed(ru.GammaGSup, 2), fixed(ru.GammaGInf, 2), fixed(ru.GammaQ, 2), fixed(ru.Xi, 2)))
+}
+
+// loadWords describes one load in job-file units.
+func loadWords(l beam.Load) string {
+	switch l.Kind {
+	case beam.PointForce:
+		return fmt.Sprintf("%s kN at %s", fixed(l.P/1e3, 2), fmtM(l.X1))
+	case beam.PointMoment:
+		return fmt.Sprintf("couple %s kNm (clockwise +) at %s", fixed(l.P/1e6, 2), fmtM(l.X1))
+	case beam.AxialForce:
+		return fmt.Sprintf("axial %s kN (along +x) at %s", fixed(l.P/1e3, 2), fmtM(l.X1))
+	}
+	if l.W1 == l.W2 {
+		return fmt.Sprintf("%s kN/m from %s to %s", fixed(l.W1, 2), formatClean(l.X1/1e3, 3), fmtM(l.X2))
+	}
+	return fmt.Sprintf("%s to %s kN/m from %s to %s", fixed(l.W1, 2), fixed(l.W2, 2), formatClean(l.X1/1e3, 3), fmtM(l.X2))
+}
+
+// fourSig prints four significant figures without an exponent.
+func fourSig(v float64) string {
+	if v == 0 || math.IsNaN(v) || math.IsInf(v, 0) {
+		return fixed(v, 0)
+	}
+	return fixed(v, max(0, 3-int(math.Floor(math.Log10(math.Abs(v))))))
+}
+
+func (w *reportWriter) envelopes() {
+	d := w.d
+	d.heading(0, "Envelopes", w.keepFigure("envelopes")+3*bodyLead)
+	d.para("The bands are the exact envelopes over every combination and every pattern: ULS bending moment and shear, " +
+		"SLS deflection. Keep-out zones are shaded; the splices of the recommended layout are the vertical lines S1, S2, ….")
+	w.figure(w.findFigure("envelopes"))
+	ch := w.r.Charts["envelopes"]
+	var rows [][]string
+	for _, m := range ch.MarksOf(MarkPeak) {
+		rows = append(rows, []string{m.Panel, m.Label})
+	}
+	d.heading(1, "Extreme values", 40)
+	d.table(table{Columns: []column{{"panel", 1, false}, {"value and position", 4, false}}, Rows: rows})
+}
+
+func (w *reportWriter) limits() {
+	d, res := w.d, w.in.Result
+	d.heading(0, "Limits", 100)
+	lim := res.Limits
+	count := fmt.Sprintf("at least %d", res.MinSplices)
+	if res.MaxSplices >= 0 {
+		count += fmt.Sprintf(", at most %d", res.MaxSplices)
+	}
+	d.keyValues([][2]string{
+		{"Piece length", fmt.Sprintf("at most %s, at least %s (pieces of a spliced beam)", limitM(lim.MaxLength), limitM(lim.MinLength))},
+		{"Piece mass", fmt.Sprintf("at most %s (crane), with %s kg rigging allowance per piece", limitKG(lim.MaxMass), fixed(lim.Rigging, 0))},
+		{"Splices", count},
+		{"Gap at a splice", mm(res.Gap) + " mm between the beam ends"},
+		{"Candidate step", formatClean(res.Step/1e3, 3) + " m"},
+		{"Erection", fmt.Sprintf("%s %s per piece lifted", money(res.Lift), w.cur)},
+	})
+	d.heading(1, "Keep-out zones", 40)
+	var rows [][]string
+	zones := slices.Clone(res.Zones)
+	slices.SortStableFunc(zones, func(a, b optimise.Zone) int { return cmpFloat(a.From, b.From) })
+	for _, z := range zones {
+		rows = append(rows, []string{formatClean(math.Max(0, z.From)/1e3, 3), formatClean(math.Min(res.Length, z.To)/1e3, 3), z.Reason, z.Key})
+	}
+	if len(rows) == 0 {
+		d.para("None.")
+	} else {
+		d.table(table{Columns: []column{{"from [m]", 1, true}, {"to [m]", 1, true}, {"reason", 4.5, false}, {"job-file key", 2.2, false}}, Rows: rows})
+	}
+	d.heading(1, "Vehicles", 40)
+	rows = nil
+	for _, v := range res.Vehicles {
+		rows = append(rows, []string{v.Name, formatClean(v.MaxLength/1e3, 2), fixed(v.Payload, 0), money(v.Cost)})
+	}
+	if len(rows) == 0 {
+		d.para("None: transport is not costed.")
+	} else {
+		d.table(table{Columns: []column{{"vehicle", 3, false}, {"longest piece [m]", 1.5, true}, {"payload [kg]", 1.5, true},
+			{"per trip [" + w.cur + "]", 1.5, true}}, Rows: rows})
+	}
+	if sp, err := w.in.Setup.SpliceProblem(); err == nil {
+		d.heading(1, "Splice options and rates", 40)
+		z := sp.Sizing
+		opts := [][2]string{
+			{"Category", string(z.Category) + categoryWords(z.Category)},
+			{"Force distribution", string(sp.Distribution)},
+			{"Plate steel", sp.PlateSteel.Name},
+		}
+		if z.Category.Preloaded() {
+			opts = append(opts, [2]string{"Friction class", fmt.Sprintf("%s (μ = %s, EN 1090-2 Table 18)", z.FrictionClass, fixed(z.FrictionClass.SlipFactor(), 1))})
+		}
+		opts = append(opts, [2]string{"Rates", ratesWords(sp.Rates, w.cur)})
+		d.keyValues(opts)
+	}
+}
+
+func cmpFloat(a, b float64) int {
+	switch {
+	case a < b:
+		return -1
+	case a > b:
+		return 1
+	}
+	return 0
+}
+
+func categoryWords(c splice.Category) string {
+	switch c {
+	case splice.CategoryA:
+		return ", bearing type (EN 1993-1-8 Table 3.2)"
+	case splice.CategoryB:
+		return ", slip-resistant at SLS (EN 1993-1-8 Table 3.2)"
+	case splice.CategoryC:
+		return ", slip-resistant at ULS (EN 1993-1-8 Table 3.2)"
+	}
+	return ""
+}
+
+func ratesWords(r splice.Rates, cur string) string {
+	if r.Bolt == nil {
+		r = splice.DefaultRates()
+	}
+	sizes := make([]string, 0, len(r.Bolt))
+	for k := range r.Bolt {
+		sizes = append(sizes, k)
+	}
+	slices.Sort(sizes)
+	var bolts []string
+	for _, k := range sizes {
+		bolts = append(bolts, fmt.Sprintf("%s %s", k, fixed(r.Bolt[k], 2)))
+	}
+	classes := make([]string, 0, len(r.BoltClassFactor))
+	for k := range r.BoltClassFactor {
+		classes = append(classes, k)
+	}
+	slices.Sort(classes)
+	var cf []string
+	for _, k := range classes {
+		cf = append(cf, fmt.Sprintf("%s × %s", k, fixed(r.BoltClassFactor[k], 2)))
+	}
+	s := fmt.Sprintf("bolt assembly %s; class factor %s; plate %s per kg; hole %s; faying surface %s per m²; per splice %s (%s)",
+		strings.Join(bolts, ", "), strings.Join(cf, ", "), fixed(r.PlatePerKg, 2), fixed(r.Hole, 2), fixed(r.FayingPerM2, 2),
+		fixed(r.Splice, 2), cur)
+	return s
+}
+
+func limitM(mmv float64) string {
+	if math.IsInf(mmv, 1) {
+		return "no limit"
+	}
+	return fmtM(mmv)
+}
+
+func limitKG(kg float64) string {
+	if math.IsInf(kg, 1) {
+		return "no limit"
+	}
+	return fixed(kg, 0) + " kg"
+}
+
+func (w *reportWriter) ranking() {
+	d, res := w.d, w.in.Result
+	d.heading(0, "Candidate positions", w.keepFigure("cost")+3*bodyLead)
+	st := res.Stats
+	d.para(fmt.Sprintf("%d positions every %s m: %d inside keep-out zones, the cheapest splice sized at the others "+
+		"(%d sizings, %d positions sharing the forces of another). Ranked by %s.", st.Candidates, formatClean(res.Step/1e3, 3),
+		st.KeptOut, st.Sized, st.Shared, res.Rank))
+	w.figure(w.findFigure("cost"))
+	w.figure(w.findFigure("utilisation"))
+	n := w.in.Ranking
+	if n <= 0 {
+		n = 10
+	}
+	var best []optimise.Candidate
+	for _, c := range res.Candidates {
+		if c.Feasible && c.Rank > 0 && c.Rank <= n {
+			best = append(best, c)
+		}
+	}
+	slices.SortFunc(best, func(a, b optimise.Candidate) int { return a.Rank - b.Rank })
+	chosen := w.in.Result.Recommended().Splices
+	var rows [][]string
+	for _, c := range best {
+		rows = append(rows, []string{fmt.Sprint(c.Rank), formatClean(c.X/1e3, 3), money(c.Design.Cost), fmt.Sprint(c.Design.Bolts),
+			fixed(c.Design.PlateMass, 1), fixed(c.Design.Utilisation, 3), c.Design.Governing, c.Design.Summary})
+	}
+	d.heading(1, fmt.Sprintf("The %d best positions", len(rows)), 60)
+	d.table(table{Columns: []column{{"rank", 0.6, true}, {"x [m]", 0.9, true}, {"cost", 0.8, true}, {"bolts", 0.7, true},
+		{"plates [kg]", 0.9, true}, {"util.", 0.7, true}, {"governing check", 2, false}, {"splice", 4.2, false}}, Rows: rows,
+		Highlight: func(i int) bool {
+			return slices.ContainsFunc(chosen, func(x float64) bool { return math.Abs(x-best[i].X) < 1e-3 })
+		}})
+	note := "The full list is in scan.csv."
+	for i := range best {
+		if slices.ContainsFunc(chosen, func(x float64) bool { return math.Abs(x-best[i].X) < 1e-3 }) {
+			note = "Shaded rows are positions of the recommended layout. " + note
+			break
+		}
+	}
+	d.small(note)
+}
+
+func (w *reportWriter) layouts() {
+	d, res := w.d, w.in.Result
+	d.heading(0, "Layouts", w.keepFigure("layouts")+3*bodyLead)
+	d.para("For each number of splices, the cheapest set of positions that keeps every piece within the length and " +
+		"mass limits, found by an exact search over the feasible candidates; transport takes the cheapest vehicle that " +
+		"carries the longest piece, with the fewest trips by mass.")
+	w.figure(w.findFigure("layouts"))
+	var rows [][]string
+	for i, l := range res.Layouts.ByCount {
+		rows = append(rows, layoutRow(l, i == res.Layouts.Recommended))
+	}
+	cols := []column{{"splices", 0.8, true}, {"positions [m]", 2.6, false}, {"longest piece [m]", 1.1, true},
+		{"heaviest [kg]", 1, true}, {"vehicle × trips", 1.7, false}, {"splices", 0.9, true}, {"transport", 1.05, true},
+		{"erection", 0.95, true}, {"total [" + w.cur + "]", 1.1, true}}
+	d.heading(1, "Best layout for each number of splices", 60)
+	d.table(table{Columns: cols, Rows: rows, Highlight: func(i int) bool { return i == res.Layouts.Recommended }})
+	if len(res.Layouts.Alternatives) > 0 {
+		rows = nil
+		for _, l := range res.Layouts.Alternatives {
+			rows = append(rows, layoutRow(l, false))
+		}
+		d.heading(1, "Near-best alternatives", 60)
+		d.table(table{Columns: cols, Rows: rows})
+	}
+	rec := res.Recommended()
+	d.heading(1, "Pieces of the recommended layout", 60)
+	rows = nil
+	for i, p := range rec.Pieces {
+		rows = append(rows, []string{fmt.Sprint(i + 1), formatClean(p.From/1e3, 3), formatClean(p.To/1e3, 3), formatClean(p.Length/1e3, 3),
+			fixed(p.SteelMass, 0), fixed(p.SpliceMass, 1), fixed(p.Mass, 0)})
+	}
+	d.table(table{Columns: []column{{"piece", 0.7, true}, {"from [m]", 1, true}, {"to [m]", 1, true}, {"length [m]", 1, true},
+		{"steel [kg]", 1, true}, {"splice parts [kg]", 1.2, true}, {"total [kg]", 1, true}}, Rows: rows})
+}
+
+func layoutRow(l optimise.Layout, chosen bool) []string {
+	xs := make([]string, len(l.Splices))
+	for i, x := range l.Splices {
+		xs[i] = formatClean(x/1e3, 3)
+	}
+	longest, heaviest := 0.0, 0.0
+	for _, p := range l.Pieces {
+		longest, heaviest = math.Max(longest, p.Length), math.Max(heaviest, p.Mass)
+	}
+	veh := "–"
+	if l.Vehicle != "" {
+		veh = fmt.Sprintf("%s × %d", l.Vehicle, l.Trips)
+	}
+	pos := strings.Join(xs, ", ")
+	if pos == "" {
+		pos = "none"
+	}
+	if chosen {
+		pos += " (recommended)"
+	}
+	return []string{fmt.Sprint(len(l.Splices)), pos, formatClean(longest/1e3, 3), fixed(heaviest, 0), veh,
+		money(l.Cost.Splices), money(l.Cost.Transport), money(l.Cost.Erection), money(l.Cost.Total)}
+}
+
+func (w *reportWriter) sheet(sh *SpliceSheet) {
+	d, r := w.d, sh.Result
+	d.newPage()
+	d.heading(0, sheetTitle(sh), 100)
+	d.para(fmt.Sprintf("%s. Checks to EN 1993-1-8 and EN 1993-1-1 with the recommended partial factors; every check "+
+		"below gives its clause, formula, numbers and utilisation.", spliceWords(r.Geometry)))
+	d.heading(1, "Design forces", 60)
+	u, sl := r.Actions.ULS, r.Actions.SLS
+	d.table(table{Columns: []column{{"state", 1, false}, {"M max [kNm]", 1, true}, {"M min [kNm]", 1, true},
+		{"|V| max [kN]", 1, true}, {"N max [kN]", 1, true}, {"N min [kN]", 1, true}}, Rows: [][]string{
+		{"ULS", kNm(u.MMax), kNm(u.MMin), kN(u.V), kN(u.NMax), kN(u.NMin)},
+		{"SLS", kNm(sl.MMax), kNm(sl.MMin), kN(sl.V), kN(sl.NMax), kN(sl.NMin)},
+	}})
+	d.small("From the envelopes at the position, the worse side taken at a jump; each moment extreme is paired with the " +
+		"largest |V| and with both axial extremes (conservative), and both signs are checked.")
+	if r.Actions.MinimumNote != "" {
+		d.small("Minimum design action (user policy, no EN 1993 clause sets one): " + r.Actions.MinimumNote)
+	}
+	a := r.Actions
+	d.heading(1, "Force distribution", 60)
+	d.keyValues([][2]string{
+		{"Rule", fmt.Sprintf("%s: web share of the moment Iw/Iy = %s, of the axial force Aw/A = %s, lever arm h − tf = %s mm",
+			a.Distribution, fixed(a.IwOverIy, 3), fixed(a.AwOverA, 3), mm(a.LeverArm))},
+		{"Flange", fmt.Sprintf("tension Ft,Ed = %s kN (%s), compression Fc,Ed = %s kN (%s), bolt group force %s kN, in the slip state %s kN",
+			kN(a.Flange.Tension), a.Flange.TensionState, kN(a.Flange.Compression), a.Flange.CompressionState, kN(a.Flange.Bolt), kN(a.Flange.SlipBolt))},
+		{"Web", fmt.Sprintf("|Mw| = %s kNm, |Nw| = %s kN, |V| = %s kN (%s); in the slip state %s kNm, %s kN, %s kN",
+			kNm(a.Web.Moment), kN(a.Web.Axial), kN(a.Web.Shear), a.Web.State, kNm(a.Web.SlipMoment), kN(a.Web.SlipAxial), kN(a.Web.SlipShear))},
+		{"Web bolt group", fmt.Sprintf("e = %s mm, group moment |Mw| + |V|·e = %s kNm, Σ(x² + z²) = %s mm²; most loaded bolt H %s, V %s, resultant %s kN",
+			mm(r.WebGroup.Eccentricity), kNm(r.WebGroup.Moment), fixed(r.WebGroup.PolarMoment, 0),
+			kN(r.WebGroup.Corner.H), kN(r.WebGroup.Corner.V), kN(r.WebGroup.Corner.R))},
+	})
+	d.heading(1, "Summary of the checks", 80)
+	var rows [][]string
+	gov := -1
+	for i, c := range r.Checks {
+		if c.ID == r.Governing.ID && gov < 0 {
+			gov = i
+		}
+		rows = append(rows, []string{fmt.Sprint(i + 1), c.ID, c.Clause, c.State, fixed(c.Demand, 2), fixed(c.Resistance, 2), c.Unit,
+			fixed(c.Utilisation, 3), passWord(c.Pass)})
+	}
+	d.table(table{Columns: []column{{"no.", 0.45, true}, {"check", 2.2, false}, {"clause", 2.2, false}, {"state", 0.8, false},
+		{"demand", 0.9, true}, {"resistance", 0.9, true}, {"unit", 0.7, false}, {"util.", 0.6, true}, {"", 0.5, false}},
+		Rows: rows, Highlight: func(i int) bool { return i == gov }})
+	d.para(fmt.Sprintf("Governing check: %s (%s), utilisation %s — %s.", r.Governing.ID, r.Governing.Clause,
+		fixed(r.Utilisation, 3), passWord(r.Pass)))
+	d.heading(1, "The checks in full", 60)
+	for i, c := range r.Checks {
+		w.check(i+1, c)
+	}
+	if len(r.Notes) > 0 {
+		d.heading(1, "Notes", 30)
+		for _, n := range r.Notes {
+			d.small("• " + n)
+		}
+	}
+	q, cost := r.Quantities, r.Cost
+	d.heading(1, "Quantities and cost", 40)
+	d.keyValues([][2]string{
+		{"Bolts", fmt.Sprintf("%d assemblies (flanges %d, web %d), %d holes", q.Bolts, q.FlangeBolts, q.WebBolts, q.Holes)},
+		{"Plates", fmt.Sprintf("%s kg (flanges %s, web %s); plate lengths: flange %s mm, web %s mm", fixed(q.PlateMass, 1),
+			fixed(q.FlangePlateMass, 1), fixed(q.WebPlateMass, 1), mm(q.FlangePlateLength), mm(q.WebPlateLength))},
+		{"Faying surfaces", fixed(q.FayingArea, 2) + " m²"},
+		{"Cost", fmt.Sprintf("%s %s: bolts %s, holes %s, plates %s, faying surfaces %s, per splice %s", fixed(cost.Total, 2), w.cur,
+			fixed(cost.Bolts, 2), fixed(cost.Holes, 2), fixed(cost.Plates, 2), fixed(cost.Faying, 2), fixed(cost.Splice, 2))},
+	})
+	if f := w.findFigure("splice-" + strings.ToLower(sh.Name)); f != nil {
+		w.figure(f) // no heading: the drawing takes up to a whole page, its caption names it
+	}
+}
+
+func passWord(ok bool) string {
+	if ok {
+		return "OK"
+	}
+	return "FAILS"
+}
+
+// check writes one check in full: what, where from, the formula, the numbers and the verdict.
+func (w *reportWriter) check(n int, c splice.Check) {
+	d := w.d
+	d.ensure(4 * smallLead)
+	d.paraStyled(fmt.Sprintf("%d. %s — %s (%s)", n, c.ID, c.Clause, c.State), true, false, bodySize, bodyLead)
+	if c.Formula != "" {
+		d.small("Formula: " + c.Formula)
+	}
+	if c.Substituted != "" {
+		d.small("Numbers: " + c.Substituted)
+	}
+	if len(c.Inputs) > 0 {
+		parts := make([]string, len(c.Inputs))
+		for i, in := range c.Inputs {
+			parts[i] = fmt.Sprintf("%s = %s %s", in.Name, fourSig(in.Value), in.Unit)
+		}
+		d.small("Inputs: " + strings.Join(parts, "; "))
+	}
+	d.small(fmt.Sprintf("Demand %s %s, resistance %s %s: utilisation %s, %s.", fixed(c.Demand, 2), c.Unit,
+		fixed(c.Resistance, 2), c.Unit, fixed(c.Utilisation, 3), passWord(c.Pass)))
+	if c.Note != "" {
+		d.small("Note: " + c.Note)
+	}
+}
+
+func (w *reportWriter) closing() {
+	d := w.d
+	d.heading(0, "Caution and references", 120)
+	d.boxed("Caution", w.in.Caution)
+	d.para("References: EN 1990 (basis of design, combinations of actions, Table A1.1 ψ and Table A1.2(B) γ); " +
+		"EN 1993-1-1 (member and plate resistances, 6.2 and 6.3.1); EN 1993-1-8 (bolted connections: Tables 3.3, 3.4, " +
+		"3.2, clauses 3.6, 3.8, 3.9, 3.10.2); EN 1090-2 (hole clearances, Table 11; slip factors, Table 18); " +
+		"EN 10365 and BS 4-1 (section dimensions); EN 10025 (steel grades). National annex values govern where they differ " +
+		"from the recommended values used here.")
+}

@@ -1,0 +1,224 @@
+package plots
+
+import (
+	"bytes"
+	"encoding/json"
+	"fmt"
+	"strings"
+	"sync"
+	"testing"
+
+	"github.com/stretchr/testify/assert"
+	"github.com/stretchr/testify/require"
+
+	"spanbreak/optimise"
+)
+
+const testCaution = "CAUTION: test caution, check every result."
+
+// demoRun optimises the embedded demo job once for the tests of this file.
+func demoRun(t *testing.T) (*optimise.Setup, *optimise.Result) {
+	t.Helper()
+	demo := sync.OnceValues(func() (*optimise.Setup, error) {
+		return optimise.Prepare(optimise.DemoJobName, optimise.DemoJob())
+	})
+	s, err := demo()
+	require.NoError(t, err)
+	res, err := optimise.Run(s, optimise.Settings{})
+	require.NoError(t, err)
+	return s, res
+}
+
+func demoReport(t *testing.T) (*optimise.Setup, *optimise.Result, *Report) {
+	t.Helper()
+	s, res := demoRun(t)
+	rep, err := BuildReport(ReportInput{Setup: s, Result: res, Version: "test", Date: "2000-01-01", Caution: testCaution})
+	require.NoError(t, err)
+	return s, res, rep
+}
+
+func TestReportStructure(t *testing.T) {
+	_, res, rep := demoReport(t)
+	rec := res.Recommended()
+	require.NotEmpty(t, rec.Splices, "the demo needs at least one splice")
+
+	assert.True(t, bytes.HasPrefix(rep.PDF, []byte("%PDF-1.")))
+	assert.Equal(t, rep.Pages, pdfPageCount(rep.PDF), "the page objects in the file")
+	has := func(s string) bool { return strings.Contains(rep.Text, s) }
+	assert.True(t, has(fmt.Sprintf("page %d of %d", rep.Pages, rep.Pages)), "the last footer")
+
+	// top-level sections in order, one calculation sheet per splice of the recommended layout
+	want := []string{"Job summary", "Beam and loads", "Envelopes", "Limits", "Candidate positions", "Layouts"}
+	for i := range rec.Splices {
+		want = append(want, fmt.Sprintf("Calculation sheet: splice S%d at x = %s", i+1, fmtM(rec.Splices[i])))
+	}
+	want = append(want, "Caution and references")
+	var got []string
+	last := 0
+	for _, h := range rep.Headings {
+		assert.GreaterOrEqual(t, h.Page, last, "headings run forward through the pages")
+		last = h.Page
+		if !strings.Contains(h.Number, ".") {
+			got = append(got, h.Title)
+		}
+	}
+	assert.Equal(t, want, got)
+	// each calculation sheet starts on its own page, after the layouts
+	for _, h := range rep.Headings {
+		if strings.HasPrefix(h.Title, "Calculation sheet") {
+			assert.Greater(t, h.Page, pageOf(rep, "Layouts"))
+		}
+	}
+	// the contents on page 1 gives the pages the headings landed on
+	assert.True(t, has(fmt.Sprintf("7: %s: %d", want[6], pageOf(rep, want[6]))), "contents line of the first sheet")
+	assert.Equal(t, 1, pageOf(rep, "Job summary"))
+	assert.LessOrEqual(t, pageOf(rep, "Caution and references"), rep.Pages)
+}
+
+func pageOf(rep *Report, title string) int {
+	for _, h := range rep.Headings {
+		if h.Title == title {
+			return h.Page
+		}
+	}
+	return -1
+}
+
+func TestReportTextHoldsTheResult(t *testing.T) {
+	_, res, rep := demoReport(t)
+	rec := res.Recommended()
+	require.Len(t, rep.Sheets, len(rec.Splices))
+	has := func(s string) bool { return strings.Contains(rep.Text, s) }
+	for i, x := range rec.Splices {
+		sh := rep.Sheets[i]
+		assert.InDelta(t, x, sh.Position, 1e-9)
+		assert.True(t, has(fmt.Sprintf("S%d at %s", i+1, fmtM(x))), "chosen position in the summary")
+		assert.True(t, has("governing check "+sh.Result.Governing.ID+" ("+sh.Result.Governing.Clause+")"))
+		assert.True(t, has("Governing check: "+sh.Result.Governing.ID))
+		// the full sheet: every check with its clause, formula and numbers
+		for _, c := range sh.Result.Checks {
+			assert.True(t, has(c.ID+" — "+c.Clause))
+			if c.Formula != "" {
+				assert.True(t, has("Formula: "+c.Formula))
+			}
+		}
+		assert.NotEmpty(t, sh.Result.Checks[0].Substituted, "the sheet is re-checked with the full trace")
+	}
+	assert.GreaterOrEqual(t, strings.Count(rep.Text, testCaution), 2, "the caution on the first page and at the end")
+	assert.True(t, has("2000-01-01"))
+	assert.True(t, has("spanbreak test"))
+	assert.True(t, has(res.Zones[0].Reason))
+}
+
+func TestReportPDFTextWithPdftotext(t *testing.T) {
+	_, res, rep := demoReport(t)
+	text := pdfText(t, rep.PDF)
+	for _, x := range res.Recommended().Splices {
+		assert.Contains(t, text, fmtM(x))
+	}
+	assert.Contains(t, text, rep.Sheets[0].Result.Governing.ID)
+	assert.Contains(t, text, "CAUTION: test caution")
+	assert.Contains(t, text, "Calculation sheet: splice S1")
+}
+
+func TestReportIsDeterministic(t *testing.T) {
+	_, _, a := demoReport(t)
+	_, _, b := demoReport(t)
+	assert.True(t, bytes.Equal(a.PDF, b.PDF), "two builds from the same input give the same PDF bytes")
+}
+
+func TestReportFiguresMarkTheResult(t *testing.T) {
+	_, res, rep := demoReport(t)
+	rec := res.Recommended()
+	names := map[string]bool{}
+	for _, f := range rep.Figures {
+		names[f.Name] = true
+	}
+	for _, n := range []string{"envelopes", "cost", "utilisation", "layouts"} {
+		assert.True(t, names[n], n)
+	}
+	for i := range rec.Splices {
+		assert.True(t, names[fmt.Sprintf("splice-s%d", i+1)])
+	}
+	// the chosen positions appear where the layout search put them, on every chart along the beam
+	for _, chart := range []string{"envelopes", "cost", "utilisation"} {
+		got := marksIn(rep.Charts[chart].MarksOf(MarkSplice), "beam")
+		require.Len(t, got, len(rec.Splices), chart)
+		for i, x := range rec.Splices {
+			assert.InDelta(t, x/1e3, got[i].X, 1e-12, chart)
+		}
+	}
+	// the best-ranked marks are the scan's ranks 1..5 at their positions and costs
+	best := rep.Charts["cost"].MarksOf(MarkBest)
+	require.Len(t, best, 5)
+	for _, m := range best {
+		c := candidateAt(res.Candidates, m.X*1e3)
+		require.NotNil(t, c)
+		assert.True(t, c.Feasible)
+		assert.LessOrEqual(t, c.Rank, 5)
+		assert.InDelta(t, c.Design.Cost, m.Y, 1e-9)
+	}
+	// every candidate in a keep-out zone lies in a gap of the cost chart, every feasible one outside
+	gaps := rep.Charts["cost"].MarksOf(MarkGap)
+	inGap := func(x float64) bool {
+		for _, g := range gaps {
+			if x/1e3 >= g.X && x/1e3 <= g.X2 {
+				return true
+			}
+		}
+		return false
+	}
+	for _, c := range res.Candidates {
+		assert.Equal(t, !c.Feasible, inGap(c.X), "candidate at %g mm (feasible %v)", c.X, c.Feasible)
+	}
+	// the layout chart marks the recommended layout
+	tot := rep.Charts["layouts"].MarksOf(MarkTotal)
+	require.Len(t, tot, len(res.Layouts.ByCount))
+	assert.Contains(t, tot[res.Layouts.Recommended].Label, "chosen")
+}
+
+func TestReportInputErrors(t *testing.T) {
+	_, err := BuildReport(ReportInput{})
+	assert.ErrorContains(t, err, "needs the job setup")
+	s, res := demoRun(t)
+	empty := *res
+	empty.Layouts = optimise.LayoutResult{}
+	_, err = BuildReport(ReportInput{Setup: s, Result: &empty})
+	assert.ErrorContains(t, err, "no layout")
+}
+
+func TestChosenSplicesJSON(t *testing.T) {
+	_, res, rep := demoReport(t)
+	rec := res.Recommended()
+	raw, err := json.Marshal(ChosenSplicesJSON(rep.Sheets))
+	require.NoError(t, err)
+	var out []struct {
+		Name      string           `json:"name"`
+		Governing string           `json:"governing"`
+		Position  float64          `json:"position"`
+		Checks    []map[string]any `json:"checks"`
+		Splice    map[string]any   `json:"splice"`
+	}
+	require.NoError(t, json.Unmarshal(raw, &out))
+	require.Len(t, out, len(rec.Splices))
+	for i, x := range rec.Splices {
+		assert.Equal(t, fmt.Sprintf("S%d", i+1), out[i].Name)
+		assert.InDelta(t, x/1e3, out[i].Position, 1e-6)
+		assert.Equal(t, rep.Sheets[i].Result.Governing.ID, out[i].Governing)
+		require.Len(t, out[i].Checks, len(rep.Sheets[i].Result.Checks))
+		for _, key := range []string{"id", "clause", "state", "demand", "resistance", "unit", "utilisation", "pass"} {
+			assert.Contains(t, out[i].Checks[0], key, "DESIGN.md section 7 check key")
+		}
+		for _, key := range []string{"bolt", "category", "friction_class", "holes", "gap", "flange", "web"} {
+			assert.Contains(t, out[i].Splice, key, "splice file key (DESIGN.md section 8)")
+		}
+	}
+	assert.Equal(t, "[]", mustJSON(t, ChosenSplicesJSON(nil)), "no splice is an empty list, not null")
+}
+
+func mustJSON(t *testing.T, v any) string {
+	t.Helper()
+	b, err := json.Marshal(v)
+	require.NoError(t, err)
+	return string(b)
+}
