@@ -6,6 +6,11 @@ import (
 	"slices"
 )
 
+// DefaultMinPieceLength is the shortest piece of a spliced beam when the job sets no
+// min_piece_length [mm]: 1 m (common practice) keeps the cover plates of neighbouring splices
+// apart and avoids pieces not worth a splice.
+const DefaultMinPieceLength = 1000.0
+
 // Vehicle is one transport tier.
 type Vehicle struct {
 	Name      string

@@ -175,6 +175,9 @@ func (s *Setup) newResult(set Settings, rank Rank) (*Result, error) {
 		res.Step = set.Step
 	}
 	var keep KeepOutSpec
+	// Without min_piece_length a piece must still be long enough to carry the cover plates of
+	// the splices at its ends without the plates of two splices meeting.
+	res.Limits.MinLength = DefaultMinPieceLength
 	if l := job.Limits; l != nil {
 		if l.MaxPieceLength != nil {
 			res.Limits.MaxLength = l.MaxPieceLength.MM()

@@ -371,7 +371,7 @@ func (s *checkBuilder) limits(job *jobfile.Job) {
 		l = &jobfile.Limits{}
 	}
 	has := func(key string) bool { return job.Limits != nil && l.Has(key) }
-	s.Limits = checkLimits{KeepRanges: [][2]float64{}}
+	s.Limits = checkLimits{KeepRanges: [][2]float64{}, MinPieceLength: round(optimise.DefaultMinPieceLength * toM)}
 	if s.given(has("max_piece_length"), "limits.max_piece_length") && l.MaxPieceLength != nil {
 		v := round(l.MaxPieceLength.MM() * toM)
 		s.Limits.MaxPieceLength = &v
