@@ -188,6 +188,9 @@ func (s *Setup) newResult(set Settings, rank Rank) (*Result, error) {
 		if l.MaxPieceMass != nil {
 			res.Limits.MaxMass = l.MaxPieceMass.KG()
 		}
+		if l.Rigging != nil && set.Rigging == 0 {
+			res.Limits.Rigging = l.Rigging.KG()
+		}
 		if k := l.KeepOut; k != nil {
 			if k.Supports != nil {
 				keep.Supports = k.Supports.MM()

@@ -451,6 +451,7 @@ type Limits struct {
 	MaxPieceLength *Metres      `yaml:"max_piece_length"`
 	MinPieceLength *Metres      `yaml:"min_piece_length"`
 	MaxPieceMass   *Kilograms   `yaml:"max_piece_mass"`
+	Rigging        *Kilograms   `yaml:"rigging"` // slings, shackles and spreader added to every piece's lifted mass
 	KeepOut        *KeepOut     `yaml:"keep_out"`
 	Splices        *SpliceCount `yaml:"splices"`
 }

@@ -468,6 +468,9 @@ func (c *checker) limits(l *Limits, length beamLength) {
 	if l.MaxPieceMass != nil {
 		c.positive(l.Where("max_piece_mass"), "max_piece_mass", l.MaxPieceMass.KG(), l.MaxPieceMass.String())
 	}
+	if l.Rigging != nil {
+		c.nonNegative(l.Where("rigging"), "rigging", l.Rigging.KG(), l.Rigging.String())
+	}
 	if l.MinPieceLength != nil && l.MaxPieceLength != nil && *l.MaxPieceLength > 0 &&
 		*l.MinPieceLength >= *l.MaxPieceLength {
 		c.add(l.Where("min_piece_length"), "min_piece_length (%s) must be less than max_piece_length (%s)",
