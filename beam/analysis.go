@@ -233,7 +233,7 @@ func regionsOf(m Model) []Region {
 	if m.Length-last > pointTol {
 		rs = append(rs, Region{Name: "right overhang", From: last, To: m.Length})
 	}
-	if len(rs) == 0 { // a single support at one end of a cantilever of zero length cannot occur; keep one region
+	if len(rs) == 0 { // unreachable for a checked model (length > 0); kept so rs is never empty
 		rs = append(rs, Region{Name: "beam", From: 0, To: m.Length})
 	}
 	return rs

@@ -45,13 +45,7 @@ type structure struct {
 }
 
 // nodeIndex returns the index of the node at x, or -1.
-func (s *structure) nodeIndex(x float64) int {
-	i := sort.SearchFloat64s(s.nodes, x-pointTol)
-	if i < len(s.nodes) && math.Abs(s.nodes[i]-x) <= pointTol {
-		return i
-	}
-	return -1
-}
+func (s *structure) nodeIndex(x float64) int { return keyIndex(s.nodes, x) }
 
 // mergePoints sorts xs and removes points closer than pointTol to their predecessor.
 func mergePoints(xs []float64) []float64 {
