@@ -120,10 +120,12 @@ func TestWorkedSpliceEveryCheck(t *testing.T) {
 		{IDPreload, 800, 1000, StateDetailing},
 		{IDSpacing, 26.4, 30, StateDetailing}, // worst rule: inner plate e2 = 30 ≥ 1.2 d0 = 26.4
 		{IDFit, 200, 200, StateDetailing},     // outer plate width = flange width
-		{IDFlangeBoltShear, fc / n / 1e3, 2 * 0.5 * 1000 * 245 / 1.25 / 1e3, StateULS},
+		// each shear plane carries the share of the plate on its side; the outer plate's
+		// Ao/ΣA = 3000/4950 = 0.606 is the larger: Fv,Rd/0.606 = 98.0/0.606 = 161.7 kN
+		{IDFlangeBoltShear, fc / n / 1e3, 0.5 * 1000 * 245 / 1.25 / (ao / sa) / 1e3, StateULS},
 		{IDFlangeBearingBeam, fc / n / 1e3, 2.5 * ad * 490 * 20 * 16 / 1.25 / 1e3, StateULS},
 		{IDFlangeBearingPl, fc / n / 1e3, math.Min(fbO*sa/ao, fbI*sa/ai) / 1e3, StateULS},
-		{IDFlangeSlip, fsls / n / 1e3, 2 * 1 * 0.5 * 0.7 * 1000 * 245 / 1.1 / 1e3, StateSLS},
+		{IDFlangeSlip, fsls / n / 1e3, 1 * 0.5 * 0.7 * 1000 * 245 / 1.1 / (ao / sa) / 1e3, StateSLS}, // per surface, larger share
 		{IDFlangeTension, ft / 1e3, math.Min(math.Min(3000*355, 0.9*(200-2*22)*15*490/1.25)*sa/ao, math.Min(1950*355, 0.9*2*(65-22)*15*490/1.25)*sa/ai) / 1e3, StateULS},
 		{IDFlangeBlock, ft / 1e3, math.Min(blockOuter*sa/ao, blockInner*sa/ai) / 1e3, StateULS},
 		{IDFlangeCompression, fc / 1e3, sa * 355 / 1e3, StateULS},
@@ -192,8 +194,9 @@ func TestWorkedSpliceCategories(t *testing.T) {
 	require.NoError(t, err)
 	slip := byID(t, r, IDFlangeSlip)
 	assert.Equal(t, StateULS, slip.State)
-	// 2 surfaces × 0.5 × 0.7 × 1000 × 245 / 1.25 = 137.2 kN
-	assert.InEpsilon(t, 2*0.5*0.7*1000*245/1.25/1e3, slip.Resistance, 1e-9)
+	// 0.5 × 0.7 × 1000 × 245 / 1.25 = 68.6 kN per surface; the outer surface carries
+	// 3000/4950 of the force: 68.6/0.606 = 113.2 kN
+	assert.InEpsilon(t, 0.5*0.7*1000*245/1.25/(3000.0/4950)/1e3, slip.Resistance, 1e-9)
 	ten := byID(t, r, IDFlangeTension)
 	// outer: min(3000×355, 2340×355) = 830.7 kN → ×4950/3000; inner: min(1950×355, 1290×355) = 458.0 kN → ×4950/1950
 	assert.InEpsilon(t, math.Min(2340*355*4950/3000.0, 1290*355*4950/1950.0)/1e3, ten.Resistance, 1e-9)

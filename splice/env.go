@@ -67,6 +67,15 @@ func newEnv(p *Problem, cat Category, fc FrictionClass, holes HoleType, gap floa
 	return e, nil
 }
 
+// slipGammaName names the partial factor of the slip checks: γM3,ser at SLS (category B),
+// γM3 at ULS (category C), EN 1993-1-8 Table 2.1 and 3.9.1.
+func (e *env) slipGammaName() string {
+	if e.cat == CategoryB {
+		return "γM3,ser"
+	}
+	return "γM3"
+}
+
 // notes are the warnings the sheet prints beside the checks.
 func (e *env) notes(fl *flangeLayout, wl *webLayout) []string {
 	var out []string

@@ -1,6 +1,9 @@
 package splice
 
-import "math"
+import (
+	"math"
+	"strings"
+)
 
 // flangeEval evaluates the checks of one flange splice. The flange force is shared between the
 // outer plate and the inner plates in proportion to their gross areas (common practice); a
@@ -17,6 +20,31 @@ func (x *flangeEval) planes() int {
 		return 2
 	}
 	return 1
+}
+
+// maxShare is the larger share of the flange force carried by the plies on one side of the
+// beam flange: with inner plates each shear plane (and each friction surface) carries the force
+// of the plate on its side, by area the outer plate's Ao/ΣA and the inner plates' Ai/ΣA, so the
+// plane next to the larger share governs; an outer plate alone takes it all through one plane.
+func (x *flangeEval) maxShare() float64 {
+	if !x.l.inner {
+		return 1
+	}
+	ao, ai, sum := x.areas()
+	return max(ao, ai) / sum
+}
+
+// planeText names the governing shear plane or friction surface and its share.
+func (x *flangeEval) planeText() string {
+	if !x.l.inner {
+		return "one plane (outer plate alone), share 1"
+	}
+	ao, ai, sum := x.areas()
+	side := "outer plate"
+	if ai > ao {
+		side = "inner plates"
+	}
+	return sprintf("two planes; the %s' plane governs with share max(%s, %s)/%s = %s", side, mm(ao), mm(ai), mm(sum), f3(x.maxShare()))
 }
 
 func (x *flangeEval) nb() float64 { return float64(x.l.rows * x.l.cols) }
@@ -64,7 +92,7 @@ func (x *flangeEval) outerPly() ply {
 }
 
 func (x *flangeEval) innerPly() ply {
-	p := ply{yL: x.l.innerEdge(), yR: x.l.bo / 2, noPlug: -1}
+	p := ply{yL: x.l.innerEdge(), yR: x.l.bo / 2, noPlug: -1, offCentre: true}
 	p.y[0], p.n = x.l.g/2, 1
 	if x.l.cols == 4 {
 		p.y[1], p.n = x.l.g/2+x.l.p2o, 2
@@ -160,15 +188,26 @@ func (x *flangeEval) tension(full bool) Check {
 }
 
 type compressionNums struct {
-	ao, ai, rO, rI, res float64
-	gov                 string
+	ao, ai, aO, aI, rO, rI, res float64
+	net                         bool // holes deducted (oversize holes, 6.2.4(3))
+	gov                         string
 }
 
+// compressionN: EN 1993-1-1 6.2.4(3) lets holes be ignored in compression only where they are
+// filled by fasteners and are neither oversize nor slotted; oversize holes are deducted.
 func (x *flangeEval) compressionN() (n compressionNums) {
 	l, f := x.l, &x.e.f
 	n.ao, n.ai, _ = x.areas()
-	n.rO = n.ao * l.fyo / f.GammaM0
-	n.rI = n.ai * l.fyi / f.GammaM0
+	n.aO, n.aI = n.ao, n.ai
+	if n.net = x.e.holes != NormalHoles; n.net {
+		d0, cols := x.b.d0, float64(l.cols)
+		n.aO = (l.bo - cols*d0) * l.to
+		if l.inner {
+			n.aI = 2 * (l.bi - cols/2*d0) * l.ti
+		}
+	}
+	n.rO = max(0, n.aO) * l.fyo / f.GammaM0
+	n.rI = max(0, n.aI) * l.fyi / f.GammaM0
 	n.res, n.gov = x.share(n.rO, n.rI)
 	return n
 }
@@ -180,10 +219,20 @@ func (x *flangeEval) compression(full bool) Check {
 		return c
 	}
 	g0 := e.f.GammaM0
-	c.Formula = "Fc,Ed ≤ Nc,Rd = min over plates of (A·fy/γM0)·ΣA/A (holes filled by bolts not deducted)"
-	c.Substituted = sprintf("outer: %s mm² × %s / %s = %s kN", mm(n.ao), fnum(l.fyo, 0), f2(g0), kN(n.rO))
-	if l.inner {
-		c.Substituted += sprintf("; inner: %s mm² × %s / %s = %s kN", mm(n.ai), fnum(l.fyi, 0), f2(g0), kN(n.rI))
+	if n.net {
+		c.Formula = "Fc,Ed ≤ Nc,Rd = min over plates of (Anet·fy/γM0)·ΣA/A (oversize holes deducted, 6.2.4(3))"
+		c.Substituted = sprintf("outer: Anet = (%s − %d×%s)×%s = %s mm² × %s / %s = %s kN",
+			mm(l.bo), l.cols, mm(x.b.d0), mm(l.to), mm(n.aO), fnum(l.fyo, 0), f2(g0), kN(n.rO))
+		if l.inner {
+			c.Substituted += sprintf("; inner: Anet = 2×(%s − %d×%s)×%s = %s mm² × %s / %s = %s kN",
+				mm(l.bi), l.cols/2, mm(x.b.d0), mm(l.ti), mm(n.aI), fnum(l.fyi, 0), f2(g0), kN(n.rI))
+		}
+	} else {
+		c.Formula = "Fc,Ed ≤ Nc,Rd = min over plates of (A·fy/γM0)·ΣA/A (normal holes filled by bolts not deducted, 6.2.4(3))"
+		c.Substituted = sprintf("outer: %s mm² × %s / %s = %s kN", mm(n.ao), fnum(l.fyo, 0), f2(g0), kN(n.rO))
+		if l.inner {
+			c.Substituted += sprintf("; inner: %s mm² × %s / %s = %s kN", mm(n.ai), fnum(l.fyi, 0), f2(g0), kN(n.rI))
+		}
 	}
 	c.Substituted += x.shareText(n.rO, n.rI)
 	c.Substituted += sprintf("; Fc,Ed = %s kN ≤ %s kN", kN(e.act.Flange.Compression), kN(n.res))
@@ -298,8 +347,8 @@ func (x *flangeEval) beamNet(full bool) Check {
 }
 
 type shearNums struct {
-	lj, bLf, bp, res float64
-	np               int
+	lj, bLf, bp, share, res float64
+	np                      int
 }
 
 func (x *flangeEval) shearN() (n shearNums) {
@@ -310,7 +359,8 @@ func (x *flangeEval) shearN() (n shearNums) {
 	n.bLf = LongJointFactor(n.lj, b.d)
 	n.bp = PackingFactor(l.packing, b.d)
 	n.np = x.planes()
-	n.res = float64(n.np) * n.bLf * n.bp * b.fvPlane
+	n.share = x.maxShare()
+	n.res = n.bLf * n.bp * b.fvPlane / n.share
 	return n
 }
 
@@ -325,12 +375,12 @@ func (x *flangeEval) shear(full bool) Check {
 	if !b.threads {
 		area, av, a = "πd²/4", 0.6, b.size.ShankArea()
 	}
-	c.Formula = "Fv,Ed = Ff,Ed/n ≤ n_p·βLf·βp·Fv,Rd, Fv,Rd = αv·fub·A/γM2 (A = " + area + ")"
-	c.Substituted = sprintf("Fv,Ed = %s/%d = %s kN; Fv,Rd = %s×%s×%s/%s = %s kN; %d × %s × %s × %s = %s kN",
+	c.Formula = "Fv,Ed = Ff,Ed/n ≤ βLf·βp·Fv,Rd/s, s = the larger share of Ff,Ed through one shear plane, Fv,Rd = αv·fub·A/γM2 (A = " + area + ")"
+	c.Substituted = sprintf("Fv,Ed = %s/%d = %s kN; Fv,Rd = %s×%s×%s/%s = %s kN; %s; %s × %s × %s / %s = %s kN",
 		kN(e.act.Flange.Bolt), l.rows*l.cols, kN(demand), f2(av), fnum(b.class.Fub, 0), mm(a), f2(e.f.GammaM2), kN(b.fvPlane),
-		n.np, f3(n.bLf), f3(n.bp), kN(b.fvPlane), kN(n.res))
-	c.Inputs = []Input{in("n", x.nb(), "bolts"), in("n_p", float64(n.np), "planes"), in("Lj", n.lj, "mm"), in("βLf", n.bLf, ""), in("tp", l.packing, "mm"), in("βp", n.bp, "")}
-	c.Note = "per bolt, bolts share the flange force equally; "
+		x.planeText(), f3(n.bLf), f3(n.bp), kN(b.fvPlane), f3(n.share), kN(n.res))
+	c.Inputs = []Input{in("n", x.nb(), "bolts"), in("n_p", float64(n.np), "planes"), in("s", n.share, ""), in("Lj", n.lj, "mm"), in("βLf", n.bLf, ""), in("tp", l.packing, "mm"), in("βp", n.bp, "")}
+	c.Note = "per bolt, bolts share the flange force equally; each shear plane carries the force of the plate on its side (shares by area, as the plate checks); "
 	if n.lj > 15*b.d {
 		c.Note += sprintf("long joint Lj = %s mm > 15d = %s mm; ", mm(n.lj), mm(15*b.d))
 	}
@@ -432,7 +482,9 @@ func (x *flangeEval) bearingPlate(full bool) Check {
 	return c
 }
 
-func (x *flangeEval) slipN() float64 { return float64(x.planes()) * x.b.fsPerSur }
+// slipN is the slip resistance per bolt in flange-force terms: each friction surface carries
+// the share of the plate on its side, so the surface with the larger share slips first.
+func (x *flangeEval) slipN() float64 { return x.b.fsPerSur / x.maxShare() }
 
 func (x *flangeEval) slip(full bool) Check {
 	e, l, b := x.e, x.l, x.b
@@ -443,16 +495,13 @@ func (x *flangeEval) slip(full bool) Check {
 	if !full {
 		return c
 	}
-	gname := "γM3"
-	if e.cat == CategoryB {
-		gname = "γM3,ser"
-	}
-	c.Formula = "Fv,Ed/n ≤ Fs,Rd = ks·n_s·μ·Fp,C/" + gname + ", Fp,C = 0.7·fub·As"
-	c.Substituted = sprintf("Fp,C = 0.7×%s×%s = %s kN; Fs,Rd = %s×%d×%s×%s/%s = %s kN; Fv,Ed = %s/%d = %s kN",
-		fnum(b.class.Fub, 0), mm(b.size.As), kN(b.fpC), f2(e.holes.Ks()), ns, f2(e.mu), kN(b.fpC), f2(e.gammaS), kN(res),
+	c.Formula = "Fv,Ed/n ≤ Fs,Rd/s, Fs,Rd = ks·μ·Fp,C/" + e.slipGammaName() + " per friction surface, s = the larger share of the force through one surface, Fp,C = 0.7·fub·As"
+	c.Substituted = sprintf("Fp,C = 0.7×%s×%s = %s kN; Fs,Rd = %s×%s×%s/%s = %s kN per surface; %s; %s / %s = %s kN; Fv,Ed = %s/%d = %s kN",
+		fnum(b.class.Fub, 0), mm(b.size.As), kN(b.fpC), f2(e.holes.Ks()), f2(e.mu), kN(b.fpC), f2(e.gammaS), kN(b.fsPerSur),
+		strings.Replace(x.planeText(), "plane", "surface", -1), kN(b.fsPerSur), f3(x.maxShare()), kN(res),
 		kN(e.act.Flange.SlipBolt), l.rows*l.cols, kN(demand))
-	c.Inputs = []Input{in("μ", e.mu, ""), in("ks", e.holes.Ks(), ""), in("n_s", float64(ns), "surfaces")}
-	c.Note = "friction class " + string(e.fc)
+	c.Inputs = []Input{in("μ", e.mu, ""), in("ks", e.holes.Ks(), ""), in("n_s", float64(ns), "surfaces"), in("s", x.maxShare(), "")}
+	c.Note = "each friction surface carries the share of the plate on its side (by area); friction class " + string(e.fc)
 	if !b.class.Preloadable {
 		c.Note += "; class " + b.class.Name + " cannot be preloaded (see detail.preload)"
 	}

@@ -13,6 +13,10 @@ type ply struct {
 	y      [4]float64
 	n      int
 	noPlug int // index of a strip that cannot tear out (the strip holding the web), −1 for none
+	// offCentre marks a ply loaded off its own centre line (an inner flange plate, loaded
+	// through the bolts beside the web): it may tear in any pattern, even where its bolt lines
+	// happen to sit symmetrically in it.
+	offCentre bool
 }
 
 // k1Min is the smallest k1 of EN 1993-1-8 Table 3.4 over the ply's lines: lines next to an edge
@@ -58,7 +62,8 @@ func (p *ply) k1Min(d0 float64) float64 {
 // section, which the tension check covers. A symmetric ply (outer plate, beam flange) is loaded
 // through its centre line and tears symmetrically, as in EN 1993-1-8 Figure 3.8 (concentric,
 // Veff,1); a ply loaded off its centre line (an inner plate) may tear in any pattern and is
-// taken as eccentric (Veff,2).
+// taken as eccentric (Veff,2) whatever its geometry, so the resistance of an inner plate is
+// continuous across widths, including the width that centres its bolt line.
 func (p *ply) block(d0, lv, fy, fu, gammaM0, gammaM2 float64) (res float64, ant, anv float64, concentric bool) {
 	ns := p.n + 1
 	var w [5]float64
@@ -67,8 +72,8 @@ func (p *ply) block(d0, lv, fy, fu, gammaM0, gammaM2 float64) (res float64, ant,
 		w[i] = p.y[i] - p.y[i-1] - d0
 	}
 	w[p.n] = p.yR - p.y[p.n-1] - d0/2
-	sym := true
-	for j := 0; j < p.n; j++ {
+	sym := !p.offCentre
+	for j := 0; sym && j < p.n; j++ {
 		if math.Abs((p.y[j]-p.yL)-(p.yR-p.y[p.n-1-j])) > 1e-6 {
 			sym = false
 		}

@@ -261,7 +261,8 @@ func maxBearing(b *boltData, fu, t, gammaM2 float64) float64 {
 }
 
 // flangeFirstRows is the first rows entry with enough bolts for shear, slip and bearing on the
-// beam flange at their largest possible values, −1 when none has.
+// beam flange at their largest possible values, −1 when none has. With inner plates a bolt
+// carries at most two planes' worth (the larger share of the two planes is at least one half).
 func (s *searcher) flangeFirstRows(b *boltData, ci int, inner bool) int {
 	np := 1.0
 	if inner {
@@ -388,7 +389,7 @@ func (s *searcher) rowsNeeded(b *boltData, fl flangeLayout, r0 int) int {
 	}
 	x := flangeEval{e: s.e, b: b, l: &fl}
 	a := &s.e.act.Flange
-	fv := float64(x.planes()) * PackingFactor(fl.packing, b.d) * b.fvPlane
+	fv := PackingFactor(fl.packing, b.d) * b.fvPlane / x.maxShare()
 	fb := min(x.bearingBeamN().res, x.bearingPlateN().res)
 	fs := x.slipN()
 	per := float64(fl.cols)

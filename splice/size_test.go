@@ -175,7 +175,10 @@ func TestMoreForceNeverCheaper(t *testing.T) {
 
 // TestThickerPlateNeverWeaker: raising a plate thickness (through the usual thicknesses, which
 // stay within one strength band of EN 1993-1-1 Table 3.1 or cross it with more area) never
-// lowers the resistance of a structural check.
+// lowers the resistance of a structural check — except the flange bolts' shear and slip, where
+// a thicker plate draws a larger share of the flange force through its own shear plane and
+// friction surface (TestFlangeBoltPlanesCarryTheirPlatesShare); the search relies only on
+// costs rising with thickness, never on resistances.
 func TestThickerPlateNeverWeaker(t *testing.T) {
 	p := workedProblem(t)
 	ts := []float64{8, 10, 12, 15, 20, 25, 30, 35, 40, 45, 50}
@@ -197,7 +200,7 @@ func TestThickerPlateNeverWeaker(t *testing.T) {
 				require.NoError(t, err)
 				cur := map[string]float64{}
 				for _, c := range r.Checks {
-					if c.State == StateDetailing {
+					if c.State == StateDetailing || (ed.name != "web" && (c.ID == IDFlangeBoltShear || c.ID == IDFlangeSlip)) {
 						continue
 					}
 					cur[c.ID+" "+c.Unit] = c.Resistance

@@ -167,7 +167,7 @@ func (x *webEval) slip(full bool) Check {
 	if !full {
 		return c
 	}
-	c.Formula = "R (slip state) ≤ Fs,Rd = ks·2·μ·Fp,C/γM3"
+	c.Formula = "R (slip state) ≤ Fs,Rd = ks·2·μ·Fp,C/" + e.slipGammaName()
 	c.Substituted = sprintf("Mg = %s kNm, H = %s kN, V = %s kN, R = %s kN; Fs,Rd = %s×2×%s×%s/%s = %s kN",
 		kNm(x.gs.mg), kN(x.gs.h), kN(x.gs.v), kN(x.gs.r), f2(e.holes.Ks()), f2(e.mu), kN(b.fpC), f2(e.gammaS), kN(res))
 	c.Inputs = []Input{in("μ", e.mu, ""), in("ks", e.holes.Ks(), "")}
@@ -243,6 +243,7 @@ func (x *webEval) block(full bool) Check {
 type combinedNums struct {
 	med, ned, ved, vpl, rho, w, npl, mn float64
 	ignore, axial                       bool
+	nplText                             string // the Npl,Rd formula used
 }
 
 // combinedN: when the axial share alone reaches Npl,Rd the check is an axial one (axial = true,
@@ -265,14 +266,30 @@ func (x *webEval) combinedN() (n combinedNums) {
 	}
 	at := l.tp * l.hp / 2
 	atNet := l.tp * (l.hp/2 - float64(l.rows)/2*b.d0)
-	n.ignore = 0.9*atNet*l.fu/f.GammaM2 >= at*l.fy/f.GammaM0
+	catC := e.cat == CategoryC
+	// 6.2.5(5): holes in the tension zone may be ignored when 0.9·Anet·fu/γM2 ≥ A·fy/γM0 — never
+	// in a category C joint, where Nnet,Rd = Anet·fy/γM0 governs the tension part (6.2.3(4));
+	// oversize holes count in the compression zone too (6.2.4(3), 6.2.5(6)). The holes of both
+	// zones are then deducted about the plate's centre line (conservative).
+	n.ignore = !catC && e.holes == NormalHoles && 0.9*atNet*l.fu/f.GammaM2 >= at*l.fy/f.GammaM0
 	n.w = wpl
 	if !n.ignore {
 		n.w = wpl - 2*l.tp*b.d0*sumZ
 	}
-	anet := 2 * l.tp * (l.hp - float64(l.rows)*b.d0)
+	anet := max(0, 2*l.tp*(l.hp-float64(l.rows)*b.d0))
 	mpl := max(0, n.w) * fyr / f.GammaM0
-	n.npl = min(a*fyr/f.GammaM0, 0.9*max(0, anet)*l.fu/f.GammaM2)
+	// The web share of N may be tension or compression: the smaller resistance of either sign.
+	switch {
+	case catC: // 6.2.3(4): Nt,Rd = min(Npl,Rd, Nnet,Rd = Anet·fy/γM0) replaces Nu,Rd
+		n.npl = min(a, anet) * fyr / f.GammaM0
+		n.nplText = "min(A, Anet)·(1 − ρ)·fy/γM0 (category C, 6.2.3(4))"
+	case e.holes != NormalHoles: // 6.2.4(3): oversize holes are deducted in compression as well
+		n.npl = min(a*fyr/f.GammaM0, 0.9*anet*l.fu/f.GammaM2, anet*fyr/f.GammaM0)
+		n.nplText = "min(A·(1 − ρ)·fy/γM0, 0.9·Anet·fu/γM2, Anet·(1 − ρ)·fy/γM0 (oversize holes in compression, 6.2.4(3)))"
+	default:
+		n.npl = min(a*fyr/f.GammaM0, 0.9*anet*l.fu/f.GammaM2)
+		n.nplText = "min(A·(1 − ρ)·fy/γM0, 0.9·Anet·fu/γM2)"
+	}
 	if n.ned > 0 && n.ned >= n.npl {
 		n.axial = true
 		return n
@@ -298,7 +315,7 @@ func (x *webEval) combined(full bool) Check {
 	if n.axial {
 		c := newCheck(IDWebCombined, "EN 1993-1-1 6.2.3, 6.2.9.1", StateULS, "kN", n.ned, n.npl, toKN)
 		if full {
-			c.Formula = "NEd ≤ Npl,Rd = min(A·(1 − ρ)·fy/γM0, 0.9·Anet·fu/γM2), before any moment"
+			c.Formula = "NEd ≤ Npl,Rd = " + n.nplText + ", before any moment"
 			c.Substituted = sprintf("NEd = %s kN ≥ Npl,Rd = %s kN", kN(n.ned), kN(n.npl))
 			c.Note = "the axial share alone exceeds the web plates; " + e.act.Web.State
 		}
@@ -308,10 +325,16 @@ func (x *webEval) combined(full bool) Check {
 	if !full {
 		return c
 	}
-	c.Formula = "MEd = |Mw| + |V|·(gap/2 + e1) ≤ MN,V,Rd = W·(1 − ρ)·fy/γM0·[1 − (NEd/Npl,Rd)²], Npl,Rd = min(A·(1 − ρ)·fy/γM0, 0.9·Anet·fu/γM2), ρ = (2VEd/Vpl,Rd − 1)² when VEd > 0.5·Vpl,Rd"
+	c.Formula = "MEd = |Mw| + |V|·(gap/2 + e1) ≤ MN,V,Rd = W·(1 − ρ)·fy/γM0·[1 − (NEd/Npl,Rd)²], Npl,Rd = " + n.nplText + ", ρ = (2VEd/Vpl,Rd − 1)² when VEd > 0.5·Vpl,Rd"
 	sec := "gross (holes in the tension zone may be ignored, 6.2.5(5))"
-	if !n.ignore {
-		sec = "net of the holes"
+	switch {
+	case n.ignore:
+	case e.cat == CategoryC:
+		sec = "net of the holes: category C, Nnet,Rd governs the tension zone (6.2.3(4))"
+	case e.holes != NormalHoles:
+		sec = "net of the holes: oversize holes (6.2.4(3), 6.2.5(6))"
+	default:
+		sec = "net of the holes (6.2.5(5) not met)"
 	}
 	c.Substituted = sprintf("MEd = %s + %s×%s = %s kNm; Vpl,Rd = %s kN, ρ = %s; W = %s mm³ (%s), Npl,Rd = %s kN, NEd = %s kN; MN,V,Rd = %s kNm",
 		kNm(x.g.mw), kN(n.ved), fnum((e.gap/2+l.eh)*1e-3, 4), kNm(n.med), kN(n.vpl), f3(n.rho), fnum(n.w, 0), sec, kN(n.npl), kN(n.ned), kNm(n.mn))
