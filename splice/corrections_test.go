@@ -143,11 +143,12 @@ func TestWebPlatesCategoryCNetSection(t *testing.T) {
 // filled and not oversize). IPE 600 (EN 10365), S235 plates (235/360 N/mm², EN 1993-1-1
 // Table 3.1), M16 in oversize holes d0 = 20 mm (EN 1090-2), category A; web plates
 // 2 × 10 × 500 with 2 rows at 100 mm.
-//   Tension zone: 0.9 × 10 × (250 − 20) × 360/1.25 = 596.2 kN ≥ 10 × 250 × 235 = 587.5 kN, so
-//   6.2.5(5) alone would ignore the holes; oversize holes are deducted all the same:
-//   W = 10 × 500²/2 − 2 × 10 × 20 × (50 + 50) = 1 250 000 − 40 000 = 1 210 000 mm³.
-//   A = 10 000 mm², Anet = 2 × 10 × (500 − 2 × 20) = 9200 mm²: Npl,Rd = min(2350, 0.9 × 9200 ×
-//   360/1.25 = 2384.6, 9200 × 235 = 2162.0) = 2162.0 kN.
+//
+//	Tension zone: 0.9 × 10 × (250 − 20) × 360/1.25 = 596.2 kN ≥ 10 × 250 × 235 = 587.5 kN, so
+//	6.2.5(5) alone would ignore the holes; oversize holes are deducted all the same:
+//	W = 10 × 500²/2 − 2 × 10 × 20 × (50 + 50) = 1 250 000 − 40 000 = 1 210 000 mm³.
+//	A = 10 000 mm², Anet = 2 × 10 × (500 − 2 × 20) = 9200 mm²: Npl,Rd = min(2350, 0.9 × 9200 ×
+//	360/1.25 = 2384.6, 9200 × 235 = 2162.0) = 2162.0 kN.
 func TestWebPlatesOversizeCompression(t *testing.T) {
 	p := workedProblem(t)
 	p.Member = member(t, "IPE 600", steelS355())
