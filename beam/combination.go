@@ -57,6 +57,24 @@ type Rules struct {
 	// Case.Psi, which takes precedence over Table A1.1. A key naming no case is an error; a key
 	// naming a permanent case is ignored, like Case.Psi of a permanent case.
 	PsiOverrides map[string][3]float64
+
+	// CombineRoofImposed, when true, combines imposed loads on roofs (category H) with snow and
+	// wind like any other variable actions. The zero value, which NewRules keeps, applies
+	// EN 1990 A1.2.1(3) and EN 1991-1-1 3.3.2(1): no generated combination contains both a
+	// roof imposed load and snow or wind (see Combinations).
+	CombineRoofImposed bool
+}
+
+// RoofImposedClause names the rule that keeps imposed loads on roofs (category H) apart from
+// snow and wind in the generated combinations (Rules.CombineRoofImposed false).
+const RoofImposedClause = "EN 1990 A1.2.1(3), EN 1991-1-1 3.3.2(1)"
+
+// SeparatesRoofImposed reports whether r keeps roof imposed loads apart from snow and wind
+// for these cases: the rule is on and there is at least one category H imposed case and at
+// least one snow or wind case, so that the rule changes the generated combinations.
+func (r Rules) SeparatesRoofImposed(cases []Case) bool {
+	return !r.CombineRoofImposed && slices.ContainsFunc(cases, Case.RoofImposed) &&
+		slices.ContainsFunc(cases, Case.climatic)
 }
 
 // NewRules returns the recommended values of the named parameter set — for SetEN1990 those of
@@ -156,7 +174,9 @@ func (r Rules) validate() error {
 //	Snow           "low"  sites at altitude H ≤ 1000 m a.s.l. (also "")
 //	               "high" sites above 1000 m, and Finland, Iceland, Norway, Sweden
 //	Wind           ""
-//	OtherVariable  "" or "temperature": the row for temperature (non-fire), EN 1991-1-5
+//	Thermal        "": the row for temperature (non-fire), EN 1991-1-5
+//	OtherVariable  "" or "temperature": the temperature row too (kept for jobs that wrote
+//	               temperature as another variable action; use Thermal)
 //
 // A permanent kind, an unknown kind and a category not listed are errors; the error lists the
 // allowed categories. Spelling is exact (category "b" is an error).
@@ -172,8 +192,10 @@ func Psi(kind ActionKind, category string) ([3]float64, error) {
 		psi, ok = psiSnow(category)
 	case Wind:
 		psi, ok = [3]float64{0.6, 0.2, 0}, category == ""
+	case Thermal: // temperature (non-fire) in buildings
+		psi, ok = psiTemperature(), category == ""
 	case OtherVariable:
-		psi, ok = [3]float64{0.6, 0.5, 0}, category == "" || category == "temperature"
+		psi, ok = psiTemperature(), category == "" || category == "temperature"
 	default:
 		return psi, fmt.Errorf("kind %d: unknown action kind", int(kind))
 	}
@@ -183,6 +205,9 @@ func Psi(kind ActionKind, category string) ([3]float64, error) {
 	}
 	return psi, nil
 }
+
+// psiTemperature is EN 1990 Table A1.1, temperature (non-fire) in buildings (EN 1991-1-5).
+func psiTemperature() [3]float64 { return [3]float64{0.6, 0.5, 0} }
 
 // psiImposed is EN 1990 Table A1.1, imposed loads in buildings (EN 1991-1-1 categories).
 func psiImposed(category string) ([3]float64, bool) {
@@ -221,7 +246,7 @@ func allowedCategories(kind ActionKind) string {
 		return "A, B, C, D, E, F, G, H"
 	case Snow:
 		return `low (H ≤ 1000 m, also ""), high (H > 1000 m; Finland, Iceland, Norway, Sweden)`
-	case Wind:
+	case Wind, Thermal:
 		return `"" (none)`
 	case OtherVariable:
 		return `"" or temperature`
@@ -254,6 +279,29 @@ func allowedCategories(kind ActionKind) string {
 // Category is consulted only in the last case. Case.Psi, Category and Pattern do not matter
 // for permanent cases (Psi is ignored there, not an error).
 //
+// Roof imposed loads. EN 1991-1-1 3.3.2(1) says, in substance, that on roofs, category H roofs
+// in particular, the imposed load need not be applied together with snow loads or with wind
+// actions: the roof carries either the people and materials of maintenance or the weather.
+// EN 1990 A1.2.1 carries this into the combinations for buildings (paragraph (3) as the
+// project cites it; A1.2.1(1), from memory, is the general principle that actions which
+// cannot occur together are not combined). Unless r.CombineRoofImposed, the combinations
+// above are therefore generated so that no combination contains both a category H case and a
+// snow or wind case with a non-zero factor:
+//
+//   - where a category H case leads, every snow and wind case is absent (factor 0);
+//   - where a snow or wind case leads, every category H case is absent;
+//   - where the leading case is of neither group (a floor imposed load, a thermal action) or
+//     there is none (6.10a, quasi-permanent), a combination in which both groups would act is
+//     replaced by two, named "…, without snow and wind" and "…, without roof imposed".
+//
+// With the Table A1.1 values (ψ0 = ψ1 = ψ2 = 0 for category H) a category H case never
+// accompanies, so only its own leading combinations change (snow and wind drop out) and no
+// combination is split; the split happens only where the job gives a category H case ψ > 0.
+// Every combination under the rule is a combination without it less some variable actions,
+// and every combination without the rule survives in each alternative the rule allows it
+// (roof imposed without snow and wind, snow and wind without roof imposed): the set holds
+// "H leading" without snow or wind and "snow leading" and "wind leading" without H.
+//
 // Errors, joined: no cases; an empty or duplicate case name; an unknown kind; a category
 // Table A1.1 does not list; a ψ value that is NaN, infinite or outside [0, 1]; a
 // PsiOverrides key naming no case; invalid rules (as NewRules checks them).
@@ -272,7 +320,60 @@ func Combinations(cases []Case, r Rules) ([]Combination, error) {
 	} else {
 		out = append(out, uls610ab(cases, psi, r)...)
 	}
-	return append(out, slsCombinations(cases, psi, r.SLS)...), nil
+	out = append(out, slsCombinations(cases, psi, r.SLS)...)
+	if r.SeparatesRoofImposed(cases) {
+		out = separateRoofImposed(cases, out)
+	}
+	return out, nil
+}
+
+// separateRoofImposed applies EN 1990 A1.2.1(3) to generated combinations (see Combinations):
+// the group of the leading case stays and the other group is removed; without a leading case
+// of either group, a combination in which both groups act is split into one without each.
+func separateRoofImposed(cases []Case, combos []Combination) []Combination {
+	out := make([]Combination, 0, len(combos))
+	for _, c := range combos {
+		lead := -1
+		if c.Leading != "" {
+			lead = slices.IndexFunc(cases, func(k Case) bool { return k.Name == c.Leading })
+		}
+		switch {
+		case lead >= 0 && cases[lead].RoofImposed():
+			out = append(out, without(c, cases, Case.climatic, ""))
+		case lead >= 0 && cases[lead].climatic():
+			out = append(out, without(c, cases, Case.RoofImposed, ""))
+		case acts(c, cases, Case.RoofImposed) && acts(c, cases, Case.climatic):
+			out = append(out,
+				without(c, cases, Case.climatic, ", without snow and wind"),
+				without(c, cases, Case.RoofImposed, ", without roof imposed"))
+		default:
+			out = append(out, c)
+		}
+	}
+	return out
+}
+
+// acts reports whether some case of the group takes a non-zero factor in c.
+func acts(c Combination, cases []Case, group func(Case) bool) bool {
+	for i, f := range c.Factors {
+		if group(cases[i]) && f.Adverse > 0 {
+			return true
+		}
+	}
+	return false
+}
+
+// without returns a copy of c, its name extended by suffix, in which every case of the group
+// is absent (factors 0 and 0; the group holds variable cases only).
+func without(c Combination, cases []Case, group func(Case) bool, suffix string) Combination {
+	c.Name += suffix
+	c.Factors = slices.Clone(c.Factors)
+	for i := range c.Factors {
+		if group(cases[i]) {
+			c.Factors[i].Adverse, c.Factors[i].Relieving = 0, 0
+		}
+	}
+	return c
 }
 
 // resolvePsi checks the case names and kinds and returns ψ0, ψ1, ψ2 for each case (zeros for
@@ -289,7 +390,7 @@ func resolvePsi(cases []Case, overrides map[string][3]float64) ([][3]float64, er
 			errs = append(errs, fmt.Errorf("cases.%s: duplicate case name %q", c.Name, c.Name))
 		}
 		seen[c.Name] = true
-		if c.Kind < Permanent || c.Kind > OtherVariable {
+		if !c.Kind.known() {
 			errs = append(errs, fmt.Errorf("cases.%s.kind: unknown action kind %d", c.Name, int(c.Kind)))
 			continue
 		}
@@ -480,7 +581,7 @@ func UserCombination(name string, state LimitState, factors map[string]float64, 
 			errs = append(errs, fmt.Errorf("cases.%s: duplicate case name %q", c.Name, c.Name))
 		}
 		known[c.Name] = true
-		if c.Kind < Permanent || c.Kind > OtherVariable {
+		if !c.Kind.known() {
 			errs = append(errs, fmt.Errorf("cases.%s.kind: unknown action kind %d", c.Name, int(c.Kind)))
 		}
 	}

@@ -38,7 +38,7 @@ func assertFactor(t *testing.T, want, got float64, msgAndArgs ...any) {
 // kindByName maps the job-file spelling of an action kind to the kind.
 func kindByName(t *testing.T, name string) beam.ActionKind {
 	t.Helper()
-	for k := beam.Permanent; k <= beam.OtherVariable; k++ {
+	for k := beam.Permanent; k <= beam.Thermal; k++ {
 		if k.String() == name {
 			return k
 		}
@@ -82,7 +82,7 @@ func TestPsiTableA11(t *testing.T) {
 	for _, c := range []string{"A", "B", "C", "D", "E", "F", "G", "H"} {
 		assert.True(t, covered["imposed/"+c], "imposed category %s has a reference row", c)
 	}
-	for _, key := range []string{"snow/low", "snow/high", "wind/", "other/"} {
+	for _, key := range []string{"snow/low", "snow/high", "wind/", "thermal/"} {
 		assert.True(t, covered[key], "%s has a reference row", key)
 	}
 }
@@ -97,6 +97,7 @@ func TestPsiAliases(t *testing.T) {
 	}{
 		{"snow without category is the H ≤ 1000 m row", beam.Snow, "", [3]float64{0.5, 0.2, 0}, srcA11 + ", snow, H ≤ 1000 m"},
 		{"other variable named temperature", beam.OtherVariable, "temperature", [3]float64{0.6, 0.5, 0}, srcA11 + ", temperature (non-fire)"},
+		{"other variable without category is the temperature row", beam.OtherVariable, "", [3]float64{0.6, 0.5, 0}, srcA11 + ", temperature (non-fire)"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -123,6 +124,7 @@ func TestPsiErrors(t *testing.T) {
 		{"snow medium", beam.Snow, "medium", []string{`category "medium"`, "snow", "low", "high"}},
 		{"wind with a category", beam.Wind, "A", []string{`category "A"`, "wind"}},
 		{"other unknown", beam.OtherVariable, "crane", []string{`category "crane"`, "temperature"}},
+		{"thermal with a category", beam.Thermal, "temperature", []string{`category "temperature"`, "thermal"}},
 		{"unknown kind", beam.ActionKind(42), "", []string{"42", "unknown action kind"}},
 	}
 	for _, tc := range tests {
@@ -532,7 +534,7 @@ func TestCombinationsProperties(t *testing.T) {
 		cases := make([]beam.Case, n)
 		nVar := 0
 		for i := range cases {
-			kind := beam.ActionKind(rapid.IntRange(0, 4).Draw(t, "kind"))
+			kind := beam.ActionKind(rapid.IntRange(0, int(beam.Thermal)).Draw(t, "kind"))
 			c := beam.Case{Name: "C" + strconv.Itoa(i), Kind: kind}
 			switch kind {
 			case beam.Imposed:

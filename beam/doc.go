@@ -7,7 +7,8 @@
 // dimensions with the root fillets (EN 1993-1-1 6.2.6(3) for the shear area), steel grades
 // with thickness-dependent fy and fu (EN 1993-1-1 Table 3.1, or the EN 10025 steps), the beam
 // model, load cases, EN 1990 combinations (expressions 6.10, 6.10a/b, 6.14b–6.16b with
-// Table A1.1 ψ and Table A1.2(B) γ), the direct stiffness solver and the envelopes.
+// Table A1.1 ψ and Table A1.2(B) γ; imposed loads on roofs kept apart from snow and wind,
+// EN 1990 A1.2.1(3) with EN 1991-1-1 3.3.2(1)), the direct stiffness solver and the envelopes.
 //
 // Units: N and mm throughout (N/mm² for stresses, N·mm for moments, N/mm for line loads).
 // Signs: x from the left end; transverse loads and deflection positive downward; bending

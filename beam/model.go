@@ -54,11 +54,12 @@ type Load struct {
 type ActionKind int
 
 const (
-	Permanent ActionKind = iota
-	Imposed
-	Snow
-	Wind
-	OtherVariable
+	Permanent     ActionKind = iota
+	Imposed                  // imposed loads in buildings, EN 1991-1-1 (Case.Category "A" … "H")
+	Snow                     // snow loads on buildings, EN 1991-1-3
+	Wind                     // wind actions on buildings, EN 1991-1-4
+	OtherVariable            // any other variable action; give its ψ (Case.Psi)
+	Thermal                  // temperature (non-fire) in buildings, EN 1991-1-5
 )
 
 // String returns the job-file spelling of the action kind.
@@ -74,12 +75,17 @@ func (k ActionKind) String() string {
 		return "wind"
 	case OtherVariable:
 		return "other"
+	case Thermal:
+		return "thermal"
 	}
 	return "unknown"
 }
 
 // Variable reports whether the action is variable (not permanent).
 func (k ActionKind) Variable() bool { return k != Permanent }
+
+// known reports whether k is one of the declared action kinds.
+func (k ActionKind) known() bool { return k >= Permanent && k <= Thermal }
 
 // Case is one characteristic load case.
 type Case struct {
@@ -90,6 +96,15 @@ type Case struct {
 	Psi      *[3]float64 // explicit ψ0, ψ1, ψ2; nil takes EN 1990 Table A1.1 by kind and category
 	Loads    []Load
 }
+
+// RoofImposed reports whether the case is an imposed load on a roof, category H of EN 1991-1-1
+// (EN 1990 Table A1.1), which EN 1990 A1.2.1(3) and EN 1991-1-1 3.3.2(1) keep apart from snow
+// and wind (see Rules.CombineRoofImposed).
+func (c Case) RoofImposed() bool { return c.Kind == Imposed && c.Category == "H" }
+
+// climatic reports whether the case is snow or wind, the actions a roof imposed load is not
+// combined with.
+func (c Case) climatic() bool { return c.Kind == Snow || c.Kind == Wind }
 
 // Model is a straight prismatic beam on point supports. Lengths in mm, forces in N.
 type Model struct {

@@ -163,6 +163,8 @@ func actionKind(k string) beam.ActionKind {
 		return beam.Wind
 	case jobfile.KindOther:
 		return beam.OtherVariable
+	case jobfile.KindThermal:
+		return beam.Thermal
 	}
 	return beam.Permanent
 }
@@ -197,6 +199,7 @@ func (s *Setup) combinations(probs *jobfile.Problems) {
 		probs.Add(at, "%v", err)
 		return
 	}
+	rules.CombineRoofImposed = !cb.SeparatesRoofImposed()
 	s.Rules = rules
 	combos, err := beam.Combinations(s.Cases, rules)
 	if err != nil {

@@ -389,6 +389,9 @@ func (w *reportWriter) beamAndLoads() {
 		"γG,inf = %s, γQ = %s, ξ = %s and ψ from EN 1990 Table A1.1 unless the job sets them. Patterned cases are applied span by "+
 		"span wherever adverse, so the envelopes are exact over every pattern.", ru.Set, nU, ru.ULS, nS, ru.SLS,
 		fixed(ru.GammaGSup, 2), fixed(ru.GammaGInf, 2), fixed(ru.GammaQ, 2), fixed(ru.Xi, 2)))
+	if ru.SeparatesRoofImposed(s.Cases) {
+		d.para("The imposed load on the roof (category H) is not combined with snow or wind (" + beam.RoofImposedClause + ").")
+	}
 }
 
 // loadWords describes one load in job-file units.

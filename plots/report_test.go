@@ -108,6 +108,8 @@ func TestReportTextHoldsTheResult(t *testing.T) {
 	assert.True(t, has("2000-01-01"))
 	assert.True(t, has("spanbreak test"))
 	assert.True(t, has(res.Zones[0].Reason))
+	// the demo roof has a category H imposed load, snow and wind: the rule is named
+	assert.True(t, has("The imposed load on the roof (category H) is not combined with snow or wind (EN 1990 A1.2.1(3)"))
 }
 
 func TestReportPDFTextWithPdftotext(t *testing.T) {

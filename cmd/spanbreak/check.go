@@ -33,7 +33,8 @@ line, column and key path (exit status 1). A valid job is also analysed, so that
 (too few supports, a misplaced hinge) is reported, and check then prints what it understood:
 the section and grade with fy and fu at the flange and web thickness, the length, spans,
 supports, hinges and overhangs, each load case (kind, category, ψ used, pattern, number of loads
-and total downward load), the combinations and their γ values, the limits, vehicles, splice
+and total downward load), the combinations, their γ values and whether roof imposed loads are
+kept apart from snow and wind (EN 1990 A1.2.1(3)), the limits, vehicles, splice
 options, costs and scan. Values the file leaves out are shown with their defaults, marked.`,
 		Args: argsUsage(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
@@ -162,6 +163,13 @@ type checkCombinations struct {
 	SLSCount  int      `json:"sls_count"`
 	UserCount int      `json:"user_count"` // of the above, from combinations.extra
 	Names     []string `json:"names"`
+
+	// RoofImposedSeparate is combinations.roof_imposed_separate as used; RoofImposedApplied
+	// says the rule changed the generated combinations (there are roof imposed and snow or
+	// wind cases); RoofImposedRule names the rule where both groups are present, else "".
+	RoofImposedSeparate bool   `json:"roof_imposed_separate"`
+	RoofImposedApplied  bool   `json:"roof_imposed_applied"`
+	RoofImposedRule     string `json:"roof_imposed_rule"`
 }
 
 type checkLimits struct {
@@ -349,8 +357,15 @@ func (s *checkBuilder) combinations(st *optimise.Setup) {
 	for _, k := range jobfile.OverrideKeys() {
 		s.given(has("overrides."+k), "combinations.overrides."+k)
 	}
+	s.given(has("roof_imposed_separate"), "combinations.roof_imposed_separate")
 	c := checkCombinations{Rules: r.Set, ULS: r.ULS, SLS: r.SLS, GammaGSup: r.GammaGSup, GammaGInf: r.GammaGInf,
-		GammaQ: r.GammaQ, Xi: r.Xi}
+		GammaQ: r.GammaQ, Xi: r.Xi, RoofImposedSeparate: !r.CombineRoofImposed,
+		RoofImposedApplied: r.SeparatesRoofImposed(st.Cases)}
+	rule := r
+	rule.CombineRoofImposed = false // would the rule change anything for these cases?
+	if rule.SeparatesRoofImposed(st.Cases) {
+		c.RoofImposedRule = beam.RoofImposedClause
+	}
 	for _, cm := range st.Combinations {
 		if cm.State == beam.ULS {
 			c.ULSCount++
@@ -577,6 +592,7 @@ func writeCheckText(w io.Writer, s checkSummary) {
 	fmt.Fprintf(w, "Rules:     %s%s: γG,sup %.2f%s, γG,inf %.2f%s, γQ %.2f%s, ξ %.2f%s\n", cb.Rules, mark("combinations.rules"),
 		cb.GammaGSup, mark("combinations.overrides.gamma_G_sup"), cb.GammaGInf, mark("combinations.overrides.gamma_G_inf"),
 		cb.GammaQ, mark("combinations.overrides.gamma_Q"), cb.Xi, mark("combinations.overrides.xi"))
+	writeRoofRule(w, cb, mark("combinations.roof_imposed_separate"))
 	for _, n := range cb.Names {
 		fmt.Fprintf(w, "  %s\n", n)
 	}
@@ -605,6 +621,19 @@ func writeCheckText(w io.Writer, s checkSummary) {
 		}
 	}
 	fmt.Fprintf(w, "\n%s\n", caution)
+}
+
+// writeRoofRule names the rule on roof imposed loads where the job has roof imposed and snow
+// or wind cases, saying whether it was applied.
+func writeRoofRule(w io.Writer, cb checkCombinations, mark string) {
+	switch {
+	case cb.RoofImposedApplied:
+		fmt.Fprintf(w, "Roof:      %s applied%s: the imposed load on the roof (category H) is not combined with snow or wind\n",
+			cb.RoofImposedRule, mark)
+	case cb.RoofImposedRule != "":
+		fmt.Fprintf(w, "Roof:      %s not applied (roof_imposed_separate: false): "+
+			"the imposed load on the roof (category H) is combined with snow and wind\n", cb.RoofImposedRule)
+	}
 }
 
 func writeCheckLimits(w io.Writer, s checkSummary, mark func(...string) string) {

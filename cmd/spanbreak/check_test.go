@@ -335,3 +335,63 @@ func TestCheckUsage(t *testing.T) {
 		assert.Equal(t, exitUsage, code, "%v: %s", args, stderr)
 	}
 }
+
+// roofCheckJob is a roof beam (invented data) with a roof imposed load (category H), snow,
+// wind and a thermal action.
+const roofCheckJob = `beam:
+  section: IPE 300
+  spans: [6.0, 6.0]
+  supports: [pinned, roller, roller]
+cases:
+  G: {kind: permanent, loads: [{udl: 4}]}
+  Q: {kind: imposed, category: H, loads: [{udl: 3}]}
+  S: {kind: snow, loads: [{udl: 2}]}
+  W: {kind: wind, loads: [{udl: -1}]}
+  T: {kind: thermal, loads: [{axial: 20, at: 0}]}
+`
+
+// check names the rule keeping the roof imposed load apart from snow and wind (EN 1990
+// A1.2.1(3), EN 1991-1-1 3.3.2(1)) when it applies it, marks the key's default, says so when
+// the job turns it off, and reports a thermal case with the temperature row of EN 1990
+// Table A1.1 (0.6, 0.5, 0), not patterned.
+func TestCheckRoofRuleAndThermal(t *testing.T) {
+	s := checkJSON(t, roofCheckJob)
+	th := caseByName(t, s, "T")
+	assert.Equal(t, "thermal", th.Kind)
+	assert.Equal(t, &[3]float64{0.6, 0.5, 0}, th.Psi, "EN 1990 Table A1.1, temperature (non-fire)")
+	assert.Equal(t, "EN 1990 Table A1.1", th.PsiSource)
+	assert.False(t, th.Pattern, "only imposed cases are patterned by default")
+	cb := s.Combinations
+	assert.True(t, cb.RoofImposedSeparate)
+	assert.True(t, cb.RoofImposedApplied)
+	assert.Contains(t, cb.RoofImposedRule, "EN 1990 A1.2.1(3)")
+	assert.Contains(t, s.Defaults, "combinations.roof_imposed_separate")
+	// (6.10) one per leading variable case, (6.14b) the same: Q, S, W, T (EN 1990 6.4.3.2, 6.5.3)
+	assert.Equal(t, 4, cb.ULSCount)
+	assert.Equal(t, 4, cb.SLSCount)
+	assert.Contains(t, cb.Names, "ULS 6.10, Q leading")
+	assert.Contains(t, cb.Names, "ULS 6.10, T leading")
+
+	var out bytes.Buffer
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, roofCheckJob), Format: "text"}, &out))
+	assert.Contains(t, out.String(), "Roof:      EN 1990 A1.2.1(3), EN 1991-1-1 3.3.2(1) applied (default): "+
+		"the imposed load on the roof (category H) is not combined with snow or wind")
+	assert.Regexp(t, `T +thermal +- +0\.6, 0\.5, 0 \(EN 1990 Table A1\.1\) +no \(default\)`, out.String())
+
+	off := roofCheckJob + "combinations: {roof_imposed_separate: false}\n"
+	s = checkJSON(t, off)
+	assert.False(t, s.Combinations.RoofImposedSeparate)
+	assert.False(t, s.Combinations.RoofImposedApplied)
+	assert.NotContains(t, s.Defaults, "combinations.roof_imposed_separate")
+	out.Reset()
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, off), Format: "text"}, &out))
+	assert.Contains(t, out.String(), "EN 1990 A1.2.1(3), EN 1991-1-1 3.3.2(1) not applied (roof_imposed_separate: false)")
+
+	// a floor beam has no roof imposed load: no line, no rule named
+	s = checkJSON(t, checkJob)
+	assert.False(t, s.Combinations.RoofImposedApplied)
+	assert.Empty(t, s.Combinations.RoofImposedRule)
+	out.Reset()
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, checkJob), Format: "text"}, &out))
+	assert.NotContains(t, out.String(), "A1.2.1")
+}

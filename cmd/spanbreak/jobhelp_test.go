@@ -284,6 +284,7 @@ cases: {G: {kind: permanent, loads: [{udl: 10}]}}
 	require.NoError(t, err)
 	rules, err := beam.NewRules("", "", "", nil)
 	require.NoError(t, err)
+	require.False(t, rules.CombineRoofImposed, "the rule on roof imposed loads is on by default, as the reference says")
 	dist, err := splice.ParseDistribution("")
 	require.NoError(t, err)
 	space := splice.DefaultDesignSpace()
@@ -306,6 +307,7 @@ cases: {G: {kind: permanent, loads: [{udl: 10}]}}
 		{job, "combinations.rules", rules.Set},
 		{job, "combinations.uls", strconv.Quote(rules.ULS)},
 		{job, "combinations.sls", rules.SLS},
+		{job, "combinations.roof_imposed_separate", strconv.FormatBool((*jobfile.Combinations)(nil).SeparatesRoofImposed())},
 		{job, "splice.category", string(sp.Sizing.Category)},
 		{job, "splice.gap", shortNum(sp.Sizing.Gap)},
 		{job, "splice.distribution", string(dist)},

@@ -180,12 +180,13 @@ const (
 	KindImposed   = "imposed"
 	KindSnow      = "snow"
 	KindWind      = "wind"
-	KindOther     = "other" // another variable action; needs explicit psi
+	KindThermal   = "thermal" // temperature (non-fire), EN 1991-1-5; ψ from EN 1990 Table A1.1
+	KindOther     = "other"   // another variable action; needs explicit psi
 )
 
 // CaseKinds lists the allowed case kinds.
 func CaseKinds() []string {
-	return []string{KindPermanent, KindImposed, KindSnow, KindWind, KindOther}
+	return []string{KindPermanent, KindImposed, KindSnow, KindWind, KindThermal, KindOther}
 }
 
 // ImposedCategories lists the EN 1990 Table A1.1 categories of imposed loads in buildings
@@ -383,6 +384,18 @@ type Combinations struct {
 	Overrides Map[float64]       `yaml:"overrides"` // keys from OverrideKeys
 	SLS       string             `yaml:"sls"`       // SLSCharacteristic, SLSFrequent or SLSQuasiPermanent
 	Extra     []ExtraCombination `yaml:"extra"`
+
+	// RoofImposedSeparate keeps imposed loads on roofs (category H) out of every generated
+	// combination with snow or wind (EN 1990 A1.2.1(3), EN 1991-1-1 3.3.2(1)); nil: the
+	// default, see SeparatesRoofImposed.
+	RoofImposedSeparate *bool `yaml:"roof_imposed_separate"`
+}
+
+// SeparatesRoofImposed reports whether roof imposed loads are kept apart from snow and wind.
+// The default (the block or the key absent) is true, as EN 1991-1-1 3.3.2(1) allows; false
+// combines them like any other variable actions (more load, never less).
+func (c *Combinations) SeparatesRoofImposed() bool {
+	return c == nil || c.RoofImposedSeparate == nil || *c.RoofImposedSeparate
 }
 
 // ExtraCombination is a user-defined combination: a factor on each named case.

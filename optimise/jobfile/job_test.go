@@ -211,6 +211,25 @@ scan: {step: "50 mm"}
 	assert.InEpsilon(t, 50.0, j.Scan.Step.MM(), tol)
 }
 
+// A thermal case needs no psi (EN 1990 Table A1.1 has the temperature row) and is not
+// patterned by default; roof_imposed_separate reads as written, and is true when absent.
+func TestLoadThermalAndRoofRule(t *testing.T) {
+	for _, tc := range []struct {
+		block string
+		want  bool
+	}{{"", true}, {"combinations: {uls: \"6.10\"}\n", true},
+		{"combinations: {roof_imposed_separate: true}\n", true}, {"combinations: {roof_imposed_separate: false}\n", false}} {
+		j, err := LoadJob("job.yaml", []byte(minimal+"  T: {kind: thermal, loads: [{udl: 1}]}\n"+tc.block))
+		require.NoError(t, err, tc.block)
+		assert.Equal(t, tc.want, j.Combinations.SeparatesRoofImposed(), tc.block)
+		th, ok := j.Cases.Get("T")
+		require.True(t, ok)
+		assert.Equal(t, KindThermal, th.Kind)
+		assert.False(t, th.Patterned(), "only imposed cases are patterned by default")
+		assert.Nil(t, th.Psi)
+	}
+}
+
 // minimal is the smallest good job; the bad jobs below are variations of it.
 const minimal = `beam:
   section: IPE 300
@@ -226,6 +245,7 @@ func TestLoadMinimalJob(t *testing.T) {
 	j, err := LoadJob("job.yaml", []byte(minimal))
 	require.NoError(t, err)
 	assert.Nil(t, j.Combinations)
+	assert.True(t, j.Combinations.SeparatesRoofImposed(), "roof imposed loads kept apart by default")
 	assert.Nil(t, j.Beam.Overhang)
 	assert.InEpsilon(t, 6000.0, j.Beam.Length(), 1e-12)
 }
@@ -377,7 +397,7 @@ cases:
 cases: {}
 `, []string{`5:8: cases: at least one load case is needed`}},
 		{"unknown case kind", minimal[:indexOf(minimal, "    kind")] + "    kind: permanant\n    loads: [{udl: 5}]\n",
-			[]string{`7:11: cases.G.kind: unknown case kind "permanant" (allowed: permanent, imposed, snow, wind, other); did you mean "permanent"?`}},
+			[]string{`7:11: cases.G.kind: unknown case kind "permanant" (allowed: permanent, imposed, snow, wind, thermal, other); did you mean "permanent"?`}},
 		{"case kind missing", minimal[:indexOf(minimal, "    kind")] + "    loads: [{udl: 5}]\n",
 			[]string{`6:3: cases.G: missing required key "kind"`}},
 		{"imposed without category, bad category", minimal + `  Q1: {kind: imposed, loads: [{udl: 1}]}
@@ -390,6 +410,10 @@ cases: {}
   S: {kind: snow, category: alpine, loads: [{udl: 1}]}
 `, []string{`9:29: cases.W.category: category applies to imposed and snow cases, not wind`,
 			`10:29: cases.S.category: unknown snow category "alpine" (allowed: low, high)`}},
+		{"category on thermal", minimal + `  T: {kind: thermal, category: temperature, loads: [{udl: 1}]}
+`, []string{`9:32: cases.T.category: category applies to imposed and snow cases, not thermal`}},
+		{"roof_imposed_separate not a boolean", minimal + `combinations: {roof_imposed_separate: yes}
+`, []string{`9:39: combinations.roof_imposed_separate: want true or false, got "yes"`}},
 		{"psi out of range, psi length, other without psi", minimal + `  T: {kind: other, psi: [0.6, 1.5, -0.1], loads: [{udl: 1}]}
   U: {kind: other, psi: [0.6, 0.5], loads: [{udl: 1}]}
   V: {kind: other, loads: [{udl: 1}]}

@@ -273,7 +273,7 @@ func (c *checker) loadCase(lc Case, length beamLength) {
 		}
 	}
 	if lc.Kind == KindOther && !lc.Has("psi") {
-		c.add(lc.Meta.Loc, "an 'other' case needs psi: [ψ0, ψ1, ψ2] (EN 1990 Table A1.1 has no row for it)")
+		c.add(lc.Meta.Loc, "an 'other' case needs psi: [ψ0, ψ1, ψ2] (EN 1990 Table A1.1 has no row for it; temperature is kind thermal)")
 	}
 	if lc.Psi != nil {
 		for i, psi := range lc.Psi {
