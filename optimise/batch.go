@@ -15,10 +15,10 @@ type BatchInput struct {
 // BatchOutcome is the result of one job of a batch: a result, or the error that stopped it
 // (a jobfile.Problems for a bad file, an *InfeasibleError when no layout meets the limits).
 type BatchOutcome struct {
-	File   string
-	Title  string
-	Result *Result
-	Err    error
+	File    string
+	Title   string
+	Outcome *Outcome
+	Err     error
 }
 
 // Batch optimises several jobs, at most workers at a time (0: GOMAXPROCS); each job runs its
@@ -70,7 +70,7 @@ func runOne(in BatchInput, set Settings) BatchOutcome {
 		o.Err = err
 		return o
 	}
-	o.Title = s.Job.Title
-	o.Result, o.Err = Run(s, set)
+	o.Title = s.Title
+	o.Outcome, o.Err = Run(s, set)
 	return o
 }

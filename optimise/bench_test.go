@@ -36,10 +36,7 @@ func BenchmarkExhaustivePosition(b *testing.B) {
 	if err != nil {
 		b.Fatal(err)
 	}
-	d, err := s.NewSpliceDesigner(true)
-	if err != nil {
-		b.Fatal(err)
-	}
+	d := s.NewSpliceDesigner(true)
 	xs := []float64{3500, 7200, 9300, 13300, 16000, 20100, 25600, 30900, 35300}
 	i := 0
 	for b.Loop() {

@@ -14,17 +14,16 @@ import (
 func comparableCandidates(cs []Candidate) []Candidate {
 	out := make([]Candidate, len(cs))
 	for i, c := range cs {
-		c.Design.Detail = nil
 		out[i] = c
 	}
 	return out
 }
 
-func requireSameResults(t *testing.T, a, b *Result) {
+func requireSameResults(t *testing.T, a, b *Outcome) {
 	t.Helper()
 	require.Equal(t, comparableCandidates(a.Candidates), comparableCandidates(b.Candidates))
 	require.Equal(t, a.Layouts, b.Layouts)
-	require.Equal(t, a.Zones, b.Zones)
+	require.Equal(t, a.Setup.Zones, b.Setup.Zones)
 }
 
 // TestExhaustiveRunGivesTheSameResults: the reference run (one envelope per position, no

@@ -13,55 +13,8 @@ import (
 // the same conversion for self weight).
 const StandardGravity = 9.80665
 
-// Setup is a job file turned into the beam model, load cases and combinations, with the
-// section and grade looked up. It is the input of every analysis and of the splice scan.
-type Setup struct {
-	File         string
-	Job          *jobfile.Job
-	Section      beam.Section
-	Grade        beam.Grade
-	GradeTable   beam.GradeTable
-	Model        beam.Model
-	Cases        []beam.Case // job cases in file order; "SW" first when self weight is on
-	Rules        beam.Rules
-	Combinations []beam.Combination
-}
-
-// Prepare reads a job file's bytes: strict decoding and validation (every problem of the file
-// in one pass, with line, column and key path), then the section and grade, the model, the
-// cases and the combinations. The error is a jobfile.Problems where it can point into the file.
-func Prepare(file string, data []byte) (*Setup, error) {
-	job, err := jobfile.LoadJob(file, data)
-	if job == nil {
-		return nil, err
-	}
-	// the section and grade are looked up even when the file has other problems, so that
-	// every problem is reported in one pass
-	var probs jobfile.Problems
-	if !errors.As(err, &probs) && err != nil {
-		return nil, err
-	}
-	s := &Setup{File: file, Job: job}
-	if job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil {
-		s.section(&probs)
-		if s.Section.Name != "" {
-			s.grade(&probs)
-		}
-	}
-	if len(probs) > 0 {
-		return nil, probs.Err()
-	}
-	s.model()
-	s.cases()
-	s.combinations(&probs)
-	if len(probs) > 0 {
-		return nil, probs.Err()
-	}
-	return s, nil
-}
-
 func (s *Setup) section(probs *jobfile.Problems) {
-	b := s.Job.Beam
+	b := s.job.Beam
 	at := b.Where("section")
 	if b.Section.Welded != nil {
 		w := b.Section.Welded
@@ -82,7 +35,7 @@ func (s *Setup) section(probs *jobfile.Problems) {
 }
 
 func (s *Setup) grade(probs *jobfile.Problems) {
-	b := s.Job.Beam
+	b := s.job.Beam
 	name := b.Grade
 	if name == "" {
 		name = "S355"
@@ -104,7 +57,7 @@ func (s *Setup) grade(probs *jobfile.Problems) {
 
 // model builds the beam model [N, mm] from the beam block.
 func (s *Setup) model() {
-	b := s.Job.Beam
+	b := s.job.Beam
 	m := beam.Model{
 		Length: b.Length(),
 		EI:     beam.YoungModulus * s.Section.Iy,
@@ -131,19 +84,25 @@ func (s *Setup) model() {
 		m.Hinges = append(m.Hinges, h.MM())
 	}
 	s.Model = m
+	for _, sp := range b.Spans {
+		s.Spans = append(s.Spans, sp.MM())
+	}
+	s.Overhang = [2]float64{b.LeftOverhang(), b.RightOverhang()}
 }
 
-// SelfWeight is the section's weight per length [N/mm].
-func (s *Setup) SelfWeight() float64 { return s.Section.Mass * StandardGravity / 1000 }
+// SectionWeight is the section's weight per length [N/mm], whether or not the job includes
+// it as a load.
+func (s *Setup) SectionWeight() float64 { return s.Section.Mass * StandardGravity / 1000 }
 
 func (s *Setup) cases() {
-	if s.Job.Beam.IncludesSelfWeight() {
+	if s.job.Beam.IncludesSelfWeight() {
+		s.SelfWeight = s.SectionWeight()
 		s.Cases = append(s.Cases, beam.Case{
 			Name: jobfile.SelfWeightCase, Kind: beam.Permanent,
-			Loads: []beam.Load{{Kind: beam.Distributed, X1: 0, X2: s.Model.Length, W1: s.SelfWeight(), W2: s.SelfWeight()}},
+			Loads: []beam.Load{{Kind: beam.Distributed, X1: 0, X2: s.Model.Length, W1: s.SelfWeight, W2: s.SelfWeight}},
 		})
 	}
-	for _, e := range s.Job.Cases {
+	for _, e := range s.job.Cases {
 		c := beam.Case{Name: e.Key, Kind: actionKind(e.Value.Kind), Category: e.Value.Category,
 			Pattern: e.Value.Patterned(), Psi: e.Value.Psi}
 		for _, l := range e.Value.Loads {
@@ -185,8 +144,8 @@ func convertLoad(l jobfile.Load, length float64) beam.Load {
 func (s *Setup) combinations(probs *jobfile.Problems) {
 	set, uls, sls := jobfile.RulesEN1990, jobfile.ULS610, jobfile.SLSCharacteristic
 	overrides := map[string]float64{}
-	cb := s.Job.Combinations
-	at := s.Job.Where("combinations")
+	cb := s.job.Combinations
+	at := s.job.Where("combinations")
 	if cb != nil {
 		set, uls, sls = orDefault(cb.Rules, set), orDefault(cb.ULS, uls), orDefault(cb.SLS, sls)
 		for _, e := range cb.Overrides {
@@ -220,7 +179,7 @@ func (s *Setup) combinations(probs *jobfile.Problems) {
 			for _, f := range x.Factors {
 				factors[f.Key] = f.Value
 			}
-			if s.Job.Beam.IncludesSelfWeight() {
+			if s.job.Beam.IncludesSelfWeight() {
 				if _, ok := factors[jobfile.SelfWeightCase]; !ok {
 					// the self weight is a permanent action of the same source as the
 					// structure: unless named, it takes the largest permanent factor given
@@ -270,9 +229,9 @@ func (s *Setup) Analyse() (*beam.Analysis, error) {
 	an, err := beam.NewAnalysis(s.Model, s.Cases)
 	if err != nil {
 		var probs jobfile.Problems
-		at := s.Job.Beam.Where("supports")
+		at := s.job.Beam.Where("supports")
 		if !errors.Is(err, beam.ErrMechanism) {
-			at = s.Job.Where("cases")
+			at = s.job.Where("cases")
 		}
 		probs.Add(at, "%v", err)
 		return nil, probs.Err()

@@ -337,7 +337,7 @@ func TestLayoutsOfARealScanEqualBruteForce(t *testing.T) {
 		t.Run(tc.name, func(t *testing.T) {
 			r, err := Run(tc.setup, Settings{Step: tc.step})
 			require.NoError(t, err)
-			p := r.layoutProblem(0, tc.setup)
+			p := r.layoutProblem()
 			require.LessOrEqual(t, len(p.Sites), 16, "small enough for every subset")
 			require.GreaterOrEqual(t, len(p.Sites), 6)
 			wantBy, wantAlts, ok := bruteResult(p)

@@ -138,8 +138,7 @@ func TestKeepOutReasons(t *testing.T) {
 // memory), so no cover-plate splice can pass; the reason names the failing check and by how
 // much it fails.
 func TestInfeasiblePositionNamesTheCheck(t *testing.T) {
-	d, err := demoSetup(t).NewSpliceDesigner(false)
-	require.NoError(t, err)
+	d := demoSetup(t).NewSpliceDesigner(false)
 	f := ForceSet{MMax: 1500e6, MMin: -1500e6, V: 300e3}
 	des, err := d.Design(PositionForces{ULS: f, SLS: ForceSet{MMax: 1100e6, MMin: -1100e6, V: 220e3}})
 	require.NoError(t, err)
@@ -163,7 +162,7 @@ func TestMirrorSymmetricBeamGivesMirrorSymmetricCandidates(t *testing.T) {
 	feasible := 0
 	for i := range cs {
 		a, b := cs[i], cs[len(cs)-1-i]
-		require.InDelta(t, r.Length, a.X+b.X, 1e-6)
+		require.InDelta(t, r.Setup.Model.Length, a.X+b.X, 1e-6)
 		require.Equal(t, a.Feasible, b.Feasible, "x = %g mm", a.X)
 		if !a.Feasible {
 			continue
@@ -178,20 +177,20 @@ func TestMirrorSymmetricBeamGivesMirrorSymmetricCandidates(t *testing.T) {
 }
 
 // checkLayout verifies one reported layout against every limit of the result.
-func checkLayout(t *testing.T, r *Result, l Layout) {
+func checkLayout(t *testing.T, r *Outcome, l Layout) {
 	t.Helper()
 	var vehicle *Vehicle
-	for i := range r.Vehicles {
-		if r.Vehicles[i].Name == l.Vehicle {
-			vehicle = &r.Vehicles[i]
+	for i := range r.Setup.Vehicles {
+		if r.Setup.Vehicles[i].Name == l.Vehicle {
+			vehicle = &r.Setup.Vehicles[i]
 		}
 	}
-	if len(r.Vehicles) > 0 {
+	if len(r.Setup.Vehicles) > 0 {
 		require.NotNil(t, vehicle, "vehicle %q", l.Vehicle)
 	}
 	require.Len(t, l.Pieces, len(l.Splices)+1)
 	assert.InDelta(t, 0, l.Pieces[0].From, 1e-9)
-	assert.InDelta(t, r.Length, l.Pieces[len(l.Pieces)-1].To, 1e-9)
+	assert.InDelta(t, r.Setup.Model.Length, l.Pieces[len(l.Pieces)-1].To, 1e-9)
 	total := 0.0
 	for i, p := range l.Pieces {
 		assert.InDelta(t, p.To-p.From, p.Length, 1e-9)
@@ -200,13 +199,13 @@ func checkLayout(t *testing.T, r *Result, l Layout) {
 			assert.GreaterOrEqual(t, p.Length, r.Limits.MinLength-1e-6, "piece %d length", i)
 		}
 		assert.LessOrEqual(t, p.Mass, r.Limits.MaxMass+1e-6, "piece %d mass", i)
-		assert.InDelta(t, r.MassPerLength*p.Length/1000+p.SpliceMass+r.Limits.Rigging, p.Mass, 1e-9)
+		assert.InDelta(t, r.Setup.Section.Mass*p.Length/1000+p.SpliceMass+r.Limits.Rigging, p.Mass, 1e-9)
 		if vehicle != nil {
 			assert.LessOrEqual(t, p.Length, vehicle.MaxLength+1e-6)
 			assert.LessOrEqual(t, p.Mass, vehicle.Payload+1e-6)
 		}
 		if i > 0 {
-			assert.InDelta(t, r.Gap, p.From-l.Pieces[i-1].To, 1e-9, "gap at the splice")
+			assert.InDelta(t, r.Gap(), p.From-l.Pieces[i-1].To, 1e-9, "gap at the splice")
 		}
 		total += p.Mass
 	}
@@ -218,20 +217,20 @@ func checkLayout(t *testing.T, r *Result, l Layout) {
 		splices += c.Design.Cost
 	}
 	assert.InDelta(t, splices, l.Cost.Splices, 1e-5)
-	assert.InDelta(t, r.Lift*float64(len(l.Pieces)), l.Cost.Erection, 1e-6)
+	assert.InDelta(t, r.Setup.Lift*float64(len(l.Pieces)), l.Cost.Erection, 1e-6)
 	if vehicle != nil {
 		assert.InDelta(t, vehicle.Cost*float64(l.Trips), l.Cost.Transport, 1e-6)
 		assert.GreaterOrEqual(t, float64(l.Trips), math.Ceil(total/vehicle.Payload-1e-9))
 	}
 	assert.InDelta(t, l.Cost.Splices+l.Cost.Transport+l.Cost.Erection, l.Cost.Total, 1e-5)
-	if r.MaxSplices >= 0 {
-		assert.LessOrEqual(t, len(l.Splices), r.MaxSplices)
+	if r.Setup.MaxSplices >= 0 {
+		assert.LessOrEqual(t, len(l.Splices), r.Setup.MaxSplices)
 	}
-	assert.GreaterOrEqual(t, len(l.Splices), r.MinSplices)
+	assert.GreaterOrEqual(t, len(l.Splices), r.Setup.MinSplices)
 }
 
 // layoutSites maps the site indices of the layout search back to candidate indices.
-func (r *Result) layoutSites() []int {
+func (r *Outcome) layoutSites() []int {
 	var out []int
 	for i, c := range r.Candidates {
 		if c.Feasible {

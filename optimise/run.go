@@ -7,14 +7,8 @@ import (
 	"sort"
 	"strings"
 
+	"spanbreak/beam"
 	"spanbreak/optimise/jobfile"
-)
-
-// Defaults of the scan when the job and the settings leave them out.
-const (
-	DefaultStep         = 50.0 // candidate spacing [mm] (DESIGN.md section 6)
-	DefaultAlternatives = 3    // near-best alternative layouts listed
-	ExtraCounts         = 2    // splice counts reported beyond the fewest feasible
 )
 
 // Rank is the measure candidates are ranked by, and the tie-break of equal-cost layouts.
@@ -55,33 +49,40 @@ type Settings struct {
 	Exhaustive   bool    // reference run: no shared envelopes, no shared sizing, no pruning
 	Workers      int     // positions sized at once; 0: GOMAXPROCS; the exhaustive run uses 1
 	Alternatives int     // 0: the job's scan.alternatives, else DefaultAlternatives; < 0: none
-	Rigging      float64 // rigging allowance added to every piece's mass [kg]
+	Rigging      float64 // rigging allowance added to every piece's mass [kg]; 0: the job's
 }
 
-// Result is a complete optimisation of one job.
-type Result struct {
-	File, Title   string
-	Section       string
-	Length        float64 // [mm]
-	MassPerLength float64 // steel [kg/m]
-	Step          float64 // [mm]
-	Rank          Rank
-	Exhaustive    bool
-	Gap           float64 // [mm]
-	Limits        PieceLimits
-	MinSplices    int
-	MaxSplices    int // < 0: no limit
-	Vehicles      []Vehicle
-	Lift          float64 // per piece [currency]
-	Zones         []Zone
-	Candidates    []Candidate
-	Layouts       LayoutResult
-	Stats         ScanStats
-	Notes         []string
+// ChartIntervals is the number of intervals the envelopes of an Outcome are sampled at for
+// charts and member checks (the analysis adds every support, load point and jump on top).
+const ChartIntervals = 600
+
+// Outcome is one complete optimisation of a job: the analysis, the scan, the layouts and the
+// chosen splices with their full calculation sheets. Every renderer (text, JSON, CSV, charts,
+// the report) reads only an Outcome.
+type Outcome struct {
+	Setup        *Setup
+	Step         float64 // candidate spacing used [mm]
+	Rank         Rank
+	Exhaustive   bool
+	Limits       PieceLimits // the job's, with the settings' rigging allowance
+	Alternatives int         // near-best alternatives asked for
+
+	Analysis  *beam.Analysis
+	Envelopes beam.Envelopes // at every key point and ChartIntervals intervals along the beam
+
+	Candidates []Candidate
+	Stats      ScanStats
+	Layouts    LayoutResult  // empty when Infeasible is set
+	Chosen     []SpliceSheet // the recommended layout's splices, checked in full, left to right
+	Infeasible *LimitError   // the limit no layout can meet, when none can
+	Notes      []string
 }
 
 // Recommended returns the cheapest layout.
-func (r *Result) Recommended() Layout { return r.Layouts.ByCount[r.Layouts.Recommended] }
+func (o *Outcome) Recommended() Layout { return o.Layouts.ByCount[o.Layouts.Recommended] }
+
+// Gap is the gap between the beam ends at a splice [mm].
+func (o *Outcome) Gap() float64 { return o.Setup.Splice.Sizing.Gap }
 
 // InfeasibleError is returned when the scan worked but no layout satisfies the limits. It
 // points at the job-file key of the limit that cannot be met.
@@ -97,163 +98,121 @@ func (e *InfeasibleError) Error() string {
 
 func (e *InfeasibleError) Unwrap() error { return e.Limit }
 
-// Run optimises a job with the splice package's sizing (exhaustive for the reference run).
-func Run(s *Setup, set Settings) (*Result, error) {
-	d, err := s.NewSpliceDesigner(set.Exhaustive)
+// Run optimises a job with the splice package's sizing (exhaustive for the reference run)
+// and checks the recommended layout's splices in full. When no layout satisfies the limits
+// it returns the outcome without layouts together with an *InfeasibleError.
+func Run(s *Setup, set Settings) (*Outcome, error) {
+	o, err := Optimise(s, s.NewSpliceDesigner(set.Exhaustive), set)
+	if o == nil || o.Infeasible != nil {
+		return o, err
+	}
+	o.Chosen, err = o.Sheets(o.Recommended().Splices)
 	if err != nil {
 		return nil, err
 	}
-	return Optimise(s, d, set)
+	return o, nil
 }
 
 // Optimise scans the job's beam with a designer and finds the layouts: candidates every step
 // from the left end, keep-out zones, design forces from the envelopes, the cheapest splice at
-// each position, then the exact layout search. No layout within the limits is an
-// *InfeasibleError; anything the job file causes is a jobfile.Problems.
-func Optimise(s *Setup, d Designer, set Settings) (*Result, error) {
+// each position, then the exact layout search. No layout within the limits gives the outcome
+// so far (candidates, no layouts) with an *InfeasibleError; anything the job file causes is a
+// jobfile.Problems and no outcome. The outcome's Chosen is left empty (Run fills it).
+func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	rank, err := ParseRank(string(set.Rank))
 	if err != nil {
 		return nil, err
 	}
-	res, err := s.newResult(set, rank)
+	o, err := s.newOutcome(set, rank)
 	if err != nil {
 		return nil, err
 	}
-	an, err := s.Analyse()
-	if err != nil {
+	if o.Analysis, err = s.Analyse(); err != nil {
 		return nil, err
 	}
-	xs, err := Grid(res.Length, res.Step)
+	if o.Envelopes, err = chartEnvelopes(o.Analysis, s); err != nil {
+		return nil, err
+	}
+	xs, err := Grid(s.Model.Length, o.Step)
 	if err != nil {
 		var probs jobfile.Problems
-		at := s.Job.Where("scan.step")
-		probs.Add(at, "%v", err)
+		probs.Add(s.Where("scan.step"), "%v", err)
 		return nil, probs.Err()
 	}
 	workers := set.Workers
 	if set.Exhaustive {
 		workers = 1
 	}
-	cands, stats, err := Scan(an, s.Combinations, xs, res.Zones, d, ScanSettings{Exhaustive: set.Exhaustive, Workers: workers})
+	cands, stats, err := Scan(o.Analysis, s.Combinations, xs, s.Zones, d, ScanSettings{Exhaustive: set.Exhaustive, Workers: workers})
 	if err != nil {
 		// the designer refuses the splice options (the forces are the analysis's own)
 		var probs jobfile.Problems
-		probs.Add(s.Job.Where("splice"), "%v", err)
+		probs.Add(s.Where("splice"), "%v", err)
 		return nil, probs.Err()
 	}
-	res.Candidates, res.Stats = cands, stats
-	rankCandidates(res.Candidates, rank)
-	p := res.layoutProblem(set.Alternatives, s)
-	lr, err := Layouts(p)
+	o.Candidates, o.Stats = cands, stats
+	rankCandidates(o.Candidates, rank)
+	lr, err := Layouts(o.layoutProblem())
 	if err != nil {
 		var le *LimitError
 		if errors.As(err, &le) {
-			res.explain(le)
-			return nil, &InfeasibleError{At: s.Job.Where(le.Key), Limit: le}
+			o.explain(le)
+			o.Infeasible = le
+			return o, &InfeasibleError{At: s.Where(le.Key), Limit: le}
 		}
 		return nil, err
 	}
-	res.Layouts = lr
-	return res, nil
+	o.Layouts = lr
+	return o, nil
 }
 
-// newResult reads the limits, vehicles and rates of the job into a result without candidates.
-func (s *Setup) newResult(set Settings, rank Rank) (*Result, error) {
-	job := s.Job
-	res := &Result{File: s.File, Title: job.Title, Section: s.Section.Name, Length: s.Model.Length,
-		MassPerLength: s.Section.Mass, Rank: rank, Exhaustive: set.Exhaustive, MaxSplices: -1,
-		Limits: PieceLimits{MaxLength: math.Inf(1), MaxMass: math.Inf(1), Rigging: set.Rigging}}
-	var probs jobfile.Problems
+// chartEnvelopes are the envelopes at every key point and ChartIntervals intervals (no finer
+// than 10 mm).
+func chartEnvelopes(an *beam.Analysis, s *Setup) (beam.Envelopes, error) {
+	st, err := an.Stations(math.Max(s.Model.Length/ChartIntervals, 10))
+	if err != nil {
+		return beam.Envelopes{}, err
+	}
+	return an.Envelopes(s.Combinations, st)
+}
+
+// newOutcome applies the settings to the setup: step, rigging, alternatives and the notes.
+func (s *Setup) newOutcome(set Settings, rank Rank) (*Outcome, error) {
+	o := &Outcome{Setup: s, Rank: rank, Exhaustive: set.Exhaustive, Limits: s.Limits, Step: s.Step, Alternatives: s.Alternatives}
 	if set.Rigging < 0 || math.IsNaN(set.Rigging) {
-		probs.Add(job.Where(""), "the rigging allowance must not be negative, got %g kg", set.Rigging)
-	}
-	res.Step = DefaultStep
-	if job.Scan != nil && job.Scan.Step != nil {
-		res.Step = job.Scan.Step.MM()
-	}
-	if set.Step != 0 {
-		res.Step = set.Step
-	}
-	var keep KeepOutSpec
-	// Without min_piece_length a piece must still be long enough to carry the cover plates of
-	// the splices at its ends without the plates of two splices meeting.
-	res.Limits.MinLength = DefaultMinPieceLength
-	if l := job.Limits; l != nil {
-		if l.MaxPieceLength != nil {
-			res.Limits.MaxLength = l.MaxPieceLength.MM()
-		}
-		if l.MinPieceLength != nil {
-			res.Limits.MinLength = l.MinPieceLength.MM()
-		}
-		if l.MaxPieceMass != nil {
-			res.Limits.MaxMass = l.MaxPieceMass.KG()
-		}
-		if l.Rigging != nil && set.Rigging == 0 {
-			res.Limits.Rigging = l.Rigging.KG()
-		}
-		if k := l.KeepOut; k != nil {
-			if k.Supports != nil {
-				keep.Supports = k.Supports.MM()
-			}
-			if k.PointLoads != nil {
-				keep.PointLoads = k.PointLoads.MM()
-			}
-			for _, r := range k.Ranges {
-				keep.Ranges = append(keep.Ranges, [2]float64{r[0].MM(), r[1].MM()})
-			}
-		}
-		if c := l.Splices; c != nil {
-			if c.Min != nil {
-				res.MinSplices = *c.Min
-			}
-			if c.Max != nil {
-				res.MaxSplices = *c.Max
-			}
-		}
-	}
-	for _, v := range job.Vehicles {
-		res.Vehicles = append(res.Vehicles, Vehicle{Name: v.Name, MaxLength: v.MaxLength.MM(), Payload: v.Payload.KG(), Cost: v.Cost})
-	}
-	if c := job.Costs; c != nil {
-		res.Lift = deref(c.Lift)
-	} else {
-		res.Notes = append(res.Notes, "the job has no costs block: splices are priced at the splice package's indicative rates "+
-			"(invented, for ranking only), and lifts cost nothing")
-	}
-	if len(res.Vehicles) == 0 {
-		res.Notes = append(res.Notes, "the job lists no vehicles: transport is not costed and only max_piece_length limits the pieces")
-	}
-	if len(probs) > 0 {
+		var probs jobfile.Problems
+		probs.Add(s.Where(""), "the rigging allowance must not be negative, got %g kg", set.Rigging)
 		return nil, probs.Err()
 	}
-	sp, err := s.SpliceProblem()
-	if err != nil {
-		return nil, err
+	if set.Rigging != 0 {
+		o.Limits.Rigging = set.Rigging
 	}
-	res.Gap = sp.Sizing.Gap
-	res.Zones = KeepOutZones(s.Model, s.Cases, keep, res.Limits.MinLength)
-	return res, nil
-}
-
-// alternatives returns the number of alternatives asked for.
-func alternatives(set int, s *Setup) int {
+	if set.Step != 0 {
+		o.Step = set.Step
+	}
 	switch {
-	case set < 0:
-		return 0
-	case set > 0:
-		return set
-	case s.Job.Scan != nil && s.Job.Scan.Alternatives != nil:
-		return *s.Job.Scan.Alternatives
+	case set.Alternatives < 0:
+		o.Alternatives = 0
+	case set.Alternatives > 0:
+		o.Alternatives = set.Alternatives
 	}
-	return DefaultAlternatives
+	if !s.Costed {
+		o.Notes = append(o.Notes, "the job has no costs block: splices are priced at the splice package's indicative rates "+
+			"(invented, for ranking only), and lifts cost nothing")
+	}
+	if len(s.Vehicles) == 0 {
+		o.Notes = append(o.Notes, "the job lists no vehicles: transport is not costed and only max_piece_length limits the pieces")
+	}
+	return o, nil
 }
 
 // layoutProblem offers the feasible candidates to the layout search, grouping neighbours with
 // the same splice design into one variant class.
-func (r *Result) layoutProblem(alts int, s *Setup) LayoutProblem {
-	p := LayoutProblem{Length: r.Length, MassPerLength: r.MassPerLength / 1000, Gap: r.Gap, Limits: r.Limits,
-		MinSplices: r.MinSplices, MaxSplices: r.MaxSplices, Vehicles: r.Vehicles, Lift: r.Lift,
-		Alternatives: alternatives(alts, s), Extra: ExtraCounts}
+func (r *Outcome) layoutProblem() LayoutProblem {
+	s := r.Setup
+	p := LayoutProblem{Length: s.Model.Length, MassPerLength: s.Section.Mass / 1000, Gap: r.Gap(), Limits: r.Limits,
+		MinSplices: s.MinSplices, MaxSplices: s.MaxSplices, Vehicles: s.Vehicles, Lift: s.Lift,
+		Alternatives: r.Alternatives, Extra: ExtraCounts}
 	class := -1
 	for i, c := range r.Candidates {
 		if !c.Feasible {
@@ -324,7 +283,7 @@ func rankCandidates(cands []Candidate, rank Rank) {
 }
 
 // explain adds to a limit error about a stretch without positions the reasons found there.
-func (r *Result) explain(le *LimitError) {
+func (r *Outcome) explain(le *LimitError) {
 	if le.To <= le.From {
 		return
 	}

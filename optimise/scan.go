@@ -7,6 +7,7 @@ import (
 	"sync"
 
 	"spanbreak/beam"
+	"spanbreak/splice"
 )
 
 // SpliceDesign is the cheapest splice a Designer found for one set of design forces, or the
@@ -23,7 +24,9 @@ type SpliceDesign struct {
 	Governing   string  // id of the governing check, e.g. "web.bolt.bearing.beam"
 	Summary     string  // one line: bolts, plates, e.g. "M20 10.9; flanges 2×3 outer 15 mm; web 2×5"
 	Reason      string  // when not feasible: which check fails and by how much
-	Detail      any     // the designer's full result (checks, geometry) for reports; may be nil
+	// Geometry is the splice sized (when not feasible, the attempt closest to passing); the
+	// zero value when the designer keeps none (a test's stand-in designer).
+	Geometry splice.Geometry
 }
 
 // Mass returns the mass of the splice the pieces carry: plates and bolts [kg].

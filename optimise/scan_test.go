@@ -119,12 +119,12 @@ func TestBatch(t *testing.T) {
 	require.Len(t, out, 3)
 	assert.Equal(t, []int{1, 2, 3}, calls)
 	assert.NoError(t, out[0].Err)
-	require.NotNil(t, out[0].Result)
+	require.NotNil(t, out[0].Outcome)
 	assert.Equal(t, "Roof girder over a bus-depot wash bay (demo data, invented)", out[0].Title)
 	assert.ErrorContains(t, out[1].Err, "no such file")
 	assert.ErrorContains(t, out[2].Err, "broken.yaml")
 	// the batch result is the single run's
 	single, err := Run(demoSetup(t), Settings{Step: 250})
 	require.NoError(t, err)
-	assert.Equal(t, single.Layouts, out[0].Result.Layouts)
+	assert.Equal(t, single.Layouts, out[0].Outcome.Layouts)
 }

@@ -10,15 +10,15 @@ import (
 	"spanbreak/splice"
 )
 
-// SpliceProblem turns the job's splice and costs blocks into a splice sizing problem without
+// spliceProblem turns the job's splice and costs blocks into a splice sizing problem without
 // forces (the caller sets ULS and SLS for each position). Defaults where a block or key is
 // absent: category A (bearing), normal holes, the splice package's gap and design-space lists,
 // the beam's grade for the plates, bolt sizes limited to those priced in costs.bolt, and the
 // splice package's indicative rates when the job has no costs block. A category B or C splice
 // needs friction_class. Problems are reported against the job file's keys.
-func (s *Setup) SpliceProblem() (splice.Problem, error) {
+func (s *Setup) spliceProblem() (splice.Problem, error) {
 	var probs jobfile.Problems
-	job := s.Job
+	job := s.job
 	opts := job.Splice
 	where := func(key string) jobfile.Loc {
 		if opts == nil {
@@ -96,6 +96,19 @@ func (s *Setup) SpliceProblem() (splice.Problem, error) {
 			z.Space.Sizes = job.Costs.Bolt.Keys()
 		}
 	}
+	def := splice.DefaultDesignSpace()
+	if len(z.Space.Sizes) == 0 {
+		z.Space.Sizes = def.Sizes
+	}
+	if len(z.Space.Classes) == 0 {
+		z.Space.Classes = def.Classes
+	}
+	if len(z.Space.Thicknesses) == 0 {
+		z.Space.Thicknesses = def.Thicknesses
+	}
+	if len(z.Space.Arrangements) == 0 {
+		z.Space.Arrangements = def.Arrangements
+	}
 	p.Sizing = z
 	if len(probs) > 0 {
 		return splice.Problem{}, probs.Err()
@@ -111,9 +124,9 @@ func (s *Setup) steel(g beam.Grade) splice.Steel {
 
 // rates converts the costs block; without one the splice package's indicative rates apply.
 func (s *Setup) rates() splice.Rates {
-	c := s.Job.Costs
+	c := s.job.Costs
 	if c == nil {
-		return splice.Rates{}
+		return splice.DefaultRates()
 	}
 	r := splice.Rates{Bolt: map[string]float64{}, BoltClassFactor: map[string]float64{}}
 	for _, e := range c.Bolt {
@@ -144,12 +157,8 @@ type SpliceDesigner struct {
 }
 
 // NewSpliceDesigner builds the designer of a job.
-func (s *Setup) NewSpliceDesigner(exhaustive bool) (*SpliceDesigner, error) {
-	p, err := s.SpliceProblem()
-	if err != nil {
-		return nil, err
-	}
-	return &SpliceDesigner{Problem: p, Exhaustive: exhaustive, Tf: s.Section.Tf, Tw: s.Section.Tw}, nil
+func (s *Setup) NewSpliceDesigner(exhaustive bool) *SpliceDesigner {
+	return &SpliceDesigner{Problem: s.Splice, Exhaustive: exhaustive, Tf: s.Section.Tf, Tw: s.Section.Tw}
 }
 
 // Design sizes the cheapest splice for the forces.
@@ -173,7 +182,7 @@ func (d *SpliceDesigner) Design(f PositionForces) (SpliceDesign, error) {
 		Utilisation: r.Utilisation,
 		Governing:   r.Governing.ID,
 		Summary:     summary(r.Geometry),
-		Detail:      r,
+		Geometry:    r.Geometry,
 	}
 	if !out.Feasible {
 		out.Reason = fmt.Sprintf("no splice passes: the closest (%s) fails %s (%s) at utilisation %.3f, %.1f %% over",

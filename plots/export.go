@@ -3,6 +3,7 @@ package plots
 import (
 	"math"
 
+	"spanbreak/optimise"
 	"spanbreak/splice"
 )
 
@@ -38,7 +39,7 @@ type CheckJSON struct {
 
 // ChosenSplicesJSON returns the sheets of the recommended layout as result.json carries them,
 // left to right.
-func ChosenSplicesJSON(sheets []SpliceSheet) []SpliceJSON {
+func ChosenSplicesJSON(sheets []optimise.SpliceSheet) []SpliceJSON {
 	out := []SpliceJSON{}
 	for _, sh := range sheets {
 		r := sh.Result

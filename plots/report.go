@@ -14,25 +14,24 @@ import (
 
 // ReportInput is everything the calculation report prints.
 type ReportInput struct {
-	Setup    *optimise.Setup  // the job: beam, loads, combinations
-	Result   *optimise.Result // the scan and the layouts
-	Version  string           // program version printed on every page
-	Date     string           // date printed on the report (the caller's today; tests fix it)
-	Caution  string           // the caution every output carries
-	Ranking  int              // rows of the ranking table; 0 means 10
-	Currency string           // cost unit; empty: "cost units"
+	Outcome  *optimise.Outcome // the job, its analysis, the scan, the layouts and the chosen splices
+	Version  string            // program version printed on every page
+	Date     string            // date printed on the report (the caller's today; tests fix it)
+	Caution  string            // the caution every output carries
+	Ranking  int               // rows of the ranking table; 0 means 10
+	Currency string            // cost unit; empty: "cost units"
 }
 
 // Report is the calculation report and everything it is made of.
 type Report struct {
 	PDF      []byte
 	Pages    int
-	Text     string        // every string the PDF prints, in order (headers and footers included)
-	Headings []Heading     // the numbered headings with the page each starts on
-	Figures  []*Figure     // every chart and drawing, for PNG and SVG files
-	Sheets   []SpliceSheet // the chosen layout's splices with their full checks
-	Scan     []ScanPoint   // the candidates as charted
-	Layouts  LayoutInput   // the layouts as charted
+	Text     string                 // every string the PDF prints, in order (headers and footers included)
+	Headings []Heading              // the numbered headings with the page each starts on
+	Figures  []*Figure              // every chart and drawing, for PNG and SVG files
+	Sheets   []optimise.SpliceSheet // the chosen layout's splices with their full checks
+	Scan     []ScanPoint            // the candidates as charted
+	Layouts  LayoutInput            // the layouts as charted
 	Charts   map[string]*Chart
 }
 
@@ -52,10 +51,10 @@ const reportStations = 600
 // twice, the second time with the page count known for "page n of N"; it carries fixed
 // creation dates, so equal inputs give equal bytes.
 func BuildReport(in ReportInput) (*Report, error) {
-	if in.Setup == nil || in.Result == nil {
-		return nil, errors.New("report: needs the job setup and the optimisation result")
+	if in.Outcome == nil {
+		return nil, errors.New("report: needs the optimisation outcome")
 	}
-	if len(in.Result.Layouts.ByCount) == 0 {
+	if len(in.Outcome.Layouts.ByCount) == 0 {
 		return nil, errors.New("report: the optimisation found no layout to report")
 	}
 	r := &Report{Charts: map[string]*Chart{}}
@@ -95,25 +94,12 @@ func BuildReport(in ReportInput) (*Report, error) {
 
 // build prepares the charts, the drawing and the full splice sheets.
 func (r *Report) build(in ReportInput) error {
-	s, res := in.Setup, in.Result
-	an, err := s.Analyse()
-	if err != nil {
-		return err
-	}
-	st, err := an.Stations(math.Max(s.Model.Length/reportStations, 10))
-	if err != nil {
-		return err
-	}
-	env, err := an.Envelopes(s.Combinations, st)
-	if err != nil {
-		return err
-	}
+	res := in.Outcome
+	s := res.Setup
+	env := res.Envelopes
 	rec := res.Recommended()
-	sheets, err := ChosenSplices(s, res, rec)
-	if err != nil {
-		return fmt.Errorf("report: %w", err)
-	}
-	r.Sheets = sheets
+	r.Sheets = res.Chosen
+	sheets := r.Sheets
 	envChart, err := EnvelopeChart(EnvelopeInput{
 		Title: "Envelopes along the beam, " + s.Section.Name + " " + s.Grade.Name, Envelopes: &env,
 		Model: s.Model, KeepOut: KeepOutRanges(res), Splices: rec.Splices, Deflection: true,
@@ -158,8 +144,8 @@ func (r *Report) build(in ReportInput) error {
 // document writes the whole report once; pages is the total page count and toc the headings
 // of an earlier pass, when known.
 func (r *Report) document(in ReportInput, pages int, toc []heading) (*pdfDoc, error) {
-	s := in.Setup
-	title := s.Job.Title
+	s := in.Outcome.Setup
+	title := s.Title
 	if title == "" {
 		title = s.File
 	}
@@ -224,7 +210,7 @@ func (w *reportWriter) findFigure(name string) *Figure {
 }
 
 func (w *reportWriter) summary(title, version string) {
-	d, s, res := w.d, w.in.Setup, w.in.Result
+	d, s, res := w.d, w.in.Outcome.Setup, w.in.Outcome
 	d.paraStyled("Splice report", true, false, 18, 22)
 	d.paraStyled(title, true, false, 12, 15)
 	rec := res.Recommended()
@@ -266,7 +252,7 @@ func (w *reportWriter) sectionTitles() []string {
 	return append(t, "Caution and references")
 }
 
-func sheetTitle(sh *SpliceSheet) string {
+func sheetTitle(sh *optimise.SpliceSheet) string {
 	return fmt.Sprintf("Calculation sheet: splice %s at x = %s", sh.Name, fmtM(sh.Position))
 }
 
@@ -326,7 +312,7 @@ func spliceWords(g splice.Geometry) string {
 func money(v float64) string { return fixed(v, 0) }
 
 func (w *reportWriter) beamAndLoads() {
-	d, s := w.d, w.in.Setup
+	d, s := w.d, w.in.Outcome.Setup
 	d.heading(0, "Beam and loads", 120)
 	sec := s.Section
 	fyf, fuf, _ := s.Grade.Strength(sec.Tf, s.GradeTable)
@@ -434,27 +420,27 @@ func (w *reportWriter) envelopes() {
 }
 
 func (w *reportWriter) limits() {
-	d, res := w.d, w.in.Result
+	d, res := w.d, w.in.Outcome
 	d.heading(0, "Limits", 100)
 	lim := res.Limits
-	count := fmt.Sprintf("at least %d", res.MinSplices)
-	if res.MaxSplices >= 0 {
-		count += fmt.Sprintf(", at most %d", res.MaxSplices)
+	count := fmt.Sprintf("at least %d", res.Setup.MinSplices)
+	if res.Setup.MaxSplices >= 0 {
+		count += fmt.Sprintf(", at most %d", res.Setup.MaxSplices)
 	}
 	d.keyValues([][2]string{
 		{"Piece length", fmt.Sprintf("at most %s, at least %s (pieces of a spliced beam)", limitM(lim.MaxLength), limitM(lim.MinLength))},
 		{"Piece mass", fmt.Sprintf("at most %s (crane), with %s kg rigging allowance per piece", limitKG(lim.MaxMass), fixed(lim.Rigging, 0))},
 		{"Splices", count},
-		{"Gap at a splice", mm(res.Gap) + " mm between the beam ends"},
+		{"Gap at a splice", mm(res.Gap()) + " mm between the beam ends"},
 		{"Candidate step", formatClean(res.Step/1e3, 3) + " m"},
-		{"Erection", fmt.Sprintf("%s %s per piece lifted", money(res.Lift), w.cur)},
+		{"Erection", fmt.Sprintf("%s %s per piece lifted", money(res.Setup.Lift), w.cur)},
 	})
 	d.heading(1, "Keep-out zones", 40)
 	var rows [][]string
-	zones := slices.Clone(res.Zones)
+	zones := slices.Clone(res.Setup.Zones)
 	slices.SortStableFunc(zones, func(a, b optimise.Zone) int { return cmpFloat(a.From, b.From) })
 	for _, z := range zones {
-		rows = append(rows, []string{formatClean(math.Max(0, z.From)/1e3, 3), formatClean(math.Min(res.Length, z.To)/1e3, 3), z.Reason, z.Key})
+		rows = append(rows, []string{formatClean(math.Max(0, z.From)/1e3, 3), formatClean(math.Min(res.Setup.Model.Length, z.To)/1e3, 3), z.Reason, z.Key})
 	}
 	if len(rows) == 0 {
 		d.para("None.")
@@ -463,7 +449,7 @@ func (w *reportWriter) limits() {
 	}
 	d.heading(1, "Vehicles", 40)
 	rows = nil
-	for _, v := range res.Vehicles {
+	for _, v := range res.Setup.Vehicles {
 		rows = append(rows, []string{v.Name, formatClean(v.MaxLength/1e3, 2), fixed(v.Payload, 0), money(v.Cost)})
 	}
 	if len(rows) == 0 {
@@ -472,7 +458,8 @@ func (w *reportWriter) limits() {
 		d.table(table{Columns: []column{{"vehicle", 3, false}, {"longest piece [m]", 1.5, true}, {"payload [kg]", 1.5, true},
 			{"per trip [" + w.cur + "]", 1.5, true}}, Rows: rows})
 	}
-	if sp, err := w.in.Setup.SpliceProblem(); err == nil {
+	{
+		sp := w.in.Outcome.Setup.Splice
 		d.heading(1, "Splice options and rates", 40)
 		z := sp.Sizing
 		opts := [][2]string{
@@ -553,7 +540,7 @@ func limitKG(kg float64) string {
 }
 
 func (w *reportWriter) ranking() {
-	d, res := w.d, w.in.Result
+	d, res := w.d, w.in.Outcome
 	d.heading(0, "Candidate positions", w.keepFigure("cost")+3*bodyLead)
 	st := res.Stats
 	d.para(fmt.Sprintf("%d positions every %s m: %d inside keep-out zones, the cheapest splice sized at the others "+
@@ -572,7 +559,7 @@ func (w *reportWriter) ranking() {
 		}
 	}
 	slices.SortFunc(best, func(a, b optimise.Candidate) int { return a.Rank - b.Rank })
-	chosen := w.in.Result.Recommended().Splices
+	chosen := w.in.Outcome.Recommended().Splices
 	var rows [][]string
 	for _, c := range best {
 		rows = append(rows, []string{fmt.Sprint(c.Rank), formatClean(c.X/1e3, 3), money(c.Design.Cost), fmt.Sprint(c.Design.Bolts),
@@ -595,7 +582,7 @@ func (w *reportWriter) ranking() {
 }
 
 func (w *reportWriter) layouts() {
-	d, res := w.d, w.in.Result
+	d, res := w.d, w.in.Outcome
 	d.heading(0, "Layouts", w.keepFigure("layouts")+3*bodyLead)
 	d.para("For each number of splices, the cheapest set of positions that keeps every piece within the length and " +
 		"mass limits, found by an exact search over the feasible candidates; transport takes the cheapest vehicle that " +
@@ -653,7 +640,7 @@ func layoutRow(l optimise.Layout, chosen bool) []string {
 		money(l.Cost.Splices), money(l.Cost.Transport), money(l.Cost.Erection), money(l.Cost.Total)}
 }
 
-func (w *reportWriter) sheet(sh *SpliceSheet) {
+func (w *reportWriter) sheet(sh *optimise.SpliceSheet) {
 	d, r := w.d, sh.Result
 	d.newPage()
 	d.heading(0, sheetTitle(sh), 100)

@@ -17,7 +17,7 @@ import (
 const testCaution = "CAUTION: test caution, check every result."
 
 // demoRun optimises the embedded demo job once for the tests of this file.
-func demoRun(t *testing.T) (*optimise.Setup, *optimise.Result) {
+func demoRun(t *testing.T) (*optimise.Setup, *optimise.Outcome) {
 	t.Helper()
 	demo := sync.OnceValues(func() (*optimise.Setup, error) {
 		return optimise.Prepare(optimise.DemoJobName, optimise.DemoJob())
@@ -29,10 +29,10 @@ func demoRun(t *testing.T) (*optimise.Setup, *optimise.Result) {
 	return s, res
 }
 
-func demoReport(t *testing.T) (*optimise.Setup, *optimise.Result, *Report) {
+func demoReport(t *testing.T) (*optimise.Setup, *optimise.Outcome, *Report) {
 	t.Helper()
 	s, res := demoRun(t)
-	rep, err := BuildReport(ReportInput{Setup: s, Result: res, Version: "test", Date: "2000-01-01", Caution: testCaution})
+	rep, err := BuildReport(ReportInput{Outcome: res, Version: "test", Date: "2000-01-01", Caution: testCaution})
 	require.NoError(t, err)
 	return s, res, rep
 }
@@ -107,7 +107,7 @@ func TestReportTextHoldsTheResult(t *testing.T) {
 	assert.GreaterOrEqual(t, strings.Count(rep.Text, testCaution), 2, "the caution on the first page and at the end")
 	assert.True(t, has("2000-01-01"))
 	assert.True(t, has("spanbreak test"))
-	assert.True(t, has(res.Zones[0].Reason))
+	assert.True(t, has(res.Setup.Zones[0].Reason))
 	// the demo roof has a category H imposed load, snow and wind: the rule is named
 	assert.True(t, has("The imposed load on the roof (category H) is not combined with snow or wind (EN 1990 A1.2.1(3)"))
 }
@@ -154,7 +154,7 @@ func TestReportFiguresMarkTheResult(t *testing.T) {
 	best := rep.Charts["cost"].MarksOf(MarkBest)
 	require.Len(t, best, 5)
 	for _, m := range best {
-		c := candidateAt(res.Candidates, m.X*1e3)
+		c := res.CandidateAt(m.X * 1e3)
 		require.NotNil(t, c)
 		assert.True(t, c.Feasible)
 		assert.LessOrEqual(t, c.Rank, 5)
@@ -181,11 +181,11 @@ func TestReportFiguresMarkTheResult(t *testing.T) {
 
 func TestReportInputErrors(t *testing.T) {
 	_, err := BuildReport(ReportInput{})
-	assert.ErrorContains(t, err, "needs the job setup")
-	s, res := demoRun(t)
+	assert.ErrorContains(t, err, "needs the optimisation outcome")
+	_, res := demoRun(t)
 	empty := *res
 	empty.Layouts = optimise.LayoutResult{}
-	_, err = BuildReport(ReportInput{Setup: s, Result: &empty})
+	_, err = BuildReport(ReportInput{Outcome: &empty})
 	assert.ErrorContains(t, err, "no layout")
 }
 

@@ -269,11 +269,11 @@ func writeJSON(w io.Writer, v any) error {
 func writeHeader(w io.Writer, s *optimise.Setup, what string) {
 	fmt.Fprintf(w, "spanbreak %s: %s\n", version(), what)
 	fmt.Fprintf(w, "Input:    %s\n", s.File)
-	if s.Job.Title != "" {
-		fmt.Fprintf(w, "Title:    %s\n", s.Job.Title)
+	if s.Title != "" {
+		fmt.Fprintf(w, "Title:    %s\n", s.Title)
 	}
 	fmt.Fprintf(w, "Beam:     %s, %s, length %.3f m, Iy = %.4g cm4, self weight %.3f kN/m\n",
-		s.Section.Name, s.Grade.Name, s.Model.Length*toM, s.Section.Iy/1e4, s.SelfWeight())
+		s.Section.Name, s.Grade.Name, s.Model.Length*toM, s.Section.Iy/1e4, s.SectionWeight())
 	var sup []string
 	for _, sp := range s.Model.Supports {
 		sup = append(sup, fmt.Sprintf("%.3f m %s", sp.X*toM, sp.Kind))

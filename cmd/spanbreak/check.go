@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"fmt"
 	"io"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
@@ -14,7 +15,6 @@ import (
 	"spanbreak/beam"
 	"spanbreak/optimise"
 	"spanbreak/optimise/jobfile"
-	"spanbreak/splice"
 )
 
 // checkOptions are the inputs of `spanbreak check`.
@@ -60,11 +60,7 @@ func runCheck(opts checkOptions, stdout io.Writer) error {
 	if err != nil {
 		return err
 	}
-	sp, err := setup.SpliceProblem()
-	if err != nil {
-		return err
-	}
-	sum, err := summarise(setup, an, sp)
+	sum, err := summarise(setup, an)
 	if err != nil {
 		return err
 	}
@@ -224,25 +220,15 @@ var checkUnits = map[string]string{
 	"cost": "currency of the job",
 }
 
-// checkBuilder collects the values and the key paths that took their default.
+// checkBuilder collects the values of the summary.
 type checkBuilder struct {
 	checkSummary
-	defaults map[string]bool
 }
 
-// given records whether a key path was written; when not, it takes its default.
-func (s *checkBuilder) given(present bool, path string) bool {
-	if !present {
-		s.defaults[path] = true
-	}
-	return present
-}
-
-func summarise(st *optimise.Setup, an *beam.Analysis, sp splice.Problem) (checkSummary, error) {
-	job := st.Job
-	s := &checkBuilder{defaults: map[string]bool{}}
-	s.Defaults, s.Notes, s.Vehicles = []string{}, []string{}, []checkVehicle{}
-	s.Input, s.Version, s.Valid, s.Units, s.Title = st.File, version(), true, checkUnits, job.Title
+func summarise(st *optimise.Setup, an *beam.Analysis) (checkSummary, error) {
+	s := &checkBuilder{}
+	s.Defaults, s.Notes, s.Vehicles = append([]string{}, st.Defaults...), append([]string{}, st.Notes...), []checkVehicle{}
+	s.Input, s.Version, s.Valid, s.Units, s.Title = st.File, version(), true, checkUnits, st.Title
 	if err := s.beam(st); err != nil {
 		return checkSummary{}, err
 	}
@@ -251,28 +237,21 @@ func summarise(st *optimise.Setup, an *beam.Analysis, sp splice.Problem) (checkS
 	for _, r := range an.Regions() {
 		s.Regions = append(s.Regions, r.Name)
 	}
-	s.limits(job)
-	for _, v := range job.Vehicles {
-		s.Vehicles = append(s.Vehicles, checkVehicle{v.Name, round(v.MaxLength.MM() * toM), round(v.Payload.KG()), v.Cost})
+	s.limits(st)
+	for _, v := range st.Vehicles {
+		s.Vehicles = append(s.Vehicles, checkVehicle{v.Name, round(v.MaxLength * toM), round(v.Payload), v.Cost})
 	}
-	s.splice(job, sp)
-	s.costs(job)
-	s.scan(job)
-	s.notes(job)
-	for p := range s.defaults {
-		s.Defaults = append(s.Defaults, p)
-	}
-	slices.Sort(s.Defaults)
+	s.splice(st)
+	s.costs(st)
+	s.Scan = checkScan{Step: round(st.Step * toM), Alternatives: st.Alternatives}
 	return s.checkSummary, nil
 }
 
 func (s *checkBuilder) beam(st *optimise.Setup) error {
-	b, sec := st.Job.Beam, st.Section
+	sec := st.Section
 	s.Section = checkSection{Name: sec.Name, Series: sec.Series, Source: sec.Source, H: sec.H, B: sec.B,
 		Tw: sec.Tw, Tf: sec.Tf, R: sec.R, A: round(sec.A / 1e2), Iy: round(sec.Iy / 1e4),
 		MassPerM: round(sec.Mass), Catalogue: !sec.Welded()}
-	s.given(b.Has("grade"), "beam.grade")
-	s.given(b.Has("grade_table"), "beam.grade_table")
 	fyF, fuF, err := st.Grade.Strength(sec.Tf, st.GradeTable)
 	if err != nil {
 		return err
@@ -284,12 +263,10 @@ func (s *checkBuilder) beam(st *optimise.Setup) error {
 	s.Grade = checkGrade{Name: st.Grade.Name, Standard: st.Grade.Standard, Table: st.GradeTable.String(),
 		FyFlange: fyF, FuFlange: fuF, FyWeb: fyW, FuWeb: fuW}
 	s.Length = round(st.Model.Length * toM)
-	for _, sp := range b.Spans {
-		s.Spans = append(s.Spans, round(sp.MM()*toM))
+	for _, sp := range st.Spans {
+		s.Spans = append(s.Spans, round(sp*toM))
 	}
-	s.given(b.Has("overhang.left"), "beam.overhang.left")
-	s.given(b.Has("overhang.right"), "beam.overhang.right")
-	s.Overhang = [2]float64{round(b.LeftOverhang() * toM), round(b.RightOverhang() * toM)}
+	s.Overhang = [2]float64{round(st.Overhang[0] * toM), round(st.Overhang[1] * toM)}
 	for _, sp := range st.Model.Supports {
 		c := checkSupport{X: round(sp.X * toM), Type: sp.Kind.String()}
 		if sp.Kind == beam.Spring {
@@ -298,27 +275,18 @@ func (s *checkBuilder) beam(st *optimise.Setup) error {
 		}
 		s.Supports = append(s.Supports, c)
 	}
-	s.given(b.Has("hinges"), "beam.hinges")
 	s.Hinges = []float64{}
 	for _, h := range st.Model.Hinges {
 		s.Hinges = append(s.Hinges, round(h*toM))
 	}
-	s.given(b.Has("self_weight"), "beam.self_weight")
-	if b.IncludesSelfWeight() {
-		s.SelfWeight = round(st.SelfWeight()) // N/mm = kN/m
-	}
+	s.SelfWeight = round(st.SelfWeight) // N/mm = kN/m
 	return nil
 }
 
 func (s *checkBuilder) cases(st *optimise.Setup) {
-	for _, c := range st.Cases {
+	for i, c := range st.Cases {
 		row := checkCase{Name: c.Name, Kind: c.Kind.String(), Category: c.Category, Pattern: c.Pattern,
-			Loads: len(c.Loads), TotalDown: round(totalDown(c) * toKN)}
-		if jc, ok := st.Job.Cases.Get(c.Name); ok {
-			s.given(jc.Has("pattern"), "cases."+c.Name+".pattern")
-		} else {
-			row.SelfW = true
-		}
+			Loads: len(c.Loads), TotalDown: round(totalDown(c) * toKN), SelfW: i == 0 && st.SelfWeight > 0}
 		if c.Kind.Variable() {
 			switch {
 			case c.Psi != nil:
@@ -349,15 +317,7 @@ func totalDown(c beam.Case) float64 {
 }
 
 func (s *checkBuilder) combinations(st *optimise.Setup) {
-	r, cb := st.Rules, st.Job.Combinations
-	has := func(key string) bool { return cb != nil && cb.Has(key) }
-	s.given(has("rules"), "combinations.rules")
-	s.given(has("uls"), "combinations.uls")
-	s.given(has("sls"), "combinations.sls")
-	for _, k := range jobfile.OverrideKeys() {
-		s.given(has("overrides."+k), "combinations.overrides."+k)
-	}
-	s.given(has("roof_imposed_separate"), "combinations.roof_imposed_separate")
+	r := st.Rules
 	c := checkCombinations{Rules: r.Set, ULS: r.ULS, SLS: r.SLS, GammaGSup: r.GammaGSup, GammaGInf: r.GammaGInf,
 		GammaQ: r.GammaQ, Xi: r.Xi, RoofImposedSeparate: !r.CombineRoofImposed,
 		RoofImposedApplied: r.SeparatesRoofImposed(st.Cases)}
@@ -380,135 +340,44 @@ func (s *checkBuilder) combinations(st *optimise.Setup) {
 	s.Combinations = c
 }
 
-func (s *checkBuilder) limits(job *jobfile.Job) {
-	l := job.Limits
-	if l == nil {
-		l = &jobfile.Limits{}
-	}
-	has := func(key string) bool { return job.Limits != nil && l.Has(key) }
-	s.Limits = checkLimits{KeepRanges: [][2]float64{}, MinPieceLength: round(optimise.DefaultMinPieceLength * toM)}
-	if s.given(has("max_piece_length"), "limits.max_piece_length") && l.MaxPieceLength != nil {
-		v := round(l.MaxPieceLength.MM() * toM)
+func (s *checkBuilder) limits(st *optimise.Setup) {
+	l := st.Limits
+	s.Limits = checkLimits{KeepRanges: [][2]float64{}, MinPieceLength: round(l.MinLength * toM),
+		KeepSupports: round(st.KeepOut.Supports * toM), KeepPointLoads: round(st.KeepOut.PointLoads * toM),
+		MinSplices: st.MinSplices}
+	if !math.IsInf(l.MaxLength, 1) {
+		v := round(l.MaxLength * toM)
 		s.Limits.MaxPieceLength = &v
 	}
-	if s.given(has("min_piece_length"), "limits.min_piece_length") && l.MinPieceLength != nil {
-		s.Limits.MinPieceLength = round(l.MinPieceLength.MM() * toM)
-	}
-	if s.given(has("max_piece_mass"), "limits.max_piece_mass") && l.MaxPieceMass != nil {
-		v := round(l.MaxPieceMass.KG())
+	if !math.IsInf(l.MaxMass, 1) {
+		v := round(l.MaxMass)
 		s.Limits.MaxPieceMass = &v
 	}
-	k := l.KeepOut
-	if k == nil {
-		k = &jobfile.KeepOut{}
+	for _, r := range st.KeepOut.Ranges {
+		s.Limits.KeepRanges = append(s.Limits.KeepRanges, [2]float64{round(r[0] * toM), round(r[1] * toM)})
 	}
-	if s.given(has("keep_out.supports"), "limits.keep_out.supports") && k.Supports != nil {
-		s.Limits.KeepSupports = round(k.Supports.MM() * toM)
-	}
-	if s.given(has("keep_out.point_loads"), "limits.keep_out.point_loads") && k.PointLoads != nil {
-		s.Limits.KeepPointLoads = round(k.PointLoads.MM() * toM)
-	}
-	for _, r := range k.Ranges {
-		s.Limits.KeepRanges = append(s.Limits.KeepRanges, [2]float64{round(r[0].MM() * toM), round(r[1].MM() * toM)})
-	}
-	n := l.Splices
-	if n == nil {
-		n = &jobfile.SpliceCount{}
-	}
-	if s.given(has("splices.min"), "limits.splices.min") && n.Min != nil {
-		s.Limits.MinSplices = *n.Min
-	}
-	if s.given(has("splices.max"), "limits.splices.max") && n.Max != nil {
-		v := *n.Max
+	if st.MaxSplices >= 0 {
+		v := st.MaxSplices
 		s.Limits.MaxSplices = &v
 	}
 }
 
-func (s *checkBuilder) splice(job *jobfile.Job, sp splice.Problem) {
-	o := job.Splice
-	has := func(key string) bool { return o != nil && o.Has(key) }
-	z, def := sp.Sizing, splice.DefaultDesignSpace()
+func (s *checkBuilder) splice(st *optimise.Setup) {
+	sp := st.Splice
+	z := sp.Sizing
 	c := checkSplice{Category: string(z.Category), FrictionClass: string(z.FrictionClass),
-		PlateGrade: sp.PlateSteel.Name, Distribution: string(sp.Distribution), Gap: z.Gap}
-	s.given(has("category"), "splice.category")
-	s.given(has("distribution"), "splice.distribution")
-	s.given(has("gap"), "splice.gap")
-	c.BoltSizes = z.Space.Sizes
-	if !s.given(has("bolts.sizes"), "splice.bolts.sizes") && len(c.BoltSizes) == 0 {
-		c.BoltSizes = def.Sizes
-	}
-	c.BoltClasses = z.Space.Classes
-	if !s.given(has("bolts.classes"), "splice.bolts.classes") {
-		c.BoltClasses = def.Classes
-	}
-	s.given(has("plates.grade"), "splice.plates.grade")
-	c.Thicknesses = z.Space.Thicknesses
-	if !s.given(has("plates.thicknesses"), "splice.plates.thicknesses") {
-		c.Thicknesses = def.Thicknesses
-	}
+		PlateGrade: st.PlateGrade, Distribution: string(sp.Distribution), Gap: z.Gap,
+		BoltSizes: z.Space.Sizes, BoltClasses: z.Space.Classes, Thicknesses: z.Space.Thicknesses}
 	for _, a := range z.Space.Arrangements {
 		c.FlangePlates = append(c.FlangePlates, string(a))
-	}
-	if !s.given(has("flange_plates"), "splice.flange_plates") {
-		c.FlangePlates = nil
-		for _, a := range def.Arrangements {
-			c.FlangePlates = append(c.FlangePlates, string(a))
-		}
 	}
 	s.Splice = c
 }
 
-func (s *checkBuilder) costs(job *jobfile.Job) {
-	k := job.Costs
-	if k == nil {
-		s.given(false, "costs")
-		r := splice.DefaultRates()
-		s.Costs = checkCosts{Indicative: true, Bolt: r.Bolt, BoltClassFactor: r.BoltClassFactor,
-			PlatePerKg: r.PlatePerKg, Hole: r.Hole, FayingPerM2: r.FayingPerM2, Splice: r.Splice}
-		return
-	}
-	c := checkCosts{Bolt: map[string]float64{}, BoltClassFactor: map[string]float64{}}
-	for _, e := range k.Bolt {
-		c.Bolt[e.Key] = e.Value
-	}
-	for _, e := range k.BoltClassFactor {
-		c.BoltClassFactor[e.Key] = e.Value
-	}
-	rates := []struct {
-		key string
-		v   *float64
-		out *float64
-	}{{"plate_per_kg", k.PlatePerKg, &c.PlatePerKg}, {"hole", k.Hole, &c.Hole},
-		{"faying_per_m2", k.FayingPerM2, &c.FayingPerM2}, {"splice", k.Splice, &c.Splice}, {"lift", k.Lift, &c.Lift}}
-	for _, r := range rates {
-		if s.given(r.v != nil, "costs."+r.key) {
-			*r.out = *r.v
-		}
-	}
-	s.Costs = c
-}
-
-func (s *checkBuilder) scan(job *jobfile.Job) {
-	sc := job.Scan
-	s.Scan = checkScan{Step: round(optimise.DefaultStep * toM), Alternatives: optimise.DefaultAlternatives}
-	if s.given(sc != nil && sc.Step != nil, "scan.step") {
-		s.Scan.Step = round(sc.Step.MM() * toM)
-	}
-	if s.given(sc != nil && sc.Alternatives != nil, "scan.alternatives") {
-		s.Scan.Alternatives = *sc.Alternatives
-	}
-}
-
-func (s *checkBuilder) notes(job *jobfile.Job) {
-	if job.Limits == nil || (job.Limits.MaxPieceLength == nil && job.Limits.MaxPieceMass == nil) {
-		s.Notes = append(s.Notes, "no max_piece_length or max_piece_mass: nothing forces a splice, and optimise may find the unspliced beam best")
-	}
-	if len(job.Vehicles) == 0 {
-		s.Notes = append(s.Notes, "no vehicles: transport is not costed")
-	}
-	if job.Costs == nil {
-		s.Notes = append(s.Notes, "no costs block: splices are priced at invented indicative rates, for ranking only, and lifts cost nothing")
-	}
+func (s *checkBuilder) costs(st *optimise.Setup) {
+	r := st.Rates
+	s.Costs = checkCosts{Indicative: !st.Costed, Bolt: r.Bolt, BoltClassFactor: r.BoltClassFactor,
+		PlatePerKg: r.PlatePerKg, Hole: r.Hole, FayingPerM2: r.FayingPerM2, Splice: r.Splice, Lift: st.Lift}
 }
 
 // --- text ------------------------------------------------------------------------------

@@ -86,6 +86,7 @@ type designCase struct {
 	Section    string
 	Grade      string
 	PlateGrade string
+	Indicative bool // the splice is priced at the splice package's indicative rates
 }
 
 // runDesign sizes or checks the splice and writes the sheet; nothing is written on error.
@@ -169,19 +170,13 @@ func designCaseFromJob(opts designOptions) (designCase, error) {
 	if err != nil {
 		return designCase{}, err
 	}
-	p, err := setup.SpliceProblem()
-	if err != nil {
-		return designCase{}, err
-	}
+	p := setup.Splice
 	p.Brief = false
 	p.ULS = splice.Forces(fs[0].ULS)
 	sls := splice.Forces(fs[0].SLS)
 	p.SLS = &sls
 	pos := opts.At
-	plate := setup.Grade.Name
-	if sp := setup.Job.Splice; sp != nil && sp.Plates != nil && sp.Plates.Grade != "" {
-		plate = sp.Plates.Grade
-	}
+	plate := setup.PlateGrade
 	return designCase{
 		Problem:    p,
 		Position:   &pos,
@@ -189,6 +184,7 @@ func designCaseFromJob(opts designOptions) (designCase, error) {
 		Section:    setup.Section.Name,
 		Grade:      setup.Grade.Name,
 		PlateGrade: plate,
+		Indicative: !setup.Costed,
 	}, nil
 }
 
@@ -248,7 +244,7 @@ func designCaseDirect(opts designOptions) (designCase, error) {
 	dc := designCase{
 		Problem: splice.Problem{Member: m, ULS: uls, SLS: sls, PlateSteel: designSteel(plate), Distribution: dist, Sizing: z},
 		Input:   "direct forces (--section, --grade, --uls, --sls)",
-		Section: sec.Name, Grade: grade.Name, PlateGrade: plate.Name,
+		Section: sec.Name, Grade: grade.Name, PlateGrade: plate.Name, Indicative: true,
 	}
 	if opts.AtSet {
 		x := opts.At
@@ -688,7 +684,7 @@ func writeDesignText(w io.Writer, dc designCase, r splice.Result, spliceFile str
 		q.Bolts, q.FlangeBolts, q.WebBolts, q.Holes, q.PlateMass, q.FlangePlateMass, q.WebPlateMass, q.FayingArea)
 	c := r.Cost
 	rates := "indicative rates, for ranking only"
-	if p.Rates.Bolt != nil {
+	if !dc.Indicative {
 		rates = "job rates"
 	}
 	fmt.Fprintf(w, "Cost (%s): bolts %.2f, holes %.2f, plates %.2f", rates, c.Bolts, c.Holes, c.Plates)

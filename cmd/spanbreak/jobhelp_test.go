@@ -280,8 +280,7 @@ func TestReferenceDefaultsMatchCode(t *testing.T) {
 cases: {G: {kind: permanent, loads: [{udl: 10}]}}
 `))
 	require.NoError(t, err)
-	sp, err := setup.SpliceProblem()
-	require.NoError(t, err)
+	sp := setup.Splice
 	rules, err := beam.NewRules("", "", "", nil)
 	require.NoError(t, err)
 	require.False(t, rules.CombineRoofImposed, "the rule on roof imposed loads is on by default, as the reference says")

@@ -159,7 +159,7 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 	return err
 }
 
-func writeResult(w io.Writer, format string, r *optimise.Result) error {
+func writeResult(w io.Writer, format string, r *optimise.Outcome) error {
 	switch format {
 	case "json":
 		return writeJSON(w, toJSONResult(r))
@@ -348,7 +348,7 @@ func toJSONLayout(l optimise.Layout, kind string, recommended bool) jsonLayout {
 	return j
 }
 
-func toJSONLayouts(r *optimise.Result) []jsonLayout {
+func toJSONLayouts(r *optimise.Outcome) []jsonLayout {
 	var out []jsonLayout
 	for i, l := range r.Layouts.ByCount {
 		out = append(out, toJSONLayout(l, "best", i == r.Layouts.Recommended))
@@ -359,9 +359,9 @@ func toJSONLayouts(r *optimise.Result) []jsonLayout {
 	return out
 }
 
-func toJSONResult(r *optimise.Result) jsonResult {
-	j := jsonResult{Input: r.File, Version: version(), Title: r.Title, Units: optimiseUnits(), Section: r.Section,
-		Length: round(r.Length * toM), Step: round(r.Step * toM), Rank: string(r.Rank),
+func toJSONResult(r *optimise.Outcome) jsonResult {
+	j := jsonResult{Input: r.Setup.File, Version: version(), Title: r.Setup.Title, Units: optimiseUnits(), Section: r.Setup.Section.Name,
+		Length: round(r.Setup.Model.Length * toM), Step: round(r.Step * toM), Rank: string(r.Rank),
 		Candidates: make([]jsonCandidate, 0, len(r.Candidates)), Layouts: toJSONLayouts(r), Notes: notes(r), Caution: caution}
 	for _, c := range r.Candidates {
 		j.Candidates = append(j.Candidates, toJSONCandidate(c))
@@ -370,7 +370,7 @@ func toJSONResult(r *optimise.Result) jsonResult {
 }
 
 // notes are the result's notes plus any layout whose fewest trips were not proven.
-func notes(r *optimise.Result) []string {
+func notes(r *optimise.Outcome) []string {
 	out := append([]string{}, r.Notes...)
 	for _, l := range append(append([]optimise.Layout{}, r.Layouts.ByCount...), r.Layouts.Alternatives...) {
 		if !l.Proven {
@@ -395,7 +395,7 @@ func toJSONBatch(outcomes []optimise.BatchOutcome) any {
 		if o.Err != nil {
 			j.Error = ptr(o.Err.Error())
 		} else {
-			j.Best = ptr(toJSONLayout(o.Result.Recommended(), "best", true))
+			j.Best = ptr(toJSONLayout(o.Outcome.Recommended(), "best", true))
 		}
 		jobs = append(jobs, j)
 	}
@@ -410,7 +410,7 @@ func toJSONBatch(outcomes []optimise.BatchOutcome) any {
 // --- CSV -------------------------------------------------------------------------------
 
 // writeCandidatesCSV writes one row per position.
-func writeCandidatesCSV(w io.Writer, r *optimise.Result) error {
+func writeCandidatesCSV(w io.Writer, r *optimise.Outcome) error {
 	cw := csv.NewWriter(w)
 	_ = cw.Write([]string{"x_m", "feasible", "rank", "cost", "bolts", "holes", "plate_mass_kg", "splice_mass_kg",
 		"utilisation", "governing", "uls_M_max_kNm", "uls_M_min_kNm", "uls_V_kN", "splice", "reason"})
@@ -432,7 +432,7 @@ func writeCandidatesCSV(w io.Writer, r *optimise.Result) error {
 }
 
 // writeLayoutsCSV writes one row per layout.
-func writeLayoutsCSV(w io.Writer, r *optimise.Result) error {
+func writeLayoutsCSV(w io.Writer, r *optimise.Outcome) error {
 	cw := csv.NewWriter(w)
 	_ = cw.Write(layoutCSVHeader("kind", "recommended"))
 	for _, j := range toJSONLayouts(r) {
@@ -475,7 +475,7 @@ func writeBatchCSV(w io.Writer, outcomes []optimise.BatchOutcome) error {
 			_ = cw.Write(row)
 			continue
 		}
-		j := toJSONLayout(o.Result.Recommended(), "best", true)
+		j := toJSONLayout(o.Outcome.Recommended(), "best", true)
 		_ = cw.Write(append(append([]string{o.File, o.Title}, layoutCSVRow(j)...), ""))
 	}
 	cw.Flush()
@@ -537,22 +537,22 @@ func (t *trimWriter) Write(p []byte) (int, error) {
 	}
 }
 
-func writeResultText(w io.Writer, r *optimise.Result) {
+func writeResultText(w io.Writer, r *optimise.Outcome) {
 	fmt.Fprintf(w, "spanbreak %s: splice positions and layouts\n", version())
-	fmt.Fprintf(w, "Input:    %s\n", r.File)
-	if r.Title != "" {
-		fmt.Fprintf(w, "Title:    %s\n", r.Title)
+	fmt.Fprintf(w, "Input:    %s\n", r.Setup.File)
+	if r.Setup.Title != "" {
+		fmt.Fprintf(w, "Title:    %s\n", r.Setup.Title)
 	}
-	fmt.Fprintf(w, "Beam:     %s, length %.3f m, %.1f kg/m of steel\n", r.Section, r.Length*toM, r.MassPerLength)
-	splices := fmt.Sprintf("%d or more", r.MinSplices)
-	if r.MaxSplices >= 0 {
-		splices = fmt.Sprintf("%d to %d", r.MinSplices, r.MaxSplices)
+	fmt.Fprintf(w, "Beam:     %s, length %.3f m, %.1f kg/m of steel\n", r.Setup.Section.Name, r.Setup.Model.Length*toM, r.Setup.Section.Mass)
+	splices := fmt.Sprintf("%d or more", r.Setup.MinSplices)
+	if r.Setup.MaxSplices >= 0 {
+		splices = fmt.Sprintf("%d to %d", r.Setup.MinSplices, r.Setup.MaxSplices)
 	}
 	fmt.Fprintf(w, "Limits:   piece length %s to %s, piece mass %s (crane), rigging %.0f kg per piece, %s splices, gap %g mm\n",
-		lengthLimit(r.Limits.MinLength), lengthLimit(r.Limits.MaxLength), massLimit(r.Limits.MaxMass), r.Limits.Rigging, splices, r.Gap)
-	if len(r.Vehicles) > 0 {
+		lengthLimit(r.Limits.MinLength), lengthLimit(r.Limits.MaxLength), massLimit(r.Limits.MaxMass), r.Limits.Rigging, splices, r.Gap())
+	if len(r.Setup.Vehicles) > 0 {
 		var vs []string
-		for _, v := range r.Vehicles {
+		for _, v := range r.Setup.Vehicles {
 			vs = append(vs, fmt.Sprintf("%s (%.2f m, %.0f kg, %s per trip)", v.Name, v.MaxLength*toM, v.Payload, money(v.Cost)))
 		}
 		fmt.Fprintf(w, "Vehicles: %s\n", strings.Join(vs, "; "))
@@ -567,7 +567,7 @@ func writeResultText(w io.Writer, r *optimise.Result) {
 		}
 	}
 	fmt.Fprintf(w, "Scan:     every %.3f m, %d positions: %d admissible, %d in keep-out zones, %d where no splice passes; lift %s per piece\n\n",
-		r.Step*toM, len(r.Candidates), feasible, kept, len(r.Candidates)-feasible-kept, money(r.Lift))
+		r.Step*toM, len(r.Candidates), feasible, kept, len(r.Candidates)-feasible-kept, money(r.Setup.Lift))
 	writeRecommendation(w, r)
 	writeLayoutTable(w, r)
 	writeCandidateSummary(w, r)
@@ -584,7 +584,7 @@ func vehicleText(l optimise.Layout) string {
 	return fmt.Sprintf("%s, %d trip(s)", l.Vehicle, l.Trips)
 }
 
-func writeRecommendation(w io.Writer, r *optimise.Result) {
+func writeRecommendation(w io.Writer, r *optimise.Outcome) {
 	best := r.Recommended()
 	fmt.Fprintf(w, "RECOMMENDATION: %d splice(s)", len(best.Splices))
 	if len(best.Splices) > 0 {
@@ -613,7 +613,7 @@ func writeRecommendation(w io.Writer, r *optimise.Result) {
 }
 
 // candidateIndices maps a layout's splices to the candidates they sit at.
-func candidateIndices(r *optimise.Result, l optimise.Layout) []int {
+func candidateIndices(r *optimise.Outcome, l optimise.Layout) []int {
 	var out []int
 	k := 0
 	for i, c := range r.Candidates {
@@ -625,7 +625,7 @@ func candidateIndices(r *optimise.Result, l optimise.Layout) []int {
 	return out
 }
 
-func writeLayoutTable(w io.Writer, r *optimise.Result) {
+func writeLayoutTable(w io.Writer, r *optimise.Outcome) {
 	row := func(tw io.Writer, l optimise.Layout, mark string) {
 		var ls []string
 		for _, p := range l.Pieces {
@@ -664,7 +664,7 @@ func writeLayoutTable(w io.Writer, r *optimise.Result) {
 
 // writeCandidateSummary lists the admissible stretches with their cheapest position, and the
 // best positions by the ranking.
-func writeCandidateSummary(w io.Writer, r *optimise.Result) {
+func writeCandidateSummary(w io.Writer, r *optimise.Outcome) {
 	fmt.Fprintln(w, "Admissible stretches (consecutive positions where a splice may go)")
 	tw := table(w)
 	fmt.Fprintln(tw, "from [m]\tto [m]\tpositions\tcheapest\tat [m]\tutilisation\tgoverning check")
@@ -724,7 +724,7 @@ func writeBatchText(w io.Writer, outcomes []optimise.BatchOutcome) {
 			errs = append(errs, o.Err.Error())
 			continue
 		}
-		l := o.Result.Recommended()
+		l := o.Outcome.Recommended()
 		vehicle := l.Vehicle
 		if vehicle == "" {
 			vehicle = "-"
@@ -752,8 +752,8 @@ type outFile struct {
 
 // resultFiles renders one job's files: <name>.optimise.txt, <name>.optimise.json,
 // <name>.candidates.csv and <name>.layouts.csv.
-func resultFiles(r *optimise.Result) ([]outFile, error) {
-	base := jobBase(r.File)
+func resultFiles(r *optimise.Outcome) ([]outFile, error) {
+	base := jobBase(r.Setup.File)
 	var txt, js, cand, lay bytes.Buffer
 	writeResultText(&txt, r)
 	if err := writeJSON(&js, toJSONResult(r)); err != nil {
@@ -769,7 +769,7 @@ func resultFiles(r *optimise.Result) ([]outFile, error) {
 		{base + ".candidates.csv", cand.Bytes()}, {base + ".layouts.csv", lay.Bytes()}}, nil
 }
 
-func writeResultFiles(dir string, force bool, r *optimise.Result) error {
+func writeResultFiles(dir string, force bool, r *optimise.Outcome) error {
 	files, err := resultFiles(r)
 	if err != nil {
 		return err
@@ -781,8 +781,8 @@ func writeResultFiles(dir string, force bool, r *optimise.Result) error {
 func writeBatchFiles(dir string, force bool, outcomes []optimise.BatchOutcome, format string, summary []byte) error {
 	var files []outFile
 	for _, o := range outcomes {
-		if o.Result != nil {
-			jf, err := resultFiles(o.Result)
+		if o.Outcome != nil {
+			jf, err := resultFiles(o.Outcome)
 			if err != nil {
 				return err
 			}

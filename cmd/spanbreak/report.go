@@ -108,8 +108,8 @@ func runReport(opts reportOptions, stdout io.Writer) error {
 }
 
 // reportFiles renders the report, every figure as PNG and SVG, and the CSV and JSON files.
-func reportFiles(setup *optimise.Setup, res *optimise.Result, date string) ([]reportFile, error) {
-	rep, err := plots.BuildReport(plots.ReportInput{Setup: setup, Result: res, Version: version(), Date: date, Caution: caution})
+func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]reportFile, error) {
+	rep, err := plots.BuildReport(plots.ReportInput{Outcome: res, Version: version(), Date: date, Caution: caution})
 	if err != nil {
 		return nil, err
 	}

@@ -1,0 +1,246 @@
+package optimise
+
+import (
+	"errors"
+	"math"
+	"slices"
+
+	"spanbreak/beam"
+	"spanbreak/optimise/jobfile"
+	"spanbreak/splice"
+)
+
+// Defaults of the scan when the job and the settings leave them out. Every default of the
+// job file is applied in this package, once, by Prepare; Setup.Defaults lists the key paths
+// that took one.
+const (
+	DefaultStep         = 50.0 // candidate spacing [mm] (DESIGN.md section 6)
+	DefaultAlternatives = 3    // near-best alternative layouts listed
+	ExtraCounts         = 2    // splice counts reported beyond the fewest feasible
+)
+
+// SelfWeightCase is the name of the permanent case that carries the beam's own weight.
+const SelfWeightCase = jobfile.SelfWeightCase
+
+// Setup is a job file resolved once into everything a run needs: the beam model, load cases
+// and combinations, the section and grade, the splice problem (without forces), the piece
+// limits, keep-out zones, vehicles, costs, splice counts and scan settings, each with its
+// default applied where the file leaves it out. Every command and renderer reads the job
+// through a Setup; only this package sees the decoded file.
+type Setup struct {
+	File  string // the job file's name as given ("demo.yaml" for the demo)
+	Title string
+
+	Section    beam.Section
+	Grade      beam.Grade
+	GradeTable beam.GradeTable
+	Model      beam.Model
+	Spans      []float64  // as written, left to right [mm]
+	Overhang   [2]float64 // left, right [mm]
+	SelfWeight float64    // the section's weight per length when the job includes it, else 0 [N/mm]
+
+	Cases        []beam.Case // job cases in file order; SelfWeightCase first when self weight is on
+	Rules        beam.Rules
+	Combinations []beam.Combination
+
+	// Splice is the job's splice sizing problem without forces (Brief: the scan's numbers
+	// only); its design space lists what the job gives, with the package defaults filled in.
+	Splice     splice.Problem
+	PlateGrade string // name of the cover plates' steel
+	Costed     bool   // the job has a costs block; without one the splice rates are indicative
+	Rates      splice.Rates
+
+	Limits     PieceLimits // from the job; a run's settings may add rigging
+	KeepOut    KeepOutSpec
+	Zones      []Zone
+	MinSplices int
+	MaxSplices int // < 0: no limit
+	Vehicles   []Vehicle
+	Lift       float64 // per piece erected [currency]
+
+	Step         float64 // candidate spacing [mm]
+	Alternatives int     // near-best alternative layouts
+
+	// Defaults lists the key paths the file leaves out, which took their default, sorted.
+	Defaults []string
+	// Notes say what the file's omissions mean for the results (no limits, vehicles, costs).
+	Notes []string
+
+	job *jobfile.Job // for locating problems in the file
+}
+
+// Where locates a job-file key path ("limits.keep_out", "scan.step") in the file, for
+// messages; a key the file does not hold points at its nearest written parent.
+func (s *Setup) Where(key string) jobfile.Loc { return s.job.Where(key) }
+
+// IsDefault reports whether a key path took its default.
+func (s *Setup) IsDefault(key string) bool {
+	_, found := slices.BinarySearch(s.Defaults, key)
+	return found
+}
+
+// Prepare reads a job file's bytes: strict decoding and validation (every problem of the file
+// in one pass, with line, column and key path), then resolves the section and grade, the
+// model, the cases and combinations, the splice problem, the limits, vehicles, costs and scan.
+// The error is a jobfile.Problems where it can point into the file.
+func Prepare(file string, data []byte) (*Setup, error) {
+	job, err := jobfile.LoadJob(file, data)
+	if job == nil {
+		return nil, err
+	}
+	// the section and grade are looked up even when the file has other problems, so that
+	// every problem is reported in one pass
+	var probs jobfile.Problems
+	if !errors.As(err, &probs) && err != nil {
+		return nil, err
+	}
+	s := &Setup{File: file, Title: job.Title, job: job}
+	if job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil {
+		s.section(&probs)
+		if s.Section.Name != "" {
+			s.grade(&probs)
+		}
+	}
+	if len(probs) > 0 {
+		return nil, probs.Err()
+	}
+	s.model()
+	s.cases()
+	s.combinations(&probs)
+	if len(probs) > 0 {
+		return nil, probs.Err()
+	}
+	s.transport()
+	s.Zones = KeepOutZones(s.Model, s.Cases, s.KeepOut, s.Limits.MinLength)
+	sp, err := s.spliceProblem()
+	if err != nil {
+		return nil, err
+	}
+	s.Splice = sp
+	s.PlateGrade, s.Rates = sp.PlateSteel.Name, sp.Rates
+	s.Defaults = defaultsOf(job)
+	s.Notes = notesOf(job)
+	return s, nil
+}
+
+// transport resolves the limits, keep-outs, splice counts, vehicles, lift rate and scan.
+func (s *Setup) transport() {
+	job := s.job
+	s.Limits = PieceLimits{MaxLength: math.Inf(1), MaxMass: math.Inf(1), MinLength: DefaultMinPieceLength}
+	s.MaxSplices = -1
+	if l := job.Limits; l != nil {
+		if l.MaxPieceLength != nil {
+			s.Limits.MaxLength = l.MaxPieceLength.MM()
+		}
+		// Without min_piece_length a piece must still be long enough to carry the cover
+		// plates of the splices at its ends without the plates of two splices meeting.
+		if l.MinPieceLength != nil {
+			s.Limits.MinLength = l.MinPieceLength.MM()
+		}
+		if l.MaxPieceMass != nil {
+			s.Limits.MaxMass = l.MaxPieceMass.KG()
+		}
+		if l.Rigging != nil {
+			s.Limits.Rigging = l.Rigging.KG()
+		}
+		if k := l.KeepOut; k != nil {
+			if k.Supports != nil {
+				s.KeepOut.Supports = k.Supports.MM()
+			}
+			if k.PointLoads != nil {
+				s.KeepOut.PointLoads = k.PointLoads.MM()
+			}
+			for _, r := range k.Ranges {
+				s.KeepOut.Ranges = append(s.KeepOut.Ranges, [2]float64{r[0].MM(), r[1].MM()})
+			}
+		}
+		if c := l.Splices; c != nil {
+			if c.Min != nil {
+				s.MinSplices = *c.Min
+			}
+			if c.Max != nil {
+				s.MaxSplices = *c.Max
+			}
+		}
+	}
+	for _, v := range job.Vehicles {
+		s.Vehicles = append(s.Vehicles, Vehicle{Name: v.Name, MaxLength: v.MaxLength.MM(), Payload: v.Payload.KG(), Cost: v.Cost})
+	}
+	if c := job.Costs; c != nil {
+		s.Costed = true
+		s.Lift = deref(c.Lift)
+	}
+	s.Step, s.Alternatives = DefaultStep, DefaultAlternatives
+	if sc := job.Scan; sc != nil {
+		if sc.Step != nil {
+			s.Step = sc.Step.MM()
+		}
+		if sc.Alternatives != nil {
+			s.Alternatives = *sc.Alternatives
+		}
+	}
+}
+
+// defaultsOf lists the key paths a job leaves out, which take their default.
+func defaultsOf(job *jobfile.Job) []string {
+	var out []string
+	given := func(present bool, path string) bool {
+		if !present {
+			out = append(out, path)
+		}
+		return present
+	}
+	b := job.Beam
+	for _, k := range []string{"grade", "grade_table", "overhang.left", "overhang.right", "hinges", "self_weight"} {
+		given(b.Has(k), "beam."+k)
+	}
+	for _, e := range job.Cases {
+		given(e.Value.Has("pattern"), "cases."+e.Key+".pattern")
+	}
+	cb := job.Combinations
+	keys := []string{"rules", "uls", "sls", "roof_imposed_separate"}
+	for _, k := range jobfile.OverrideKeys() {
+		keys = append(keys, "overrides."+k)
+	}
+	for _, k := range keys {
+		given(cb != nil && cb.Has(k), "combinations."+k)
+	}
+	l := job.Limits
+	for _, k := range []string{"max_piece_length", "min_piece_length", "max_piece_mass", "keep_out.supports",
+		"keep_out.point_loads", "splices.min", "splices.max"} {
+		given(l != nil && l.Has(k), "limits."+k)
+	}
+	o := job.Splice
+	for _, k := range []string{"category", "distribution", "gap", "bolts.sizes", "bolts.classes", "plates.grade",
+		"plates.thicknesses", "flange_plates"} {
+		given(o != nil && o.Has(k), "splice."+k)
+	}
+	if c := job.Costs; given(c != nil, "costs") {
+		for _, r := range []struct {
+			key string
+			v   *float64
+		}{{"plate_per_kg", c.PlatePerKg}, {"hole", c.Hole}, {"faying_per_m2", c.FayingPerM2}, {"splice", c.Splice}, {"lift", c.Lift}} {
+			given(r.v != nil, "costs."+r.key)
+		}
+	}
+	sc := job.Scan
+	given(sc != nil && sc.Step != nil, "scan.step")
+	given(sc != nil && sc.Alternatives != nil, "scan.alternatives")
+	slices.Sort(out)
+	return slices.Compact(out)
+}
+
+// notesOf says what a job's omissions mean for its results.
+func notesOf(job *jobfile.Job) []string {
+	out := []string{}
+	if job.Limits == nil || (job.Limits.MaxPieceLength == nil && job.Limits.MaxPieceMass == nil) {
+		out = append(out, "no max_piece_length or max_piece_mass: nothing forces a splice, and optimise may find the unspliced beam best")
+	}
+	if len(job.Vehicles) == 0 {
+		out = append(out, "no vehicles: transport is not costed")
+	}
+	if job.Costs == nil {
+		out = append(out, "no costs block: splices are priced at invented indicative rates, for ranking only, and lifts cost nothing")
+	}
+	return out
+}

@@ -1,0 +1,55 @@
+package optimise
+
+import (
+	"errors"
+	"fmt"
+	"math"
+
+	"spanbreak/splice"
+)
+
+// SpliceSheet is one splice of a layout with its full calculation.
+type SpliceSheet struct {
+	Name     string  // "S1", "S2", ... from the left
+	Position float64 // [mm]
+	Forces   PositionForces
+	Result   splice.Result // every check with its formula, numbers and clause
+}
+
+// Sheets re-checks the splice the scan sized at each of the positions xs [mm] (candidates of
+// the scan), this time with the full calculation trace (the scan keeps only the numbers), and
+// returns the sheets from the left, named S1, S2, ….
+func (o *Outcome) Sheets(xs []float64) ([]SpliceSheet, error) {
+	p := o.Setup.Splice
+	p.Brief = false
+	var sheets []SpliceSheet
+	var errs []error
+	for i, x := range xs {
+		c := o.CandidateAt(x)
+		if c == nil || !c.Feasible {
+			errs = append(errs, fmt.Errorf("splice %d at %s: no feasible candidate at that position", i+1, metres(x)))
+			continue
+		}
+		q := p
+		q.ULS = splice.Forces(c.Forces.ULS)
+		sls := splice.Forces(c.Forces.SLS)
+		q.SLS = &sls
+		r, err := splice.Verify(q, c.Design.Geometry)
+		if err != nil {
+			errs = append(errs, fmt.Errorf("splice %d at %s: %w", i+1, metres(x), err))
+			continue
+		}
+		sheets = append(sheets, SpliceSheet{Name: fmt.Sprintf("S%d", i+1), Position: x, Forces: c.Forces, Result: r})
+	}
+	return sheets, errors.Join(errs...)
+}
+
+// CandidateAt is the candidate at x [mm] (within a micrometre), or nil.
+func (o *Outcome) CandidateAt(x float64) *Candidate {
+	for i := range o.Candidates {
+		if math.Abs(o.Candidates[i].X-x) < 1e-3 {
+			return &o.Candidates[i]
+		}
+	}
+	return nil
+}
