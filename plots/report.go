@@ -9,6 +9,7 @@ import (
 
 	"spanbreak/beam"
 	"spanbreak/optimise"
+	"spanbreak/plots/encode"
 	"spanbreak/splice"
 )
 
@@ -232,7 +233,7 @@ func (w *reportWriter) summary(title, version string) {
 	for _, sh := range w.r.Sheets {
 		g := sh.Result.Governing
 		rows = append(rows, [2]string{fmt.Sprintf("Splice %s at %s", sh.Name, fmtM(sh.Position)),
-			fmt.Sprintf("%s; governing check %s (%s), utilisation %s", spliceWords(sh.Result.Geometry), g.ID, g.Clause,
+			fmt.Sprintf("%s; governing check %s (%s), utilisation %s", encode.SpliceWords(sh.Result.Geometry), g.ID, g.Clause,
 				fixed(sh.Result.Utilisation, 3))})
 	}
 	d.keyValues(rows)
@@ -294,18 +295,6 @@ func layoutWords(l optimise.Layout) string {
 		s += fmt.Sprintf("; %s × %d", l.Vehicle, l.Trips)
 	}
 	return s
-}
-
-// spliceWords describes a splice's bolts and plates in one line.
-func spliceWords(g splice.Geometry) string {
-	f := g.Flange
-	out := fmt.Sprintf("%s %s cat. %s; flange plates %s×%s", g.Bolt.Size, g.Bolt.Class, g.Category, mm(f.Outer.Thickness), mm(f.Outer.Width))
-	if f.HasInner() {
-		out += fmt.Sprintf(" + 2×%s×%s", mm(f.Inner.Thickness), mm(f.Inner.Width))
-	}
-	out += fmt.Sprintf(", %d×%d bolts each side; web plates 2×%s×%s, %d×%d bolts each side",
-		f.Columns, f.Rows, mm(g.Web.Thickness), mm(g.Web.Depth), g.Web.Columns, g.Web.Rows)
-	return out
 }
 
 // money prints a cost in whole currency units (the rates are indicative to that precision).
@@ -645,7 +634,7 @@ func (w *reportWriter) sheet(sh *optimise.SpliceSheet) {
 	d.newPage()
 	d.heading(0, sheetTitle(sh), 100)
 	d.para(fmt.Sprintf("%s. Checks to EN 1993-1-8 and EN 1993-1-1 with the recommended partial factors; every check "+
-		"below gives its clause, formula, numbers and utilisation.", spliceWords(r.Geometry)))
+		"below gives its clause, formula, numbers and utilisation.", encode.SpliceWords(r.Geometry)))
 	d.heading(1, "Design forces", 60)
 	u, sl := r.Actions.ULS, r.Actions.SLS
 	d.table(table{Columns: []column{{"state", 1, false}, {"M max [kNm]", 1, true}, {"M min [kNm]", 1, true},

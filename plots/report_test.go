@@ -189,35 +189,6 @@ func TestReportInputErrors(t *testing.T) {
 	assert.ErrorContains(t, err, "no layout")
 }
 
-func TestChosenSplicesJSON(t *testing.T) {
-	_, res, rep := demoReport(t)
-	rec := res.Recommended()
-	raw, err := json.Marshal(ChosenSplicesJSON(rep.Sheets))
-	require.NoError(t, err)
-	var out []struct {
-		Name      string           `json:"name"`
-		Governing string           `json:"governing"`
-		Position  float64          `json:"position"`
-		Checks    []map[string]any `json:"checks"`
-		Splice    map[string]any   `json:"splice"`
-	}
-	require.NoError(t, json.Unmarshal(raw, &out))
-	require.Len(t, out, len(rec.Splices))
-	for i, x := range rec.Splices {
-		assert.Equal(t, fmt.Sprintf("S%d", i+1), out[i].Name)
-		assert.InDelta(t, x/1e3, out[i].Position, 1e-6)
-		assert.Equal(t, rep.Sheets[i].Result.Governing.ID, out[i].Governing)
-		require.Len(t, out[i].Checks, len(rep.Sheets[i].Result.Checks))
-		for _, key := range []string{"id", "clause", "state", "demand", "resistance", "unit", "utilisation", "pass"} {
-			assert.Contains(t, out[i].Checks[0], key, "DESIGN.md section 7 check key")
-		}
-		for _, key := range []string{"bolt", "category", "friction_class", "holes", "gap", "flange", "web"} {
-			assert.Contains(t, out[i].Splice, key, "splice file key (DESIGN.md section 8)")
-		}
-	}
-	assert.Equal(t, "[]", mustJSON(t, ChosenSplicesJSON(nil)), "no splice is an empty list, not null")
-}
-
 func mustJSON(t *testing.T, v any) string {
 	t.Helper()
 	b, err := json.Marshal(v)

@@ -13,6 +13,7 @@ import (
 	"github.com/stretchr/testify/require"
 
 	"spanbreak/optimise"
+	"spanbreak/plots/encode"
 )
 
 // checkJob exercises most of what check reports (invented data): an overhang, a spring, every
@@ -52,16 +53,16 @@ vehicles:
   - {name: flatbed, max_length: 9.0, payload: 10000, cost: 300}
 `
 
-func checkJSON(t *testing.T, job string) checkSummary {
+func checkJSON(t *testing.T, job string) encode.JobSummary {
 	t.Helper()
 	var out bytes.Buffer
 	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, job), Format: "json"}, &out))
-	var s checkSummary
+	var s encode.JobSummary
 	require.NoError(t, json.Unmarshal(out.Bytes(), &s))
 	return s
 }
 
-func caseByName(t *testing.T, s checkSummary, name string) checkCase {
+func caseByName(t *testing.T, s encode.JobSummary, name string) encode.JobCase {
 	t.Helper()
 	for _, c := range s.Cases {
 		if c.Name == name {
@@ -69,7 +70,7 @@ func caseByName(t *testing.T, s checkSummary, name string) checkCase {
 		}
 	}
 	t.Fatalf("no case %s in %+v", name, s.Cases)
-	return checkCase{}
+	return encode.JobCase{}
 }
 
 func TestCheckReportsWhatItUnderstood(t *testing.T) {
@@ -154,7 +155,7 @@ func TestCheckReportsWhatItUnderstood(t *testing.T) {
 	assert.Nil(t, s.Limits.MaxSplices, "no limit")
 	assert.Equal(t, [][2]float64{{2.0, 2.5}}, s.Limits.KeepRanges)
 	require.Len(t, s.Vehicles, 1)
-	assert.Equal(t, checkVehicle{"flatbed", 9, 10000, 300}, s.Vehicles[0])
+	assert.Equal(t, encode.JobVehicle{Name: "flatbed", MaxLength: 9, Payload: 10000, Cost: 300}, s.Vehicles[0])
 	assert.True(t, s.Costs.Indicative, "no costs block")
 	assert.Contains(t, s.Defaults, "costs")
 	assert.Contains(t, s.Defaults, "splice.category")
@@ -204,7 +205,7 @@ func TestCheckTotalsMatchReactions(t *testing.T) {
 				require.NoError(t, err)
 				sum := 0.0
 				for _, rc := range r.Reactions {
-					sum += rc.Fz * toKN
+					sum += rc.Fz * encode.ToKN
 				}
 				assert.InDelta(t, sum, c.TotalDown, 1e-6*(1+math.Abs(sum)), "case %s: ΣFz = total load", c.Name)
 			}

@@ -259,16 +259,6 @@ func TestDesignCommandFlags(t *testing.T) {
 	assert.Nil(t, doc.Position)
 }
 
-// TestDesignWeldedSection: "welded HxBxTWxTF" builds a plate girder.
-func TestDesignWeldedSection(t *testing.T) {
-	s, err := designSection("welded 900x300x12x25")
-	require.NoError(t, err)
-	assert.Equal(t, 900.0, s.H)
-	assert.Equal(t, 300.0, s.B)
-	_, err = designSection("welded 900x300")
-	assert.Error(t, err)
-}
-
 // TestDesignFromJob: the job mode takes the envelope forces at --at. For the simply supported
 // IPE 300 of simpleJob (6 m, 10 kN/m permanent) at mid-span: M_max = 1.35 wL²/8 = 60.75 kNm and
 // M_min = 1.00 wL²/8 = 45 kNm (EN 1990 Table A1.2(B) γG,sup and γG,inf; standard beam tables);

@@ -16,6 +16,7 @@ import (
 	"spanbreak/beam"
 	"spanbreak/optimise"
 	"spanbreak/optimise/jobfile"
+	"spanbreak/plots/encode"
 	"spanbreak/splice"
 )
 
@@ -293,7 +294,7 @@ cases: {G: {kind: permanent, loads: [{udl: 10}]}}
 	}
 	var thicknesses []string
 	for _, th := range space.Thicknesses {
-		thicknesses = append(thicknesses, shortNum(th))
+		thicknesses = append(thicknesses, encode.Number(th))
 	}
 	rows := []struct {
 		ref  map[string]refEntry
@@ -308,13 +309,13 @@ cases: {G: {kind: permanent, loads: [{udl: 10}]}}
 		{job, "combinations.sls", rules.SLS},
 		{job, "combinations.roof_imposed_separate", strconv.FormatBool((*jobfile.Combinations)(nil).SeparatesRoofImposed())},
 		{job, "splice.category", string(sp.Sizing.Category)},
-		{job, "splice.gap", shortNum(sp.Sizing.Gap)},
+		{job, "splice.gap", encode.Number(sp.Sizing.Gap)},
 		{job, "splice.distribution", string(dist)},
 		{job, "splice.bolts.sizes", strings.Join(space.Sizes, ", ")},
 		{job, "splice.bolts.classes", strings.Join(space.Classes, ", ")},
 		{job, "splice.plates.thicknesses", strings.Join(thicknesses, ", ")},
 		{job, "splice.flange_plates", strings.Join(arrangements, ", ")},
-		{job, "scan.step", shortNum(optimise.DefaultStep*toM) + " m"},
+		{job, "scan.step", encode.Number(optimise.DefaultStep*encode.ToM) + " m"},
 		{job, "scan.alternatives", strconv.Itoa(optimise.DefaultAlternatives)},
 		{job, "limits.splices.min", "0"},
 		{sf, "bolt.threads_in_shear_plane", strconv.FormatBool(jobfile.BoltSpec{}.ThreadsInShear())},

@@ -14,6 +14,7 @@ import (
 
 	"spanbreak/optimise"
 	"spanbreak/plots"
+	"spanbreak/plots/encode"
 )
 
 // reportOptions are the inputs of `spanbreak report`.
@@ -99,7 +100,7 @@ func runReport(opts reportOptions, stdout io.Writer) error {
 	fmt.Fprintf(stdout, "spanbreak %s: report on %s\n", version(), setup.File)
 	fmt.Fprintf(stdout, "Recommended: %d splice(s)", len(rec.Splices))
 	for i, x := range rec.Splices {
-		fmt.Fprintf(stdout, "%s S%d at %.3f m", map[bool]string{true: ":", false: ","}[i == 0], i+1, x*toM)
+		fmt.Fprintf(stdout, "%s S%d at %.3f m", map[bool]string{true: ":", false: ","}[i == 0], i+1, x*encode.ToM)
 	}
 	fmt.Fprintf(stdout, "; total cost %.0f\n", rec.Cost.Total)
 	fmt.Fprintf(stdout, "Wrote %d files to %s\n", len(files), opts.Out)
@@ -126,17 +127,13 @@ func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]r
 	// scan.csv, layouts.csv and result.json are the optimise command's machine contract,
 	// with the recommended layout's splices and their full checks added to the JSON
 	var scan, layouts, result bytes.Buffer
-	if err := writeCandidatesCSV(&scan, res); err != nil {
+	if err := encode.WriteCandidatesCSV(&scan, res); err != nil {
 		return nil, err
 	}
-	if err := writeLayoutsCSV(&layouts, res); err != nil {
+	if err := encode.WriteLayoutsCSV(&layouts, res); err != nil {
 		return nil, err
 	}
-	out := struct {
-		jsonResult
-		ChosenSplices []plots.SpliceJSON `json:"chosen_splices"`
-	}{toJSONResult(res), plots.ChosenSplicesJSON(rep.Sheets)}
-	if err := writeJSON(&result, out); err != nil {
+	if err := encode.WriteJSON(&result, encode.ReportResult(res)); err != nil {
 		return nil, err
 	}
 	files = append(files, reportFile{"scan.csv", scan.Bytes()}, reportFile{"layouts.csv", layouts.Bytes()},

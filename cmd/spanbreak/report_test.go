@@ -14,6 +14,7 @@ import (
 	"github.com/stretchr/testify/require"
 
 	"spanbreak/optimise"
+	"spanbreak/plots/encode"
 )
 
 // demoSplices is the number of splices of the demo's recommended layout.
@@ -89,7 +90,7 @@ func TestRunReportDemoWritesTheFolder(t *testing.T) {
 	text := stdout.String()
 	assert.Contains(t, text, fmt.Sprintf("Wrote %d files to %s", len(want), out))
 	assert.Contains(t, text, "Recommended:")
-	assert.Contains(t, text, caution)
+	assert.Contains(t, text, encode.Caution)
 }
 
 func TestRunReportReplacesOnlyWithForce(t *testing.T) {

@@ -1,0 +1,72 @@
+package optimise
+
+import (
+	"fmt"
+	"slices"
+
+	"spanbreak/beam"
+)
+
+// BeamSettings choose where and what AnalyseBeam evaluates.
+type BeamSettings struct {
+	Step float64   // station spacing [mm], used when At is empty
+	At   []float64 // positions [mm], in the order given
+	Case string    // one load case, unfactored; "" for the envelopes of every combination
+}
+
+// BeamOutcome is the analysis of a job's beam at a list of stations: the exact ULS and SLS
+// envelopes over every combination and pattern, or one load case unfactored.
+type BeamOutcome struct {
+	Setup     *Setup
+	Analysis  *beam.Analysis
+	Stations  []beam.Station
+	Envelopes *beam.Envelopes  // nil for one case
+	Case      *beam.CaseResult // nil for the envelopes
+}
+
+// SettingError is a run setting (not the job file) that cannot be used: a command line
+// reports it against its flag.
+type SettingError struct {
+	Setting string // "step", "at" or "case"
+	Err     error
+}
+
+func (e *SettingError) Error() string { return e.Setting + ": " + e.Err.Error() }
+func (e *SettingError) Unwrap() error { return e.Err }
+
+// AnalyseBeam analyses the job's beam at the stations the settings ask for.
+func AnalyseBeam(s *Setup, set BeamSettings) (*BeamOutcome, error) {
+	an, err := s.Analyse()
+	if err != nil {
+		return nil, err
+	}
+	o := &BeamOutcome{Setup: s, Analysis: an}
+	if len(set.At) > 0 {
+		if o.Stations, err = an.StationsAt(set.At); err != nil {
+			return nil, &SettingError{"at", err}
+		}
+	} else if o.Stations, err = an.Stations(set.Step); err != nil {
+		return nil, &SettingError{"step", err}
+	}
+	if set.Case != "" {
+		if !slices.ContainsFunc(s.Cases, func(c beam.Case) bool { return c.Name == set.Case }) {
+			names := make([]string, len(s.Cases))
+			for i, c := range s.Cases {
+				names[i] = c.Name
+			}
+			return nil, &SettingError{"case", fmt.Errorf("no load case %q (cases: %v)", set.Case, names)}
+		}
+		r, err := an.CaseResult(set.Case, o.Stations)
+		if err != nil {
+			return nil, err
+		}
+		o.Case = &r
+		return o, nil
+	}
+	env, err := an.Envelopes(s.Combinations, o.Stations)
+	if err != nil {
+		return nil, err
+	}
+	o.Envelopes = &env
+	return o, nil
+}

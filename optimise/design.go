@@ -1,0 +1,187 @@
+package optimise
+
+import (
+	"fmt"
+	"strconv"
+	"strings"
+
+	"spanbreak/beam"
+	"spanbreak/optimise/jobfile"
+	"spanbreak/splice"
+)
+
+// DesignOutcome is one splice sized or checked at one position, with what the sheet's header
+// says about where its forces came from.
+type DesignOutcome struct {
+	Problem    splice.Problem // the forces and the splice options, Brief off
+	Result     splice.Result  // every check in full
+	Position   *float64       // [m], nil when unknown (direct forces without a position)
+	Input      string         // what the forces came from
+	SpliceFile string         // the fixed splice checked, "" when sized
+	Section    string
+	Grade      string
+	PlateGrade string
+	Indicative bool // priced at the splice package's indicative rates
+}
+
+// DesignAt sizes the cheapest splice for the envelope forces at x [mm] (the worse side at a
+// jump), or checks the fixed splice when one is given (file names it for the sheet).
+func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*DesignOutcome, error) {
+	if !(x >= 0 && x <= s.Model.Length) {
+		return nil, &SettingError{"at", fmt.Errorf("%g m is off the beam (0 to %g m)", x/1e3, s.Model.Length/1e3)}
+	}
+	an, err := s.Analyse()
+	if err != nil {
+		return nil, err
+	}
+	fs, err := DesignForces(an, s.Combinations, []float64{x})
+	if err != nil {
+		return nil, err
+	}
+	p := s.Splice
+	p.Brief = false
+	p.ULS = splice.Forces(fs[0].ULS)
+	sls := splice.Forces(fs[0].SLS)
+	p.SLS = &sls
+	pos := x / 1e3
+	o := &DesignOutcome{Problem: p, Position: &pos, SpliceFile: file,
+		Input:   fmt.Sprintf("%s, envelopes at x = %.3f m (worse side at a jump)", s.File, pos),
+		Section: s.Section.Name, Grade: s.Grade.Name, PlateGrade: s.PlateGrade, Indicative: !s.Costed}
+	return o, o.run(fixed)
+}
+
+// DirectSpec are the inputs of a design from direct forces: the section and grades by name,
+// the forces, and the splice options for sizing.
+type DirectSpec struct {
+	Section       string // catalogue name, or "welded HxBxTWxTF" [mm]
+	Grade         string // beam steel grade
+	PlateGrade    string // cover plate grade; "" means the beam's
+	ULS           splice.Forces
+	SLS           *splice.Forces // nil when none is given
+	Position      *float64       // [m], for the sheet only
+	Category      string         // A, B or C (sizing)
+	FrictionClass string         // A to D (sizing, categories B and C)
+	Distribution  string         // proportional or flanges-only
+	Gap           float64        // between the beam ends [mm] (sizing)
+}
+
+// DirectDesign sizes the cheapest splice for direct forces, or checks the fixed splice when
+// one is given. A name or option that cannot be used is a *SettingError naming it.
+func DirectDesign(spec DirectSpec, fixed *splice.Geometry, file string) (*DesignOutcome, error) {
+	sec, err := directSection(spec.Section)
+	if err != nil {
+		return nil, &SettingError{"section", err}
+	}
+	grade, err := beam.LookupGrade(spec.Grade)
+	if err != nil {
+		return nil, &SettingError{"grade", err}
+	}
+	plate := grade
+	if strings.TrimSpace(spec.PlateGrade) != "" {
+		if plate, err = beam.LookupGrade(spec.PlateGrade); err != nil {
+			return nil, &SettingError{"plate-grade", err}
+		}
+	}
+	m, err := splice.NewMember(sec, directSteel(grade))
+	if err != nil {
+		return nil, err
+	}
+	dist, err := splice.ParseDistribution(spec.Distribution)
+	if err != nil {
+		return nil, &SettingError{"distribution", err}
+	}
+	z := splice.Sizing{Gap: spec.Gap}
+	if fixed == nil {
+		if z.Category, err = splice.ParseCategory(spec.Category); err != nil {
+			return nil, &SettingError{"category", err}
+		}
+		if z.Category.Preloaded() {
+			if z.FrictionClass, err = splice.ParseFrictionClass(spec.FrictionClass); err != nil {
+				return nil, &SettingError{"friction-class", err}
+			}
+		}
+	}
+	o := &DesignOutcome{
+		Problem:  splice.Problem{Member: m, ULS: spec.ULS, SLS: spec.SLS, PlateSteel: directSteel(plate), Distribution: dist, Sizing: z},
+		Position: spec.Position, SpliceFile: file,
+		Input:   "direct forces (--section, --grade, --uls, --sls)",
+		Section: sec.Name, Grade: grade.Name, PlateGrade: plate.Name, Indicative: true,
+	}
+	return o, o.run(fixed)
+}
+
+// run sizes the splice, or checks the fixed one.
+func (o *DesignOutcome) run(fixed *splice.Geometry) error {
+	var err error
+	if fixed != nil {
+		o.Result, err = splice.Verify(o.Problem, *fixed)
+		if err != nil {
+			return fmt.Errorf("%s: %w", o.SpliceFile, err)
+		}
+		return nil
+	}
+	o.Result, err = splice.Size(o.Problem)
+	return err
+}
+
+// directSteel adapts a grade to the splice package, with EN 1993-1-1 Table 3.1 strengths.
+func directSteel(g beam.Grade) splice.Steel {
+	return splice.Steel{Name: g.Name, Strength: func(t float64) (float64, float64, error) { return g.Strength(t, beam.TableEN1993) }}
+}
+
+// directSection reads a catalogue name or "welded HxBxTWxTF" [mm].
+func directSection(name string) (beam.Section, error) {
+	s := strings.TrimSpace(name)
+	if rest, ok := strings.CutPrefix(strings.ToLower(s), "welded"); ok {
+		parts := strings.FieldsFunc(rest, func(r rune) bool { return r == 'x' || r == '×' || r == ' ' || r == '*' })
+		if len(parts) != 4 {
+			return beam.Section{}, fmt.Errorf("%q: a welded section is \"welded HxBxTWxTF\" in mm, e.g. \"welded 900x300x12x25\"", name)
+		}
+		var v [4]float64
+		for i, p := range parts {
+			f, err := strconv.ParseFloat(p, 64)
+			if err != nil {
+				return beam.Section{}, fmt.Errorf("%q: %q is not a size in mm", name, p)
+			}
+			v[i] = f
+		}
+		return beam.WeldedSection(v[0], v[1], v[2], v[3])
+	}
+	return beam.LookupSection(s)
+}
+
+// LoadSpliceFile reads a splice file (DESIGN.md section 8): strict decoding and validation,
+// every problem located; the geometry in mm.
+func LoadSpliceFile(file string, data []byte) (splice.Geometry, error) {
+	sf, err := jobfile.LoadSpliceFile(file, data)
+	if err != nil {
+		return splice.Geometry{}, err
+	}
+	opt := func(v *jobfile.Millimetres) float64 {
+		if v == nil {
+			return 0
+		}
+		return v.MM()
+	}
+	fl, wb := sf.Flange, sf.Web
+	g := splice.Geometry{
+		Bolt:          splice.Bolt{Size: sf.Bolt.Size, Class: sf.Bolt.Class, ThreadsInShearPlane: sf.Bolt.ThreadsInShear()},
+		Category:      splice.Category(strings.ToUpper(strings.TrimSpace(sf.Category))),
+		FrictionClass: splice.FrictionClass(strings.ToUpper(strings.TrimSpace(sf.FrictionClass))),
+		Holes:         splice.HoleType(sf.Holes),
+		Gap:           sf.Gap.MM(),
+		Flange: splice.FlangeSplice{
+			Outer:   splice.Plate{Thickness: fl.Outer.Thickness.MM(), Width: fl.Outer.Width.MM()},
+			Columns: fl.Columns, Rows: fl.Rows, Gauge: fl.Gauge.MM(), Pitch: opt(fl.Pitch),
+			End: fl.End.MM(), Edge: fl.Edge.MM(),
+		},
+		Web: splice.WebSplice{
+			Thickness: wb.Thickness.MM(), Depth: wb.Depth.MM(), Columns: wb.Columns, Rows: wb.Rows,
+			Pitch: opt(wb.Pitch), Spacing: opt(wb.Spacing), End: wb.End.MM(), Edge: wb.Edge.MM(),
+		},
+	}
+	if fl.Inner != nil {
+		g.Flange.Inner = splice.Plate{Thickness: fl.Inner.Thickness.MM(), Width: fl.Inner.Width.MM()}
+	}
+	return g, nil
+}

@@ -1,0 +1,516 @@
+package encode
+
+import (
+	"errors"
+	"fmt"
+	"io"
+	"math"
+	"sort"
+	"strconv"
+	"strings"
+
+	"spanbreak/optimise"
+)
+
+// WriteOptimise writes an optimisation as "json", "csv" (the candidates) or "text".
+func WriteOptimise(w io.Writer, format string, r *optimise.Outcome) error {
+	switch format {
+	case "json":
+		return WriteJSON(w, Optimise(r))
+	case "csv":
+		return WriteCandidatesCSV(w, r)
+	}
+	WriteOptimiseText(w, r)
+	return nil
+}
+
+// WriteBatch writes a batch summary as "json", "csv" or "text".
+func WriteBatch(w io.Writer, format string, outcomes []optimise.BatchOutcome) error {
+	switch format {
+	case "json":
+		return WriteJSON(w, Batch(outcomes))
+	case "csv":
+		return WriteBatchCSV(w, outcomes)
+	}
+	WriteBatchText(w, outcomes)
+	return nil
+}
+
+// --- JSON ------------------------------------------------------------------------------
+
+func optimiseUnits() map[string]string {
+	return map[string]string{
+		"x": "m", "length": "m", "from": "m", "to": "m", "step": "m", "splices": "m", "mass_kg": "kg",
+		"plate_mass_kg": "kg", "splice_mass_kg": "kg", "cost": "currency of the job's rates", "utilisation": "ratio (demand/resistance)",
+	}
+}
+
+// CandidateDoc is one scanned position of the optimise document.
+type CandidateDoc struct {
+	X            Num     `json:"x"`
+	Feasible     bool    `json:"feasible"`
+	Reason       *string `json:"reason"`
+	Cost         *Num    `json:"cost"`
+	Bolts        *int    `json:"bolts"`
+	PlateMass    *Num    `json:"plate_mass_kg"`
+	SpliceMass   *Num    `json:"splice_mass_kg"`
+	Utilisation  *Num    `json:"utilisation"`
+	Governing    *string `json:"governing"`
+	Splice       *string `json:"splice"`
+	Rank         *int    `json:"rank"`
+	KeepOutZone  *string `json:"keep_out"`
+	ForcesULSMax *Num    `json:"uls_M_max"`
+	ForcesULSMin *Num    `json:"uls_M_min"`
+	ForcesULSV   *Num    `json:"uls_V"`
+}
+
+// PieceDoc is one piece of a layout.
+type PieceDoc struct {
+	From   Num `json:"from"`
+	To     Num `json:"to"`
+	Length Num `json:"length"`
+	Mass   Num `json:"mass_kg"`
+}
+
+// CostDoc is the cost of a layout.
+type CostDoc struct {
+	Splices   Num `json:"splices"`
+	Transport Num `json:"transport"`
+	Erection  Num `json:"erection"`
+	Total     Num `json:"total"`
+}
+
+// LayoutDoc is one layout: where the splices go, the pieces, the vehicle and the cost.
+type LayoutDoc struct {
+	Kind        string     `json:"kind"` // "best" for its splice count, or "alternative"
+	Recommended bool       `json:"recommended"`
+	Splices     []Num      `json:"splices"`
+	Pieces      []PieceDoc `json:"pieces"`
+	Vehicle     *string    `json:"vehicle"`
+	Trips       int        `json:"trips"`
+	Cost        CostDoc    `json:"cost"`
+}
+
+// OptimiseDoc is the JSON document of optimise (DESIGN.md section 7).
+type OptimiseDoc struct {
+	Input      string            `json:"input"`
+	Version    string            `json:"version"`
+	Title      string            `json:"title"`
+	Units      map[string]string `json:"units"`
+	Section    string            `json:"section"`
+	Length     Num               `json:"length"`
+	Step       Num               `json:"step"`
+	Rank       string            `json:"rank"`
+	Candidates []CandidateDoc    `json:"candidates"`
+	Layouts    []LayoutDoc       `json:"layouts"`
+	Notes      []string          `json:"notes"`
+	Caution    string            `json:"caution"`
+}
+
+func ptr[T any](v T) *T { return &v }
+
+func candidateDoc(c optimise.Candidate) CandidateDoc {
+	j := CandidateDoc{X: Num(c.X * ToM), Feasible: c.Feasible}
+	if !c.Feasible {
+		j.Reason = ptr(c.Reason)
+	}
+	if c.Zone != nil {
+		j.KeepOutZone = ptr(c.Zone.Key)
+		return j
+	}
+	f := c.Forces.ULS
+	j.ForcesULSMax, j.ForcesULSMin, j.ForcesULSV = NumPtr(f.MMax*ToKNm), NumPtr(f.MMin*ToKNm), NumPtr(f.V*ToKN)
+	d := c.Design
+	j.Utilisation, j.Governing, j.Splice = NumPtr(d.Utilisation), ptr(d.Governing), ptr(d.Summary)
+	if c.Feasible {
+		j.Cost, j.Bolts, j.PlateMass = NumPtr(d.Cost), ptr(d.Bolts), NumPtr(d.PlateMass)
+		j.SpliceMass, j.Rank = NumPtr(d.Mass()), ptr(c.Rank)
+	}
+	return j
+}
+
+// layoutDoc is the shape of one layout wherever a layout appears.
+func layoutDoc(l optimise.Layout, kind string, recommended bool) LayoutDoc {
+	j := LayoutDoc{Kind: kind, Recommended: recommended, Splices: Nums(l.Splices, ToM), Trips: l.Trips,
+		Cost: CostDoc{Num(l.Cost.Splices), Num(l.Cost.Transport), Num(l.Cost.Erection), Num(l.Cost.Total)}}
+	for _, p := range l.Pieces {
+		j.Pieces = append(j.Pieces, PieceDoc{Num(p.From * ToM), Num(p.To * ToM), Num(p.Length * ToM), Num(p.Mass)})
+	}
+	if l.Vehicle != "" {
+		j.Vehicle = ptr(l.Vehicle)
+	}
+	return j
+}
+
+func layoutDocs(r *optimise.Outcome) []LayoutDoc {
+	var out []LayoutDoc
+	for i, l := range r.Layouts.ByCount {
+		out = append(out, layoutDoc(l, "best", i == r.Layouts.Recommended))
+	}
+	for _, l := range r.Layouts.Alternatives {
+		out = append(out, layoutDoc(l, "alternative", false))
+	}
+	return out
+}
+
+// Optimise is the JSON document of an optimisation.
+func Optimise(r *optimise.Outcome) OptimiseDoc {
+	j := OptimiseDoc{Input: r.Setup.File, Version: Version(), Title: r.Setup.Title, Units: optimiseUnits(), Section: r.Setup.Section.Name,
+		Length: Num(r.Setup.Model.Length * ToM), Step: Num(r.Step * ToM), Rank: string(r.Rank),
+		Candidates: make([]CandidateDoc, 0, len(r.Candidates)), Layouts: layoutDocs(r), Notes: notes(r), Caution: Caution}
+	for _, c := range r.Candidates {
+		j.Candidates = append(j.Candidates, candidateDoc(c))
+	}
+	return j
+}
+
+// notes are the result's notes plus any layout whose fewest trips were not proven.
+func notes(r *optimise.Outcome) []string {
+	out := append([]string{}, r.Notes...)
+	for _, l := range append(append([]optimise.Layout{}, r.Layouts.ByCount...), r.Layouts.Alternatives...) {
+		if !l.Proven {
+			out = append(out, fmt.Sprintf("the layout with splices at %s m: the search for fewer trips stopped at its work bound; "+
+				"a layout with fewer trips may exist", positions(l.Splices)))
+		}
+	}
+	return out
+}
+
+type batchJobDoc struct {
+	File  string     `json:"file"`
+	Title string     `json:"title"`
+	Best  *LayoutDoc `json:"best"`
+	Error *string    `json:"error"`
+}
+
+// BatchDoc is the JSON document of a batch: the best layout of each job, or its error.
+type BatchDoc struct {
+	Version string            `json:"version"`
+	Units   map[string]string `json:"units"`
+	Jobs    []batchJobDoc     `json:"jobs"`
+	Caution string            `json:"caution"`
+}
+
+// Batch is the JSON document of a batch.
+func Batch(outcomes []optimise.BatchOutcome) BatchDoc {
+	jobs := make([]batchJobDoc, 0, len(outcomes))
+	for _, o := range outcomes {
+		j := batchJobDoc{File: o.File, Title: o.Title}
+		if o.Err != nil {
+			j.Error = ptr(o.Err.Error())
+		} else {
+			j.Best = ptr(layoutDoc(o.Outcome.Recommended(), "best", true))
+		}
+		jobs = append(jobs, j)
+	}
+	return BatchDoc{Version(), optimiseUnits(), jobs, Caution}
+}
+
+// --- CSV -------------------------------------------------------------------------------
+
+// WriteCandidatesCSV writes one row per scanned position.
+func WriteCandidatesCSV(w io.Writer, r *optimise.Outcome) error {
+	rows := make([][]string, 0, len(r.Candidates))
+	for _, c := range r.Candidates {
+		row := []string{Number(c.X * ToM), strconv.FormatBool(c.Feasible), "", "", "", "", "", "", "", "", "", "", "", "", c.Reason}
+		if c.Zone == nil {
+			d, f := c.Design, c.Forces.ULS
+			row[8], row[9], row[10], row[11], row[12], row[13] = Number(d.Utilisation), d.Governing, Number(f.MMax*ToKNm),
+				Number(f.MMin*ToKNm), Number(f.V*ToKN), d.Summary
+			if c.Feasible {
+				row[2], row[3], row[4], row[5] = strconv.Itoa(c.Rank), Number(d.Cost), strconv.Itoa(d.Bolts), strconv.Itoa(d.Holes)
+				row[6], row[7] = Number(d.PlateMass), Number(d.Mass())
+			}
+		}
+		rows = append(rows, row)
+	}
+	return WriteCSV(w, []string{"x_m", "feasible", "rank", "cost", "bolts", "holes", "plate_mass_kg", "splice_mass_kg",
+		"utilisation", "governing", "uls_M_max_kNm", "uls_M_min_kNm", "uls_V_kN", "splice", "reason"}, rows)
+}
+
+// WriteLayoutsCSV writes one row per layout.
+func WriteLayoutsCSV(w io.Writer, r *optimise.Outcome) error {
+	var rows [][]string
+	for _, j := range layoutDocs(r) {
+		rows = append(rows, append([]string{j.Kind, strconv.FormatBool(j.Recommended)}, layoutCSVRow(j)...))
+	}
+	return WriteCSV(w, layoutCSVHeader("kind", "recommended"), rows)
+}
+
+func layoutCSVHeader(first ...string) []string {
+	return append(first, "splice_count", "splices_m", "pieces_m", "piece_mass_kg", "vehicle", "trips",
+		"cost_splices", "cost_transport", "cost_erection", "cost_total")
+}
+
+func layoutCSVRow(j LayoutDoc) []string {
+	var pieces, masses []string
+	for _, p := range j.Pieces {
+		pieces = append(pieces, Number(float64(p.Length)))
+		masses = append(masses, Number(float64(p.Mass)))
+	}
+	var xs []string
+	for _, x := range j.Splices {
+		xs = append(xs, Number(float64(x)))
+	}
+	vehicle := ""
+	if j.Vehicle != nil {
+		vehicle = *j.Vehicle
+	}
+	c := j.Cost
+	return []string{strconv.Itoa(len(j.Splices)), strings.Join(xs, ";"), strings.Join(pieces, ";"), strings.Join(masses, ";"),
+		vehicle, strconv.Itoa(j.Trips), Number(float64(c.Splices)), Number(float64(c.Transport)), Number(float64(c.Erection)), Number(float64(c.Total))}
+}
+
+// WriteBatchCSV writes the best layout of each job of a batch, or its error.
+func WriteBatchCSV(w io.Writer, outcomes []optimise.BatchOutcome) error {
+	var rows [][]string
+	for _, o := range outcomes {
+		if o.Err != nil {
+			row := make([]string, 13)
+			row[0], row[1], row[12] = o.File, o.Title, o.Err.Error()
+			rows = append(rows, row)
+			continue
+		}
+		j := layoutDoc(o.Outcome.Recommended(), "best", true)
+		rows = append(rows, append(append([]string{o.File, o.Title}, layoutCSVRow(j)...), ""))
+	}
+	return WriteCSV(w, append(layoutCSVHeader("file", "title"), "error"), rows)
+}
+
+// --- text ------------------------------------------------------------------------------
+
+func positions(xs []float64) string {
+	if len(xs) == 0 {
+		return "none"
+	}
+	s := make([]string, len(xs))
+	for i, x := range xs {
+		s[i] = fmt.Sprintf("%.3f", x*ToM)
+	}
+	return strings.Join(s, ", ")
+}
+
+func money(v float64) string { return fmt.Sprintf("%.2f", Clean(v)) }
+
+func lengthLimit(mm float64) string {
+	if math.IsInf(mm, 1) {
+		return "no limit"
+	}
+	return fmt.Sprintf("%.3f m", mm*ToM)
+}
+
+func massLimit(kg float64) string {
+	if math.IsInf(kg, 1) {
+		return "no limit"
+	}
+	return fmt.Sprintf("%.0f kg", kg)
+}
+
+// WriteOptimiseText writes an optimisation for reading: limits, the recommendation, the
+// layouts, the admissible stretches and the best positions.
+func WriteOptimiseText(w io.Writer, r *optimise.Outcome) {
+	fmt.Fprintf(w, "spanbreak %s: splice positions and layouts\n", Version())
+	fmt.Fprintf(w, "Input:    %s\n", r.Setup.File)
+	if r.Setup.Title != "" {
+		fmt.Fprintf(w, "Title:    %s\n", r.Setup.Title)
+	}
+	fmt.Fprintf(w, "Beam:     %s, length %.3f m, %.1f kg/m of steel\n", r.Setup.Section.Name, r.Setup.Model.Length*ToM, r.Setup.Section.Mass)
+	splices := fmt.Sprintf("%d or more", r.Setup.MinSplices)
+	if r.Setup.MaxSplices >= 0 {
+		splices = fmt.Sprintf("%d to %d", r.Setup.MinSplices, r.Setup.MaxSplices)
+	}
+	fmt.Fprintf(w, "Limits:   piece length %s to %s, piece mass %s (crane), rigging %.0f kg per piece, %s splices, gap %g mm\n",
+		lengthLimit(r.Limits.MinLength), lengthLimit(r.Limits.MaxLength), massLimit(r.Limits.MaxMass), r.Limits.Rigging, splices, r.Gap())
+	if len(r.Setup.Vehicles) > 0 {
+		var vs []string
+		for _, v := range r.Setup.Vehicles {
+			vs = append(vs, fmt.Sprintf("%s (%.2f m, %.0f kg, %s per trip)", v.Name, v.MaxLength*ToM, v.Payload, money(v.Cost)))
+		}
+		fmt.Fprintf(w, "Vehicles: %s\n", strings.Join(vs, "; "))
+	}
+	feasible, kept := 0, 0
+	for _, c := range r.Candidates {
+		switch {
+		case c.Feasible:
+			feasible++
+		case c.Zone != nil:
+			kept++
+		}
+	}
+	fmt.Fprintf(w, "Scan:     every %.3f m, %d positions: %d admissible, %d in keep-out zones, %d where no splice passes; lift %s per piece\n\n",
+		r.Step*ToM, len(r.Candidates), feasible, kept, len(r.Candidates)-feasible-kept, money(r.Setup.Lift))
+	writeRecommendation(w, r)
+	writeLayoutTable(w, r)
+	writeCandidateSummary(w, r)
+	for _, n := range notes(r) {
+		fmt.Fprintf(w, "Note: %s\n", n)
+	}
+	fmt.Fprintf(w, "\n%s\n", Caution)
+}
+
+func vehicleText(l optimise.Layout) string {
+	if l.Vehicle == "" {
+		return "no vehicle costed"
+	}
+	return fmt.Sprintf("%s, %d trip(s)", l.Vehicle, l.Trips)
+}
+
+func writeRecommendation(w io.Writer, r *optimise.Outcome) {
+	best := r.Recommended()
+	fmt.Fprintf(w, "RECOMMENDATION: %d splice(s)", len(best.Splices))
+	if len(best.Splices) > 0 {
+		fmt.Fprintf(w, " at %s m", positions(best.Splices))
+	}
+	fmt.Fprintf(w, ", %d piece(s), %s; total %s\n", len(best.Pieces), vehicleText(best), money(best.Cost.Total))
+	fmt.Fprintf(w, "  cost: splices %s + transport %s + erection %s = %s\n", money(best.Cost.Splices),
+		money(best.Cost.Transport), money(best.Cost.Erection), money(best.Cost.Total))
+	tw := Table(w)
+	fmt.Fprintln(tw, "  piece\tfrom [m]\tto [m]\tlength [m]\tmass [kg]\tof which splice [kg]")
+	for i, p := range best.Pieces {
+		fmt.Fprintf(tw, "  %d\t%.3f\t%.3f\t%.3f\t%.1f\t%.1f\n", i+1, p.From*ToM, p.To*ToM, p.Length*ToM, p.Mass, p.SpliceMass)
+	}
+	tw.Flush()
+	if len(best.Splices) > 0 {
+		tw = Table(w)
+		fmt.Fprintln(tw, "  splice at [m]\tcost\tbolts\tutilisation\tgoverning check\tsplice")
+		for _, ci := range candidateIndices(r, best) {
+			c := r.Candidates[ci]
+			fmt.Fprintf(tw, "  %.3f\t%s\t%d\t%.3f\t%s\t%s\n", c.X*ToM, money(c.Design.Cost), c.Design.Bolts,
+				c.Design.Utilisation, c.Design.Governing, c.Design.Summary)
+		}
+		tw.Flush()
+	}
+	fmt.Fprintln(w)
+}
+
+// candidateIndices maps a layout's splices to the candidates they sit at.
+func candidateIndices(r *optimise.Outcome, l optimise.Layout) []int {
+	var out []int
+	k := 0
+	for i, c := range r.Candidates {
+		if k < len(l.Splices) && c.X == l.Splices[k] {
+			out = append(out, i)
+			k++
+		}
+	}
+	return out
+}
+
+func writeLayoutTable(w io.Writer, r *optimise.Outcome) {
+	row := func(tw io.Writer, l optimise.Layout, mark string) {
+		var ls []string
+		for _, p := range l.Pieces {
+			ls = append(ls, fmt.Sprintf("%.2f", p.Length*ToM))
+		}
+		vehicle := l.Vehicle
+		if vehicle == "" {
+			vehicle = "-"
+		}
+		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%s\t%s\t%s\t%s\t%s\n", len(l.Splices), positions(l.Splices), strings.Join(ls, " / "),
+			vehicle, l.Trips, money(l.Cost.Splices), money(l.Cost.Transport), money(l.Cost.Erection), money(l.Cost.Total), mark)
+	}
+	header := "splices\tat [m]\tpieces [m]\tvehicle\ttrips\tsplices\ttransport\terection\ttotal\t"
+	fmt.Fprintln(w, "Best layout for each number of splices")
+	tw := Table(w)
+	fmt.Fprintln(tw, header)
+	for i, l := range r.Layouts.ByCount {
+		mark := ""
+		if i == r.Layouts.Recommended {
+			mark = "<- recommended"
+		}
+		row(tw, l, mark)
+	}
+	tw.Flush()
+	if len(r.Layouts.Alternatives) > 0 {
+		fmt.Fprintln(w, "\nNear-best alternatives (each moves a splice to another stretch or splice design)")
+		tw = Table(w)
+		fmt.Fprintln(tw, header)
+		for _, l := range r.Layouts.Alternatives {
+			row(tw, l, "")
+		}
+		tw.Flush()
+	}
+	fmt.Fprintln(w)
+}
+
+// writeCandidateSummary lists the admissible stretches with their cheapest position, and the
+// best positions by the ranking.
+func writeCandidateSummary(w io.Writer, r *optimise.Outcome) {
+	fmt.Fprintln(w, "Admissible stretches (consecutive positions where a splice may go)")
+	tw := Table(w)
+	fmt.Fprintln(tw, "from [m]\tto [m]\tpositions\tcheapest\tat [m]\tutilisation\tgoverning check")
+	cs := r.Candidates
+	for i := 0; i < len(cs); {
+		if !cs[i].Feasible {
+			i++
+			continue
+		}
+		j, best := i, i
+		for j < len(cs) && cs[j].Feasible {
+			if cs[j].Design.Cost < cs[best].Design.Cost {
+				best = j
+			}
+			j++
+		}
+		b := cs[best]
+		fmt.Fprintf(tw, "%.3f\t%.3f\t%d\t%s\t%.3f\t%.3f\t%s\n", cs[i].X*ToM, cs[j-1].X*ToM, j-i, money(b.Design.Cost), b.X*ToM,
+			b.Design.Utilisation, b.Design.Governing)
+		i = j
+	}
+	tw.Flush()
+	var ranked []optimise.Candidate
+	for _, c := range cs {
+		if c.Feasible {
+			ranked = append(ranked, c)
+		}
+	}
+	sort.SliceStable(ranked, func(a, b int) bool { return ranked[a].Rank < ranked[b].Rank })
+	if len(ranked) > 5 {
+		ranked = ranked[:5]
+	}
+	fmt.Fprintf(w, "\nBest positions by %s\n", r.Rank)
+	tw = Table(w)
+	fmt.Fprintln(tw, "rank\tat [m]\tcost\tbolts\tplates [kg]\tutilisation\tsplice")
+	for _, c := range ranked {
+		fmt.Fprintf(tw, "%d\t%.3f\t%s\t%d\t%.1f\t%.3f\t%s\n", c.Rank, c.X*ToM, money(c.Design.Cost), c.Design.Bolts,
+			c.Design.PlateMass, c.Design.Utilisation, c.Design.Summary)
+	}
+	tw.Flush()
+	fmt.Fprintln(w)
+}
+
+// WriteBatchText writes the summary table of a batch.
+func WriteBatchText(w io.Writer, outcomes []optimise.BatchOutcome) {
+	fmt.Fprintf(w, "spanbreak %s: best layout of each job\n\n", Version())
+	tw := Table(w)
+	fmt.Fprintln(tw, "file\ttitle\tsplices\tat [m]\tvehicle\ttrips\ttotal\tstatus")
+	var errs []string
+	for _, o := range outcomes {
+		if o.Err != nil {
+			status := "failed (below)"
+			var inf *optimise.InfeasibleError
+			if errors.As(o.Err, &inf) {
+				status = "no layout within the limits (below)"
+			}
+			fmt.Fprintf(tw, "%s\t%s\t\t\t\t\t\t%s\n", o.File, o.Title, status)
+			errs = append(errs, o.Err.Error())
+			continue
+		}
+		l := o.Outcome.Recommended()
+		vehicle := l.Vehicle
+		if vehicle == "" {
+			vehicle = "-"
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%d\t%s\t%s\t%d\t%s\tok\n", o.File, o.Title, len(l.Splices), positions(l.Splices), vehicle,
+			l.Trips, money(l.Cost.Total))
+	}
+	tw.Flush()
+	if len(errs) > 0 {
+		fmt.Fprintln(w, "\nProblems")
+		for _, e := range errs {
+			fmt.Fprintln(w, e)
+		}
+	}
+	fmt.Fprintf(w, "\n%s\n", Caution)
+}
+

@@ -1,0 +1,66 @@
+package encode
+
+import (
+	"fmt"
+	"math"
+	"strconv"
+
+	"spanbreak/optimise"
+	"spanbreak/splice"
+)
+
+// SpliceWords describes a splice's bolts and plates in one line.
+func SpliceWords(g splice.Geometry) string {
+	f := g.Flange
+	out := fmt.Sprintf("%s %s cat. %s; flange plates %s×%s", g.Bolt.Size, g.Bolt.Class, g.Category, size(f.Outer.Thickness), size(f.Outer.Width))
+	if f.HasInner() {
+		out += fmt.Sprintf(" + 2×%s×%s", size(f.Inner.Thickness), size(f.Inner.Width))
+	}
+	out += fmt.Sprintf(", %d×%d bolts each side; web plates 2×%s×%s, %d×%d bolts each side",
+		f.Columns, f.Rows, size(g.Web.Thickness), size(g.Web.Depth), g.Web.Columns, g.Web.Rows)
+	return out
+}
+
+// size prints a plate or bolt dimension [mm] to 0.1 mm, whole millimetres without a point.
+func size(v float64) string { return strconv.FormatFloat(Round(math.Round(v*10)/10), 'f', -1, 64) }
+
+// ChosenSpliceDoc is one splice of the recommended layout with its full checks. Units:
+// position m, the splice in the keys and units of the splice file (mm), each check in its
+// own unit, plate mass kg, cost in the job's currency.
+type ChosenSpliceDoc struct {
+	Name        string     `json:"name"`
+	Position    Num        `json:"position"`
+	Summary     string     `json:"summary"`
+	Splice      SpliceDoc  `json:"splice"`
+	Checks      []CheckDoc `json:"checks"`
+	Utilisation Num        `json:"utilisation"`
+	Governing   string     `json:"governing"`
+	Cost        Num        `json:"cost"`
+	Bolts       int        `json:"bolts"`
+	PlateMass   Num        `json:"plate_mass_kg"`
+}
+
+// ChosenSplices is the shape of the sheets of a layout, left to right; no sheet is an empty
+// list.
+func ChosenSplices(sheets []optimise.SpliceSheet) []ChosenSpliceDoc {
+	out := []ChosenSpliceDoc{}
+	for _, sh := range sheets {
+		r := sh.Result
+		out = append(out, ChosenSpliceDoc{Name: sh.Name, Position: Num(sh.Position * ToM), Summary: SpliceWords(r.Geometry),
+			Splice: Splice(r.Geometry), Checks: Checks(r.Checks), Utilisation: Num(r.Utilisation), Governing: r.Governing.ID,
+			Cost: Num(r.Cost.Total), Bolts: r.Quantities.Bolts, PlateMass: Num(r.Quantities.PlateMass)})
+	}
+	return out
+}
+
+// ReportResultDoc is result.json of the report folder: the optimise document with the
+// recommended layout's splices and their full checks.
+type ReportResultDoc struct {
+	OptimiseDoc
+	ChosenSplices []ChosenSpliceDoc `json:"chosen_splices"`
+}
+
+// ReportResult is the document of result.json.
+func ReportResult(o *optimise.Outcome) ReportResultDoc {
+	return ReportResultDoc{Optimise(o), ChosenSplices(o.Chosen)}
+}
