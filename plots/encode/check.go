@@ -41,11 +41,11 @@ type JobSummary struct {
 	Supports     []checkSupport    `json:"supports"`
 	Hinges       []float64         `json:"hinges"`
 	SelfWeight   float64           `json:"self_weight"` // kN/m, 0 when off
-	Cases        []JobCase       `json:"cases"`
+	Cases        []JobCase         `json:"cases"`
 	Combinations checkCombinations `json:"combinations"`
 	Regions      []string          `json:"pattern_regions"`
 	Limits       checkLimits       `json:"limits"`
-	Vehicles     []JobVehicle    `json:"vehicles"`
+	Vehicles     []JobVehicle      `json:"vehicles"`
 	Splice       checkSplice       `json:"splice"`
 	Costs        checkCosts        `json:"costs"`
 	Scan         checkScan         `json:"scan"`

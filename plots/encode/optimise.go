@@ -513,4 +513,3 @@ func WriteBatchText(w io.Writer, outcomes []optimise.BatchOutcome) {
 	}
 	fmt.Fprintf(w, "\n%s\n", Caution)
 }
-

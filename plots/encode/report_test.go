@@ -63,4 +63,3 @@ func TestChosenSplicesJSON(t *testing.T) {
 	}
 	assert.Equal(t, "[]", mustJSON(t, ChosenSplices(nil)), "no splice is an empty list, not null")
 }
-
