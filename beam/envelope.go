@@ -197,13 +197,14 @@ func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*
 // past the range of float64 by themselves, else the combination, naming the case with the
 // largest part.
 func (b *envelopeBuilder) combinationFault(ac *accumulator, c, q int, quantity string, x float64) *NonFiniteError {
-	biggest, size := -1, -1.0
+	biggest, size := -1, math.Inf(-1)
 	for _, f := range b.terms[c] {
 		p, n := ac.pos[f.k][q], ac.neg[f.k][q]
 		if !isFinite(p) || !isFinite(n) {
 			return &NonFiniteError{Case: b.a.cases[f.k].Name, Load: -1, Quantity: quantity, X: x}
 		}
-		if s := f.hi * (p - n); s > size {
+		// compared as logarithms: the factored parts themselves may overflow
+		if s := math.Log(f.hi) + math.Log(p-n); s > size {
 			biggest, size = f.k, s
 		}
 	}
