@@ -135,6 +135,9 @@ func Optimise(s *Setup, d Designer, set Settings) (*Result, error) {
 		workers = 1
 	}
 	cands, stats, err := Scan(an, s.Combinations, xs, res.Zones, d, ScanSettings{Exhaustive: set.Exhaustive, Workers: workers})
+	if probs, ok := s.LocateOverflow(err); ok {
+		return nil, probs // the envelopes overflow
+	}
 	if err != nil {
 		// the designer refuses the splice options (the forces are the analysis's own)
 		var probs jobfile.Problems

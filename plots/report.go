@@ -105,6 +105,9 @@ func (r *Report) build(in ReportInput) error {
 		return err
 	}
 	env, err := an.Envelopes(s.Combinations, st)
+	if probs, ok := s.LocateOverflow(err); ok {
+		return probs
+	}
 	if err != nil {
 		return err
 	}

@@ -70,6 +70,9 @@ func runAnalyse(opts analyseOptions, w io.Writer) error {
 	var buf bytes.Buffer
 	if opts.Case != "" {
 		r, err := an.CaseResult(opts.Case, st)
+		if probs, ok := setup.LocateOverflow(err); ok {
+			return probs
+		}
 		if err != nil {
 			return usageError(fmt.Errorf("--case: %w", err))
 		}
@@ -79,6 +82,9 @@ func runAnalyse(opts analyseOptions, w io.Writer) error {
 		}
 	} else {
 		env, err := an.Envelopes(setup.Combinations, st)
+		if probs, ok := setup.LocateOverflow(err); ok {
+			return probs
+		}
 		if err != nil {
 			return err
 		}

@@ -166,6 +166,9 @@ func designCaseFromJob(opts designOptions) (designCase, error) {
 		return designCase{}, usageError(fmt.Errorf("--at %g m is off the beam (0 to %g m)", opts.At, setup.Model.Length/1e3))
 	}
 	fs, err := optimise.DesignForces(an, setup.Combinations, []float64{x})
+	if probs, ok := setup.LocateOverflow(err); ok {
+		return designCase{}, probs
+	}
 	if err != nil {
 		return designCase{}, err
 	}
