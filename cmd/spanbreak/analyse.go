@@ -278,8 +278,12 @@ func writeHeader(w io.Writer, s *optimise.Setup, what string) {
 	if s.Job.Title != "" {
 		fmt.Fprintf(w, "Title:    %s\n", s.Job.Title)
 	}
-	fmt.Fprintf(w, "Beam:     %s, %s, length %.3f m, Iy = %.4g cm4, self weight %.3f kN/m\n",
-		s.Section.Name, s.Grade.Name, s.Model.Length*toM, s.Section.Iy/1e4, s.SelfWeight())
+	sw := "self weight off"
+	if s.Job.Beam.IncludesSelfWeight() {
+		sw = fmt.Sprintf("self weight %.3f kN/m", s.SelfWeight())
+	}
+	fmt.Fprintf(w, "Beam:     %s, %s, length %.3f m, Iy = %.4g cm4, %s\n",
+		s.Section.Name, s.Grade.Name, s.Model.Length*toM, s.Section.Iy/1e4, sw)
 	var sup []string
 	for _, sp := range s.Model.Supports {
 		sup = append(sup, fmt.Sprintf("%.3f m %s", sp.X*toM, sp.Kind))
