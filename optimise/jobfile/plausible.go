@@ -3,6 +3,7 @@ package jobfile
 import (
 	"fmt"
 	"math"
+	"strconv"
 )
 
 // Plausible ranges of the beam's geometry and loads, in the internal units (mm, N, N·mm,
@@ -69,8 +70,8 @@ const (
 
 // PlausibleRange is the range LoadJob accepts for one value of the beam or its loads.
 type PlausibleRange struct {
-	Key  string // the job-file reference entry that documents it, e.g. "beam.spans"
-	What string // the value bounded, e.g. "a span", "the beam length"
+	Keys []string // the job-file reference entries that document it, e.g. "beam.spans"
+	What string   // the value bounded, e.g. "a span", "the beam length"
 	// Min and Max are the least and largest value in the internal unit (mm, N, N·mm, N/mm);
 	// Max is +Inf where there is no upper limit. Loads may act either way: Min is −Max.
 	Min, Max float64
@@ -87,22 +88,23 @@ func PlausibleRanges() []PlausibleRange {
 	kn := func(v float64) string { return KiloNewtons(v).String() }
 	kNm := func(v float64) string { return KiloNewtonMetres(v).String() }
 	line := func(v float64) string { return LineLoad(v).String() }
-	spring := func(v float64) string { return Stiffness(v).String() }
+	// ten digits, so that the limit reads 1000000000 kN/m rather than 1e+09
+	spring := func(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) + " kN/m" }
 	inf := math.Inf(1)
 	ranges := []PlausibleRange{
-		{id: rangeSpan, Key: "beam.spans", What: "a span", Min: MinSpan, Max: MaxSpan, show: m},
-		{id: rangeLength, Key: "beam.spans", What: "a beam length (spans and overhangs)", Max: MaxBeamLength, show: m},
-		{id: rangeOverhang, Key: "beam.overhang", What: "an overhang", Max: MaxOverhang, show: m},
-		{id: rangeSpring, Key: "beam.supports[].k", What: "a spring stiffness", Max: MaxSpringStiffness, show: spring},
-		{id: rangeWeldedH, Key: "beam.section.welded.h", What: "a depth h", Max: MaxWeldedDepth, show: mm},
-		{id: rangeWeldedB, Key: "beam.section.welded.b", What: "a flange width b", Max: MaxWeldedWidth, show: mm},
-		{id: rangeWeldedTw, Key: "beam.section.welded.tw", What: "a web thickness tw", Min: MinWeldedPlate, Max: inf, show: mm},
-		{id: rangeWeldedTf, Key: "beam.section.welded.tf", What: "a flange thickness tf", Min: MinWeldedPlate, Max: inf, show: mm},
-		{id: rangeUDL, Key: "cases.NAME.loads[].udl", What: "a line load", Max: MaxLineLoad, signed: true, show: line},
-		{id: rangeTrapezoid, Key: "cases.NAME.loads[].trapezoid", What: "a line load", Max: MaxLineLoad, signed: true, show: line},
-		{id: rangePoint, Key: "cases.NAME.loads[].point", What: "a point load", Max: MaxPointLoad, signed: true, show: kn},
-		{id: rangeMoment, Key: "cases.NAME.loads[].moment", What: "a point moment", Max: MaxPointMoment, signed: true, show: kNm},
-		{id: rangeAxial, Key: "cases.NAME.loads[].axial", What: "an axial load", Max: MaxPointLoad, signed: true, show: kn},
+		{id: rangeSpan, Keys: []string{"beam.spans"}, What: "a span", Min: MinSpan, Max: MaxSpan, show: m},
+		{id: rangeLength, Keys: []string{"beam.spans"}, What: "a beam length (spans and overhangs)", Max: MaxBeamLength, show: m},
+		{id: rangeOverhang, Keys: []string{"beam.overhang.left", "beam.overhang.right"}, What: "an overhang", Max: MaxOverhang, show: m},
+		{id: rangeSpring, Keys: []string{"beam.supports[].k"}, What: "a spring stiffness", Max: MaxSpringStiffness, show: spring},
+		{id: rangeWeldedH, Keys: []string{"beam.section.welded.h"}, What: "a depth h", Max: MaxWeldedDepth, show: mm},
+		{id: rangeWeldedB, Keys: []string{"beam.section.welded.b"}, What: "a flange width b", Max: MaxWeldedWidth, show: mm},
+		{id: rangeWeldedTw, Keys: []string{"beam.section.welded.tw"}, What: "a web thickness tw", Min: MinWeldedPlate, Max: inf, show: mm},
+		{id: rangeWeldedTf, Keys: []string{"beam.section.welded.tf"}, What: "a flange thickness tf", Min: MinWeldedPlate, Max: inf, show: mm},
+		{id: rangeUDL, Keys: []string{"cases.NAME.loads[].udl"}, What: "a line load", Max: MaxLineLoad, signed: true, show: line},
+		{id: rangeTrapezoid, Keys: []string{"cases.NAME.loads[].trapezoid"}, What: "a line load", Max: MaxLineLoad, signed: true, show: line},
+		{id: rangePoint, Keys: []string{"cases.NAME.loads[].point"}, What: "a point load", Max: MaxPointLoad, signed: true, show: kn},
+		{id: rangeMoment, Keys: []string{"cases.NAME.loads[].moment"}, What: "a point moment", Max: MaxPointMoment, signed: true, show: kNm},
+		{id: rangeAxial, Keys: []string{"cases.NAME.loads[].axial"}, What: "an axial load", Max: MaxPointLoad, signed: true, show: kn},
 	}
 	for i := range ranges {
 		r := &ranges[i]
