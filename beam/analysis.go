@@ -84,7 +84,8 @@ func (a *Analysis) Cases() []Case { return append([]Case(nil), a.cases...) }
 func (a *Analysis) Model() Model { return a.s.model }
 
 // NewAnalysis discretises the beam, checks every load and solves each case. Cases keep
-// their order; a patterned case is solved once per region.
+// their order; a patterned case is solved once per region. A case whose results are not
+// finite numbers at any key point (loads too large for float64) is a *NonFiniteError.
 func NewAnalysis(m Model, cases []Case) (*Analysis, error) {
 	if err := errors.Join(checkModel(m), checkCases(m, cases)); err != nil {
 		return nil, err
@@ -118,6 +119,9 @@ func NewAnalysis(m Model, cases []Case) (*Analysis, error) {
 		return nil, err
 	}
 	a.cols = cols
+	if err := a.checkFinite(); err != nil {
+		return nil, err
+	}
 	return a, nil
 }
 

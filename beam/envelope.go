@@ -147,8 +147,10 @@ type term struct {
 }
 
 // extremes writes, for every quantity q, the max and min over the combinations of one state
-// into mx[q] and mn[q], with the region masks of the patterned cases.
-func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*Extreme) {
+// into mx[q] and mn[q], with the region masks of the patterned cases. When a combination's
+// value is not a finite number it stops and returns that combination and quantity; otherwise
+// it returns -1.
+func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*Extreme) (combination, quantity int) {
 	nq := ac.nq
 	var vmax, vmin [nStationQ]float64
 	for q := 0; q < nq; q++ {
@@ -169,6 +171,9 @@ func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*
 			vmin[3] += f.lo*p[3] + f.hi*n[3]
 		}
 		for q := 0; q < nq; q++ {
+			if !isFinite(vmax[q]) || !isFinite(vmin[q]) {
+				return c, q
+			}
 			if vmax[q] > mx[q].Value {
 				mx[q].Value, mx[q].Combination = vmax[q], c
 			}
@@ -185,6 +190,29 @@ func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*
 		b.masks(ac, q, mx[q], true)
 		b.masks(ac, q, mn[q], false)
 	}
+	return -1, 0
+}
+
+// combinationFault explains a combined value that is not finite: a case whose shares add up
+// past the range of float64 by themselves, else the combination, naming the case with the
+// largest part.
+func (b *envelopeBuilder) combinationFault(ac *accumulator, c, q int, quantity string, x float64) *NonFiniteError {
+	biggest, size := -1, math.Inf(-1)
+	for _, f := range b.terms[c] {
+		p, n := ac.pos[f.k][q], ac.neg[f.k][q]
+		if !isFinite(p) || !isFinite(n) {
+			return &NonFiniteError{Case: b.a.cases[f.k].Name, Load: -1, Quantity: quantity, X: x}
+		}
+		// compared as logarithms: the factored parts themselves may overflow
+		if s := math.Log(f.hi) + math.Log(p-n); s > size {
+			biggest, size = f.k, s
+		}
+	}
+	e := &NonFiniteError{Load: -1, Combination: b.combos[c].Name, Quantity: quantity, X: x}
+	if biggest >= 0 {
+		e.Case = b.a.cases[biggest].Name
+	}
+	return e
 }
 
 // masks fills ex.Loaded with the regions where each patterned case takes its adverse factor.
@@ -210,6 +238,8 @@ func (b *envelopeBuilder) masks(ac *accumulator, q int, ex *Extreme, seekMax boo
 // Envelopes computes the exact ULS and SLS envelopes at the stations. By superposition each
 // region's share of a patterned case is taken with its adverse factor only where it makes the
 // value worse, which equals the worst of all 2^n span patterns without enumerating them.
+// A case or combination value that is not a finite number at a station is a
+// *NonFiniteError; no value is ever left out of an envelope.
 func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, error) {
 	tab, err := a.combTable(combos)
 	if err != nil {
@@ -252,6 +282,9 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 		for k := range a.cases {
 			for r, c := range a.caseCols[k] {
 				m, v, n, w := a.cols[c].el[e].at(t, s.Side, ei)
+				if !isFinite(m) || !isFinite(v) || !isFinite(n) || !isFinite(w) {
+					return Envelopes{}, a.stationFault(k, s, m, v, n, w)
+				}
 				ac.add(k, qM, r, m)
 				ac.add(k, qV, r, v)
 				ac.add(k, qN, r, n)
@@ -261,12 +294,25 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 		for _, en := range states {
 			mx := []*Extreme{&en.MMax[i], &en.VMax[i], &en.NMax[i], &en.WMax[i]}
 			mn := []*Extreme{&en.MMin[i], &en.VMin[i], &en.NMin[i], &en.WMin[i]}
-			b.extremes(ac, en.State, mx, mn)
+			if c, q := b.extremes(ac, en.State, mx, mn); c >= 0 {
+				return Envelopes{}, b.combinationFault(ac, c, q, stationQuantity(q), s.X)
+			}
 		}
 	}
-	env.ULSReactions = a.reactionEnvelope(b, ULS)
-	env.SLSReactions = a.reactionEnvelope(b, SLS)
+	if env.ULSReactions, err = a.reactionEnvelope(b, ULS); err != nil {
+		return Envelopes{}, err
+	}
+	if env.SLSReactions, err = a.reactionEnvelope(b, SLS); err != nil {
+		return Envelopes{}, err
+	}
 	return env, nil
+}
+
+// stationFault names the case (and the load, where one alone overflows) whose value at a
+// station is not finite.
+func (a *Analysis) stationFault(k int, s Station, v ...float64) *NonFiniteError {
+	q := max(firstNonFinite(v...), 0)
+	return &NonFiniteError{Case: a.cases[k].Name, Load: a.culprit(k, []Station{s}), Quantity: stationQuantity(q), X: s.X}
 }
 
 // series lists the envelope's arrays as max/min pairs in quantity order M, V, N, W.
@@ -285,7 +331,7 @@ func newExtremes(n, np int) []Extreme {
 	return ex
 }
 
-func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) []ReactionEnvelope {
+func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) ([]ReactionEnvelope, error) {
 	np := len(b.patterned)
 	ac := newAccumulator(len(a.cases), nReactionQ)
 	out := make([]ReactionEnvelope, len(a.s.model.Supports))
@@ -307,10 +353,12 @@ func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) []Reac
 				mx[q].Loaded, mn[q].Loaded = make([]uint64, np), make([]uint64, np)
 			}
 		}
-		b.extremes(ac, state, mx, mn)
+		if c, q := b.extremes(ac, state, mx, mn); c >= 0 {
+			return nil, b.combinationFault(ac, c, q, reactionQuantity, sp.X)
+		}
 		out[si] = re
 	}
-	return out
+	return out, nil
 }
 
 // Governing describes in words which combination and pattern produce an extreme, e.g.

@@ -97,7 +97,8 @@ type CaseResult struct {
 	Reactions []Reaction
 }
 
-// CaseResult evaluates one whole load case (all regions, unfactored).
+// CaseResult evaluates one whole load case (all regions, unfactored). A value that is not a
+// finite number is a *NonFiniteError.
 func (a *Analysis) CaseResult(name string, st []Station) (CaseResult, error) {
 	k := -1
 	for i, c := range a.cases {
@@ -123,6 +124,10 @@ func (a *Analysis) CaseResult(name string, st []Station) (CaseResult, error) {
 			r.Effects.N[i] += n
 			r.Effects.W[i] += w
 		}
+		ef := &r.Effects
+		if q := firstNonFinite(ef.M[i], ef.V[i], ef.N[i], ef.W[i]); q >= 0 {
+			return CaseResult{}, &NonFiniteError{Case: name, Load: a.culprit(k, []Station{s}), Quantity: stationQuantity(q), X: s.X}
+		}
 	}
 	for si, sp := range a.s.model.Supports {
 		rc := Reaction{X: sp.X}
@@ -131,6 +136,9 @@ func (a *Analysis) CaseResult(name string, st []Station) (CaseResult, error) {
 			rc.Fz += rr.Fz
 			rc.Fx += rr.Fx
 			rc.My += rr.My
+		}
+		if firstNonFinite(rc.Fz, rc.Fx, rc.My) >= 0 {
+			return CaseResult{}, &NonFiniteError{Case: name, Load: a.culprit(k, nil), Quantity: reactionQuantity, X: sp.X}
 		}
 		r.Reactions = append(r.Reactions, rc)
 	}

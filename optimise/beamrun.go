@@ -57,6 +57,9 @@ func AnalyseBeam(s *Setup, set BeamSettings) (*BeamOutcome, error) {
 			return nil, &SettingError{"case", fmt.Errorf("no load case %q (cases: %v)", set.Case, names)}
 		}
 		r, err := an.CaseResult(set.Case, o.Stations)
+		if probs, ok := s.LocateOverflow(err); ok {
+			return nil, probs
+		}
 		if err != nil {
 			return nil, err
 		}
@@ -64,6 +67,9 @@ func AnalyseBeam(s *Setup, set BeamSettings) (*BeamOutcome, error) {
 		return o, nil
 	}
 	env, err := an.Envelopes(s.Combinations, o.Stations)
+	if probs, ok := s.LocateOverflow(err); ok {
+		return nil, probs
+	}
 	if err != nil {
 		return nil, err
 	}

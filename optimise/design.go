@@ -35,6 +35,9 @@ func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*Design
 		return nil, err
 	}
 	fs, err := DesignForces(an, s.Combinations, []float64{x})
+	if probs, ok := s.LocateOverflow(err); ok {
+		return nil, probs
+	}
 	if err != nil {
 		return nil, err
 	}

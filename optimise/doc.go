@@ -6,7 +6,11 @@
 // currency of the job's rates.
 //
 // Errors: every problem a user can cause is returned as a jobfile.Problems, each with the file,
-// line, column and key path of the value at fault; nothing here prints or exits.
+// line, column and key path of the value at fault; nothing here prints or exits. Results that
+// overflow (a *beam.NonFiniteError from the analysis, the envelopes or a case result) are
+// mapped to the load, the case's loads or the combination factor that causes them by
+// Setup.LocateOverflow; Setup.Analyse also evaluates every combination at the key points, so
+// that check refuses whatever the scan would.
 //
 // # Scan
 //

@@ -94,6 +94,22 @@ func (s *Setup) model() {
 // it as a load.
 func (s *Setup) SectionWeight() float64 { return s.Section.Mass * StandardGravity / 1000 }
 
+// regions refuses a beam with more spans and overhangs than the analysis takes, at the spans.
+func (s *Setup) regions(probs *jobfile.Problems) {
+	n := len(s.job.Beam.Spans)
+	if s.job.Beam.LeftOverhang() > 0 {
+		n++
+	}
+	if s.job.Beam.RightOverhang() > 0 {
+		n++
+	}
+	if n > beam.MaxRegions {
+		probs.Add(s.job.Beam.Where("spans"), "%d spans and overhangs are more than the %d the analysis takes",
+			n, beam.MaxRegions)
+	}
+}
+
+
 func (s *Setup) cases() {
 	if s.job.Beam.IncludesSelfWeight() {
 		s.SelfWeight = s.SectionWeight()
@@ -223,18 +239,108 @@ func orDefault(v, d string) string {
 	return v
 }
 
-// Analyse solves the job's beam for every case. A mechanism or another model error is
-// reported against the beam block of the job file.
+// Analyse solves the job's beam for every case and evaluates every combination at the key
+// points (supports, hinges, load starts, ends and points), so that whatever command runs
+// next, check included, refuses a job whose results overflow. A mechanism or another model
+// error is reported against the beam block of the job file; results that overflow against
+// the load or factor that causes them (see LocateOverflow).
 func (s *Setup) Analyse() (*beam.Analysis, error) {
 	an, err := beam.NewAnalysis(s.Model, s.Cases)
-	if err != nil {
-		var probs jobfile.Problems
-		at := s.job.Beam.Where("supports")
-		if !errors.Is(err, beam.ErrMechanism) {
-			at = s.job.Where("cases")
-		}
-		probs.Add(at, "%v", err)
-		return nil, probs.Err()
+	if err == nil {
+		err = s.combinationsFinite(an)
 	}
-	return an, nil
+	if err == nil {
+		return an, nil
+	}
+	if probs, ok := s.LocateOverflow(err); ok {
+		return nil, probs
+	}
+	var probs jobfile.Problems
+	at := s.job.Beam.Where("supports")
+	if !errors.Is(err, beam.ErrMechanism) {
+		at = s.job.Where("cases")
+	}
+	probs.Add(at, "%v", err)
+	return nil, probs.Err()
+}
+
+// combinationsFinite evaluates the envelopes at the beam ends and key points only: cheap,
+// and where a case's or combination's overflow shows first.
+func (s *Setup) combinationsFinite(an *beam.Analysis) error {
+	st, err := an.Stations(s.Model.Length)
+	if err != nil {
+		return err
+	}
+	_, err = an.Envelopes(s.Combinations, st)
+	return err
+}
+
+// LocateOverflow turns an analysis error that holds a *beam.NonFiniteError (results that
+// overflow) into a problem at the job-file key that causes it: the load
+// (cases.Q.loads[1].udl), the case's loads when only they together overflow, or the factor
+// of an extra combination of the file's own. ok is false for any other error.
+func (s *Setup) LocateOverflow(err error) (probs jobfile.Problems, ok bool) {
+	var nf *beam.NonFiniteError
+	if !errors.As(err, &nf) {
+		return nil, false
+	}
+	at, msg := s.overflowAt(nf)
+	probs.Add(at, "%s", msg)
+	return probs, true
+}
+
+// overflowAt finds where an overflow comes from and says what overflowed, in output units.
+func (s *Setup) overflowAt(nf *beam.NonFiniteError) (jobfile.Loc, string) {
+	what := fmt.Sprintf("the %s at x = %s is not a finite number", nf.Quantity, metres(nf.X))
+	if nf.Combination != "" {
+		msg := fmt.Sprintf("combination %s overflows: %s (case %s gives the largest part); the factors or the loads are too large",
+			nf.Combination, what, nf.Case)
+		if at, ok := s.extraFactorAt(nf.Combination, nf.Case); ok {
+			return at, msg
+		}
+		return s.caseLoadsAt(nf.Case), msg
+	}
+	if nf.Load < 0 {
+		return s.caseLoadsAt(nf.Case), fmt.Sprintf("the analysis overflows: with the loads of case %s together %s; the loads are too large",
+			nf.Case, what)
+	}
+	c, ok := s.job.Cases.Get(nf.Case)
+	if !ok || nf.Load >= len(c.Loads) {
+		return s.caseLoadsAt(nf.Case), "the analysis overflows: " + what
+	}
+	l := c.Loads[nf.Load]
+	return l.Where(l.Kind), fmt.Sprintf("the analysis overflows: with this load %s; the load is too large (check its value and unit)", what)
+}
+
+// caseLoadsAt is the loads of a job case, or the beam's self weight for its case.
+func (s *Setup) caseLoadsAt(name string) jobfile.Loc {
+	if name == jobfile.SelfWeightCase && s.job.Beam.IncludesSelfWeight() {
+		return s.job.Beam.Where("self_weight")
+	}
+	for _, e := range s.job.Cases {
+		if e.Key == name {
+			return e.Value.Where("loads")
+		}
+	}
+	return s.job.Where("cases")
+}
+
+// extraFactorAt is the factor on a case in a combination of combinations.extra.
+func (s *Setup) extraFactorAt(combination, caseName string) (jobfile.Loc, bool) {
+	cb := s.job.Combinations
+	if cb == nil {
+		return jobfile.Loc{}, false
+	}
+	for i, x := range cb.Extra {
+		if x.Name != combination {
+			continue
+		}
+		for _, f := range x.Factors {
+			if f.Key == caseName {
+				return f.Loc, true
+			}
+		}
+		return cb.Where(fmt.Sprintf("extra[%d].factors", i)), true
+	}
+	return jobfile.Loc{}, false
 }

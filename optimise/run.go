@@ -144,6 +144,9 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 		workers = 1
 	}
 	cands, stats, err := Scan(o.Analysis, s.Combinations, xs, s.Zones, d, ScanSettings{Exhaustive: set.Exhaustive, Workers: workers})
+	if probs, ok := s.LocateOverflow(err); ok {
+		return nil, probs // the envelopes overflow
+	}
 	if err != nil {
 		// the designer refuses the splice options (the forces are the analysis's own)
 		var probs jobfile.Problems
@@ -173,7 +176,11 @@ func chartEnvelopes(an *beam.Analysis, s *Setup) (beam.Envelopes, error) {
 	if err != nil {
 		return beam.Envelopes{}, err
 	}
-	return an.Envelopes(s.Combinations, st)
+	env, err := an.Envelopes(s.Combinations, st)
+	if probs, ok := s.LocateOverflow(err); ok {
+		return beam.Envelopes{}, probs
+	}
+	return env, err
 }
 
 // newOutcome applies the settings to the setup: step, rigging, alternatives and the notes.

@@ -105,6 +105,7 @@ func Prepare(file string, data []byte) (*Setup, error) {
 		return nil, probs.Err()
 	}
 	s.model()
+	s.regions(&probs)
 	s.cases()
 	s.combinations(&probs)
 	if len(probs) > 0 {

@@ -178,3 +178,21 @@ func TestUsageErrors(t *testing.T) {
 		assert.Equal(t, 2, code, "%v: %s", args, stderr)
 	}
 }
+
+// The header's beam line shows the self weight only when it is analysed: with self_weight:
+// false it used to print the section's weight as if it were a load.
+func TestAnalyseHeaderSelfWeight(t *testing.T) {
+	for _, c := range [][]string{{}, {"--case", "G"}} {
+		out, stderr, code := run(t, append([]string{"analyse", writeJob(t, simpleJob)}, c...)...)
+		require.Equal(t, 0, code, stderr)
+		assert.Contains(t, out, "Iy = 8356 cm4, self weight off\n", "%v", c)
+		assert.NotContains(t, out, "kN/m", "%v: no line load is printed when the self weight is off", c)
+		assert.NotContains(t, out, "SW (permanent)", "%v", c)
+	}
+	// IPE 300: 42.2 kg/m (published section tables); × g = 9.80665 m/s² is 0.414 kN/m
+	withSW := strings.Replace(simpleJob, "self_weight: false", "self_weight: true", 1)
+	out, stderr, code := run(t, "analyse", writeJob(t, withSW))
+	require.Equal(t, 0, code, stderr)
+	assert.Contains(t, out, "self weight 0.414 kN/m\n")
+	assert.Contains(t, out, "SW (permanent)")
+}

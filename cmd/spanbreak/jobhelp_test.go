@@ -354,3 +354,30 @@ func TestHelpJobFileTopic(t *testing.T) {
 	assert.Contains(t, out[i:], "job-file")
 	assert.True(t, slices.Contains(tokens(out[i:]), "job-file"))
 }
+
+// allowedOf returns the text after "allowed: " of an entry, continuation lines joined.
+func allowedOf(t *testing.T, ref map[string]refEntry, path string) string {
+	t.Helper()
+	e, ok := ref[path]
+	require.True(t, ok, path)
+	_, after, ok := strings.Cut(e.body, "    allowed: ")
+	require.True(t, ok, path)
+	before, _, _ := strings.Cut(after, "\n    example: ")
+	return strings.Join(strings.Fields(before), " ")
+}
+
+// The reference states every plausible range the job file is checked against, under the key
+// it bounds, in the words of the messages; and the largest number of spans the analysis takes.
+func TestReferenceStatesPlausibleRanges(t *testing.T) {
+	job, _ := parseReference(t, jobFileReference)
+	placeholder := regexp.MustCompile(`\.[A-Z]+(\.|\[|$)`)
+	ranges := jobfile.PlausibleRanges()
+	require.NotEmpty(t, ranges)
+	for _, r := range ranges {
+		for _, key := range r.Keys {
+			path := placeholder.ReplaceAllString(key, ".*$1")
+			assert.Contains(t, allowedOf(t, job, path), r.Text, "%s: %s", key, r.What)
+		}
+	}
+	assert.Contains(t, allowedOf(t, job, "beam.spans"), fmt.Sprintf("at most %d spans and overhangs", beam.MaxRegions))
+}

@@ -42,7 +42,11 @@
 // LoadJob and LoadSpliceFile add the checks that need no analysis: required keys, counts
 // (one support per span end), ranges (spans > 0, positions on the beam, from < to, ψ in
 // [0, 1], no negative limits or rates), allowed values, references between blocks (case
-// names in combinations, bolt sizes in the costs) and overlapping keep-out ranges. Section
+// names in combinations, bolt sizes in the costs) and overlapping keep-out ranges. The
+// beam's geometry and loads must also lie in their plausible ranges (PlausibleRanges: spans
+// 0.1 m to 200 m, a beam of at most 1 km, line loads up to 10 000 kN/m...), each refused at
+// its own key; within them no product of the analysis can overflow, and a number that
+// overflows on reading (1e306 m in mm) is refused where it is written. Section
 // and grade names are not looked up here: the caller does that and may add its problems to
 // the same list through each struct's Meta (Meta.Where gives the location of any key below
 // it) and Problems.Add. List indices in key paths count from 0.

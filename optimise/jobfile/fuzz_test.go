@@ -64,7 +64,7 @@ func checkGoodJob(t *testing.T, j *Job) {
 		t.Fatal("nil job without an error")
 	}
 	l := j.Beam.Length()
-	if !(l > 0) || math.IsInf(l, 0) {
+	if !(l > 0) || l > MaxBeamLength {
 		t.Fatalf("accepted a beam of length %v mm", l)
 	}
 	if len(j.Beam.Supports) != len(j.Beam.Spans)+1 {
@@ -79,6 +79,10 @@ func checkGoodJob(t *testing.T, j *Job) {
 				}
 			} else if ld.At < 0 || ld.At.MM() > l {
 				t.Fatalf("accepted a load at %v on a beam of %v", ld.At.MM(), l)
+			}
+			if math.Abs(ld.W[0].NPerMM()) > MaxLineLoad || math.Abs(ld.W[1].NPerMM()) > MaxLineLoad ||
+				math.Abs(ld.P.N()) > MaxPointLoad || math.Abs(ld.M.NMM()) > MaxPointMoment {
+				t.Fatalf("accepted an implausible load %+v", ld)
 			}
 		}
 	}

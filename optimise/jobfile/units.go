@@ -128,7 +128,12 @@ func decodeQuantity(n *yaml.Node, d *Decoder, q quantity) (float64, bool) {
 			return 0, false
 		}
 		_, factor, _ := unitFactor(q.bare)
-		return f * factor, true
+		v := f * factor
+		if math.IsInf(v, 0) {
+			d.Problemf(n, "the value %s %s is out of range", clip(n.Value), q.bare)
+			return 0, false
+		}
+		return v, true
 	}
 	if n.Kind != yaml.ScalarNode || n.ShortTag() != "!!str" {
 		d.Problemf(n, "want %s (a number in %s, or a string such as %q), got %s",

@@ -127,10 +127,13 @@ func (c *checker) beam(b *Beam) beamLength {
 		ok = false
 	}
 	for i, s := range b.Spans {
+		at := b.Where(indexPath("spans", i))
 		if !(s > 0) {
-			c.add(b.Where(indexPath("spans", i)), "a span must be longer than 0, got %s", s)
+			c.add(at, "a span must be longer than 0, got %s", s)
 			ok = false
+			continue
 		}
+		ok = c.plausible(at, rangeSpan, s.MM()) && ok
 	}
 	if o := b.Overhang; o != nil {
 		for _, side := range []struct {
@@ -140,10 +143,17 @@ func (c *checker) beam(b *Beam) beamLength {
 			if side.v < 0 {
 				c.add(o.Where(side.key), "an overhang must not be negative, got %s", side.v)
 				ok = false
+				continue
 			}
+			ok = c.plausible(o.Where(side.key), rangeOverhang, side.v.MM()) && ok
 		}
 	}
-	length := beamLength{mm: b.Length(), ok: ok && len(b.Spans) > 0}
+	ok = ok && len(b.Spans) > 0
+	if ok && !c.failed(b.Where("spans")) {
+		// each span and overhang is plausible, so the sum is finite; it may still be too long
+		ok = c.plausible(b.Where("spans"), rangeLength, b.Length())
+	}
+	length := beamLength{mm: b.Length(), ok: ok}
 	c.supports(b, length.ok)
 	c.hinges(b, length)
 	return length
@@ -158,14 +168,20 @@ func (c *checker) section(s Section) {
 		key string
 		v   Millimetres
 	}{{"h", w.H}, {"b", w.B}, {"tw", w.Tw}, {"tf", w.Tf}}
-	allPositive := true
+	ranges := map[string]int{"h": rangeWeldedH, "b": rangeWeldedB, "tw": rangeWeldedTw, "tf": rangeWeldedTf}
+	allGood := true
 	for _, dim := range dims {
-		if w.Has(dim.key) && !(dim.v > 0) {
-			c.add(w.Where(dim.key), "%s must be greater than 0, got %s", dim.key, dim.v)
-			allPositive = false
+		if !w.Has(dim.key) {
+			continue
 		}
+		if !(dim.v > 0) {
+			c.add(w.Where(dim.key), "%s must be greater than 0, got %s", dim.key, dim.v)
+			allGood = false
+			continue
+		}
+		allGood = c.plausible(w.Where(dim.key), ranges[dim.key], dim.v.MM()) && allGood
 	}
-	if !allPositive || c.failed(w.Meta.Loc) {
+	if !allGood || c.failed(w.Meta.Loc) {
 		return
 	}
 	if 2*w.Tf >= w.H {
@@ -193,8 +209,10 @@ func (c *checker) supports(b *Beam, spansOK bool) {
 		switch {
 		case s.Type == SupportSpring && s.K == nil:
 			c.add(s.Meta.Loc, "a spring support needs its stiffness: {type: spring, k: 50000} (kN/m)")
-		case s.Type == SupportSpring:
+		case s.Type == SupportSpring && !(s.K.NPerMM() > 0):
 			c.positive(s.Where("k"), "a spring stiffness", s.K.NPerMM(), s.K.String())
+		case s.Type == SupportSpring:
+			c.plausible(s.Where("k"), rangeSpring, s.K.NPerMM())
 		case s.K != nil:
 			c.add(s.Where("k"), "k applies to spring supports only; this one is %s", s.Type)
 		}
@@ -294,6 +312,7 @@ func (c *checker) loadCase(lc Case, length beamLength) {
 }
 
 func (c *checker) load(l Load, length beamLength) {
+	c.loadValue(l)
 	if !length.ok || l.Kind == "" {
 		return
 	}
@@ -322,6 +341,24 @@ func (c *checker) load(l Load, length beamLength) {
 			key = "from"
 		}
 		c.add(l.Where(key), "from (%s) must be less than to (%s)", Metres(from), Metres(to))
+	}
+}
+
+// loadValue checks a load's intensity against its plausible range, at its own key.
+func (c *checker) loadValue(l Load) {
+	switch l.Kind {
+	case LoadUDL:
+		c.plausible(l.Where(LoadUDL), rangeUDL, l.W[0].NPerMM())
+	case LoadTrapezoid:
+		for i, w := range l.W {
+			c.plausible(l.Where(indexPath(LoadTrapezoid, i)), rangeTrapezoid, w.NPerMM())
+		}
+	case LoadPoint:
+		c.plausible(l.Where(LoadPoint), rangePoint, l.P.N())
+	case LoadMoment:
+		c.plausible(l.Where(LoadMoment), rangeMoment, l.M.NMM())
+	case LoadAxial:
+		c.plausible(l.Where(LoadAxial), rangeAxial, l.P.N())
 	}
 }
 

@@ -133,8 +133,12 @@ func writeBeamHeader(w io.Writer, s *optimise.Setup, what string) {
 	if s.Title != "" {
 		fmt.Fprintf(w, "Title:    %s\n", s.Title)
 	}
-	fmt.Fprintf(w, "Beam:     %s, %s, length %.3f m, Iy = %.4g cm4, self weight %.3f kN/m\n",
-		s.Section.Name, s.Grade.Name, s.Model.Length*ToM, s.Section.Iy/1e4, s.SectionWeight())
+	sw := "self weight off"
+	if s.SelfWeight > 0 {
+		sw = fmt.Sprintf("self weight %.3f kN/m", s.SelfWeight)
+	}
+	fmt.Fprintf(w, "Beam:     %s, %s, length %.3f m, Iy = %.4g cm4, %s\n",
+		s.Section.Name, s.Grade.Name, s.Model.Length*ToM, s.Section.Iy/1e4, sw)
 	var sup []string
 	for _, sp := range s.Model.Supports {
 		sup = append(sup, fmt.Sprintf("%.3f m %s", sp.X*ToM, sp.Kind))
