@@ -211,27 +211,9 @@ func (b *envelopeBuilder) masks(ac *accumulator, q int, ex *Extreme, seekMax boo
 // region's share of a patterned case is taken with its adverse factor only where it makes the
 // value worse, which equals the worst of all 2^n span patterns without enumerating them.
 func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, error) {
-	tab, err := a.combTable(combos)
+	b, names, err := a.newEnvelopeBuilder(combos)
 	if err != nil {
 		return Envelopes{}, err
-	}
-	b := &envelopeBuilder{a: a, combos: combos, tab: tab}
-	for c, cb := range combos {
-		b.byState[cb.State] = append(b.byState[cb.State], c)
-		var terms []term
-		for k := range a.cases {
-			if tab.hi[c][k] != 0 || tab.lo[c][k] != 0 {
-				terms = append(terms, term{k: k, hi: tab.hi[c][k], lo: tab.lo[c][k]})
-			}
-		}
-		b.terms = append(b.terms, terms)
-	}
-	var names []string
-	for k, c := range a.cases {
-		if c.Pattern {
-			b.patterned = append(b.patterned, k)
-			names = append(names, c.Name)
-		}
 	}
 	env := Envelopes{Stations: st, Combinations: combos, Patterned: names, Regions: a.Regions()}
 	np := len(b.patterned)
@@ -267,6 +249,34 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 	env.ULSReactions = a.reactionEnvelope(b, ULS)
 	env.SLSReactions = a.reactionEnvelope(b, SLS)
 	return env, nil
+}
+
+// newEnvelopeBuilder prepares the combination factors for envelopes over combos; it also
+// returns the names of the patterned cases (the order of Extreme.Loaded).
+func (a *Analysis) newEnvelopeBuilder(combos []Combination) (*envelopeBuilder, []string, error) {
+	tab, err := a.combTable(combos)
+	if err != nil {
+		return nil, nil, err
+	}
+	b := &envelopeBuilder{a: a, combos: combos, tab: tab}
+	for c, cb := range combos {
+		b.byState[cb.State] = append(b.byState[cb.State], c)
+		var terms []term
+		for k := range a.cases {
+			if tab.hi[c][k] != 0 || tab.lo[c][k] != 0 {
+				terms = append(terms, term{k: k, hi: tab.hi[c][k], lo: tab.lo[c][k]})
+			}
+		}
+		b.terms = append(b.terms, terms)
+	}
+	var names []string
+	for k, c := range a.cases {
+		if c.Pattern {
+			b.patterned = append(b.patterned, k)
+			names = append(names, c.Name)
+		}
+	}
+	return b, names, nil
 }
 
 // series lists the envelope's arrays as max/min pairs in quantity order M, V, N, W.
