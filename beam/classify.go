@@ -54,9 +54,9 @@ type Classification struct {
 }
 
 // Classify classifies the cross-section under a design moment and axial force (EN 1993-1-1
-// 5.5.2 and Table 5.2); the class is the worse of the flange outstands and the web. Only
-// magnitudes matter for a doubly symmetric section; the sign of N (compression negative)
-// does. Forces must be finite (CheckSection and CheckEnvelopes check them).
+// 5.5.2 and Table 5.2); the class is the worse of the flange outstands and the web. The sign
+// of MEd does not matter for a doubly symmetric section; the sign of NEd does (tension
+// positive). Forces must be finite (CheckSection and CheckEnvelopes check them).
 //
 // The flanges are always taken as outstands in uniform compression (9ε, 10ε, 14ε): under
 // major-axis bending one flange is compressed, and under a tension that relieves it the
@@ -66,9 +66,11 @@ type Classification struct {
 //   - α, for the class 1 and 2 limits (396ε/(13α − 1) and 456ε/(13α − 1) for α > 0.5,
 //     36ε/α and 41.5ε/α for α ≤ 0.5), is the position of the plastic neutral axis at the
 //     section's plastic resistance under NEd: α = 1/2 + NEd,c/(2·c·tw·fy/γM0), clipped to
-//     [0, 1], NEd,c the compression (negative for tension). The moment takes whatever value
-//     the resistance reaches under NEd, so α depends on NEd alone (α = 0.5 gives 72ε and 83ε
-//     of pure bending, α = 1 gives 33ε and 38ε of pure compression).
+//     [0, 1], NEd,c the compression (negative for tension). The moment is the one that makes
+//     the section fully plastic together with NEd, so α depends on NEd alone (α = 0.5 gives
+//     72ε and 83ε of pure bending, α = 1 gives 33ε and 38ε of pure compression), as in the
+//     published design guides' reading of Table 5.2. A web that meets the class 1 or 2 limit
+//     for its α is class 1 or 2 whatever ψ is.
 //   - ψ, for the class 3 limit (42ε/(0.67 + 0.33ψ) for ψ > −1, 62ε(1 − ψ)√(−ψ) for ψ ≤ −1),
 //     is the ratio of the elastic stresses at the two ends of c under the actual MEd and NEd:
 //     σ = −NEd/A ± |MEd|·(c/2)/Iy. With no force at all ψ is taken as −1 (pure bending, the

@@ -155,6 +155,14 @@ func NewMember(sec Section, g Grade, settings MemberSettings) (Member, error) {
 	return m, nil
 }
 
+// built reports a Member that did not come from NewMember (the zero value, say).
+func (m Member) built() error {
+	if !(m.Fy > 0) || !(m.Settings.GammaM0 > 0) || !(m.WebC > 0) || !(m.FlangeC > 0) {
+		return errors.New("member check: the member was not built with NewMember")
+	}
+	return nil
+}
+
 // checkMemberSection rejects a section whose dimensions or properties cannot be checked.
 func checkMemberSection(s Section) error {
 	var errs []error
@@ -363,8 +371,8 @@ func utilisation(demand, resistance float64) float64 {
 const passTolerance = 1e-9
 
 // CheckSection checks the cross-section under concurrent forces (signs as SectionForces; only
-// magnitudes enter the resistances of a doubly symmetric section). Errors: a force that is
-// NaN or infinite.
+// magnitudes enter the resistances of a doubly symmetric section). Errors: a Member not built
+// by NewMember; a force that is NaN or infinite.
 //
 // The section is classified under f (Member.Classify). Class 4 gives a result with no
 // resistance and no checks; its OutsideScope error says why. Otherwise the checks are:
@@ -389,6 +397,9 @@ const passTolerance = 1e-9
 //
 // The governing check is the one with the highest utilisation (the first of equals).
 func (m Member) CheckSection(f SectionForces) (SectionResult, error) {
+	if err := m.built(); err != nil {
+		return SectionResult{}, err
+	}
 	if !f.finite() {
 		return SectionResult{}, fmt.Errorf("member check: forces must be finite numbers (M %g N·mm, V %g N, N %g N)", f.M, f.V, f.N)
 	}

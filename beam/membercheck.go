@@ -75,8 +75,10 @@ type MemberResult struct {
 
 	// Section is the governing pairing in full: class, Mc,Rd, Vc,Rd, every check.
 	Section     SectionResult
-	Check       string  // the governing check's id
-	Utilisation float64 // its utilisation [-]
+	McRd        float64 // Section.McRd: Mc,Rd in the governing pairing's class; 0 for class 4 [N·mm]
+	VcRd        float64 // Section.VcRd: Vc,Rd = Vpl,Rd; 0 for class 4 [N]
+	Check       string  // the governing check's id; "" for class 4
+	Utilisation float64 // its utilisation [-]; 0 for class 4
 }
 
 // OutsideScope returns nil when every station is within what the checks cover, or an error
@@ -95,10 +97,11 @@ func (r MemberResult) OutsideScope() error {
 // extremes and with each of the two axial extremes (four force sets, the pairing the splice
 // design uses, DESIGN.md section 5); the station's utilisation is the worst of them.
 //
-// Errors: no stations; envelope series whose lengths differ from the stations'; no ULS
-// combination; a value that is NaN or infinite (each naming the station).
+// Errors: a Member not built by NewMember; no stations; envelope series whose lengths differ
+// from the stations'; no ULS combination; a value that is NaN or infinite (each naming the
+// station).
 func (m Member) CheckEnvelopes(env *Envelopes) (MemberResult, error) {
-	if err := checkULSEnvelope(env); err != nil {
+	if err := errors.Join(m.built(), checkULSEnvelope(env)); err != nil {
 		return MemberResult{}, err
 	}
 	e := &env.ULS
@@ -128,6 +131,7 @@ func (m Member) CheckEnvelopes(env *Envelopes) (MemberResult, error) {
 	res.VCombination = env.Governing(g.Pairing.VExtreme)
 	res.NCombination = env.Governing(g.Pairing.NExtreme)
 	res.Section = m.dress(m.evaluate(g.Pairing.Forces()))
+	res.McRd, res.VcRd = res.Section.McRd, res.Section.VcRd
 	if res.Section.Governing >= 0 {
 		res.Check = res.Section.Checks[res.Section.Governing].ID
 		res.Utilisation = res.Section.Utilisation
@@ -136,19 +140,19 @@ func (m Member) CheckEnvelopes(env *Envelopes) (MemberResult, error) {
 }
 
 // pairings lists the station's force sets: both moment extremes, each with the larger-|V|
-// shear extreme and both axial extremes (one axial extreme where the two are equal).
-func pairings(e *Envelope, i int) []Pairing {
+// shear extreme and both axial extremes (one axial extreme where the two are equal). It
+// returns them in an array, the first n in use, so a whole envelope is checked without
+// allocating.
+func pairings(e *Envelope, i int) (out [4]Pairing, n int) {
 	vb, vx := BoundMax, e.VMax[i]
 	if math.Abs(e.VMin[i].Value) > math.Abs(vx.Value) {
 		vb, vx = BoundMin, e.VMin[i]
 	}
-	ns := []Bound{BoundMax, BoundMin}
-	if e.NMax[i].Value == e.NMin[i].Value {
-		ns = ns[:1]
-	}
-	out := make([]Pairing, 0, 4)
-	for _, mb := range []Bound{BoundMax, BoundMin} {
-		for _, nb := range ns {
+	for _, mb := range [2]Bound{BoundMax, BoundMin} {
+		for _, nb := range [2]Bound{BoundMax, BoundMin} {
+			if nb == BoundMin && e.NMax[i].Value == e.NMin[i].Value {
+				continue
+			}
 			p := Pairing{M: mb, V: vb, N: nb, MExtreme: e.MMax[i], VExtreme: vx, NExtreme: e.NMax[i]}
 			if mb == BoundMin {
 				p.MExtreme = e.MMin[i]
@@ -156,10 +160,11 @@ func pairings(e *Envelope, i int) []Pairing {
 			if nb == BoundMin {
 				p.NExtreme = e.NMin[i]
 			}
-			out = append(out, p)
+			out[n] = p
+			n++
 		}
 	}
-	return out
+	return out, n
 }
 
 // checkStation evaluates every pairing at station i and keeps the worst; it also returns the
@@ -167,7 +172,8 @@ func pairings(e *Envelope, i int) []Pairing {
 func (m Member) checkStation(e *Envelope, i int) (MemberStation, SectionClass) {
 	var ms MemberStation
 	worst := Class1
-	for k, p := range pairings(e, i) {
+	ps, np := pairings(e, i)
+	for k, p := range ps[:np] {
 		ev := m.evaluate(p.Forces())
 		if ev.class.Class == Class4 {
 			return MemberStation{Class: Class4, Pairing: p}, Class4
