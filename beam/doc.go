@@ -21,6 +21,31 @@
 // with its adverse factor only where it is adverse, which equals the worst of all 2^n
 // patterns without enumerating them.
 //
+// Member checks (EN 1993-1-1:2005+AC:2009, the beam itself): NewMember takes a Section, a
+// Grade and MemberSettings (γM0, default 1.00; the fy table; an optional weld throat of a
+// welded section; η of the shear-buckling limit, default 1.2). fy is read for the thicker of
+// tf and tw and used for the whole section (conservative). Member.Classify classifies the
+// section under MEd and NEd by Table 5.2: flange outstands as parts in compression (9ε, 10ε,
+// 14ε), the web in bending and compression with α from the plastic neutral axis under NEd and
+// ψ from the elastic stresses under MEd and NEd; the class is the worse of the two.
+// Member.CheckSection gives bending (6.2.5), shear (6.2.6), axial (6.2.3/6.2.4) and, where
+// they reduce the moment resistance, bending with shear (6.2.8(5)), with axial force
+// (6.2.9.1(4)–(5) for classes 1 and 2, 6.2.9.2 for class 3) or with both (6.2.10, read as a
+// web of thickness (1 − ρ)tw). Member.CheckEnvelopes checks every station of the ULS
+// envelope with both moment extremes, each paired with the larger |V| and with both axial
+// extremes, and reports the governing station, pairing, combination, class, Mc,Rd, Vc,Rd and
+// check. Not covered, and reported rather than ignored: class 4 sections (no resistance is
+// computed; OutsideScope returns an error wrapping ErrOutsideScope), shear buckling of webs
+// with hw/tw > 72ε/η (6.2.6(6), flagged), lateral-torsional and flexural buckling of the
+// member, holes in the member, fatigue, fire.
+//
+// Deflection: Analysis.CheckDeflections checks each span and overhang over the SLS
+// combinations against span/250 and overhang/180 by default (DeflectionLimits; common
+// practice — the National Annex and the client govern). A span's deflection is measured from
+// the chord between its supports, an overhang's from its support, for every load column
+// before the envelope is taken, so settling spring supports are removed exactly. It is the
+// largest value over the stations given: pass a fine station grid.
+//
 // Errors: anything the input can cause (a mechanism, a load off the beam, an unknown section
 // or grade, NaN) is a returned error naming the item; mechanisms wrap ErrMechanism. Every
 // result is checked to be a finite number: loads so large that the analysis overflows

@@ -241,27 +241,9 @@ func (b *envelopeBuilder) masks(ac *accumulator, q int, ex *Extreme, seekMax boo
 // A case or combination value that is not a finite number at a station is a
 // *NonFiniteError; no value is ever left out of an envelope.
 func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, error) {
-	tab, err := a.combTable(combos)
+	b, names, err := a.newEnvelopeBuilder(combos)
 	if err != nil {
 		return Envelopes{}, err
-	}
-	b := &envelopeBuilder{a: a, combos: combos, tab: tab}
-	for c, cb := range combos {
-		b.byState[cb.State] = append(b.byState[cb.State], c)
-		var terms []term
-		for k := range a.cases {
-			if tab.hi[c][k] != 0 || tab.lo[c][k] != 0 {
-				terms = append(terms, term{k: k, hi: tab.hi[c][k], lo: tab.lo[c][k]})
-			}
-		}
-		b.terms = append(b.terms, terms)
-	}
-	var names []string
-	for k, c := range a.cases {
-		if c.Pattern {
-			b.patterned = append(b.patterned, k)
-			names = append(names, c.Name)
-		}
 	}
 	env := Envelopes{Stations: st, Combinations: combos, Patterned: names, Regions: a.Regions()}
 	np := len(b.patterned)
@@ -313,6 +295,34 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 func (a *Analysis) stationFault(k int, s Station, v ...float64) *NonFiniteError {
 	q := max(firstNonFinite(v...), 0)
 	return &NonFiniteError{Case: a.cases[k].Name, Load: a.culprit(k, []Station{s}), Quantity: stationQuantity(q), X: s.X}
+}
+
+// newEnvelopeBuilder prepares the combination factors for envelopes over combos; it also
+// returns the names of the patterned cases (the order of Extreme.Loaded).
+func (a *Analysis) newEnvelopeBuilder(combos []Combination) (*envelopeBuilder, []string, error) {
+	tab, err := a.combTable(combos)
+	if err != nil {
+		return nil, nil, err
+	}
+	b := &envelopeBuilder{a: a, combos: combos, tab: tab}
+	for c, cb := range combos {
+		b.byState[cb.State] = append(b.byState[cb.State], c)
+		var terms []term
+		for k := range a.cases {
+			if tab.hi[c][k] != 0 || tab.lo[c][k] != 0 {
+				terms = append(terms, term{k: k, hi: tab.hi[c][k], lo: tab.lo[c][k]})
+			}
+		}
+		b.terms = append(b.terms, terms)
+	}
+	var names []string
+	for k, c := range a.cases {
+		if c.Pattern {
+			b.patterned = append(b.patterned, k)
+			names = append(names, c.Name)
+		}
+	}
+	return b, names, nil
 }
 
 // series lists the envelope's arrays as max/min pairs in quantity order M, V, N, W.
