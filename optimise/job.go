@@ -109,7 +109,6 @@ func (s *Setup) regions(probs *jobfile.Problems) {
 	}
 }
 
-
 func (s *Setup) cases() {
 	if s.job.Beam.IncludesSelfWeight() {
 		s.SelfWeight = s.SectionWeight()

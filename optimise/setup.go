@@ -69,6 +69,10 @@ type Setup struct {
 	job *jobfile.Job // for locating problems in the file
 }
 
+// JobFileReference is the reference of every key of the job file and the splice file: unit,
+// default, allowed values, plausible range and an example.
+func JobFileReference() string { return jobfile.Reference() }
+
 // Where locates a job-file key path ("limits.keep_out", "scan.step") in the file, for
 // messages; a key the file does not hold points at its nearest written parent.
 func (s *Setup) Where(key string) jobfile.Loc { return s.job.Where(key) }

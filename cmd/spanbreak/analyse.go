@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"io"
 
 	"github.com/spf13/cobra"
 
@@ -22,7 +21,7 @@ type analyseOptions struct {
 	Case    string    // one load case, unfactored
 }
 
-func newAnalyseCommand() *cobra.Command {
+func newAnalyseCommand(run func(analyseOptions, streams) error, ios streams) *cobra.Command {
 	opts := analyseOptions{}
 	cmd := &cobra.Command{
 		Use:   "analyse JOB.yaml",
@@ -34,7 +33,7 @@ With --case it prints one load case, unfactored.`,
 		Args: argsUsage(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.JobFile = args[0]
-			return runAnalyse(opts, cmd.OutOrStdout())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	f := cmd.Flags()
@@ -46,7 +45,8 @@ With --case it prints one load case, unfactored.`,
 }
 
 // runAnalyse analyses the job and writes the result; nothing is written on error.
-func runAnalyse(opts analyseOptions, w io.Writer) error {
+func runAnalyse(opts analyseOptions, ios streams) error {
+	w := ios.Out
 	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}

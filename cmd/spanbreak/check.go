@@ -2,7 +2,6 @@ package main
 
 import (
 	"bytes"
-	"io"
 	"spanbreak/plots/encode"
 
 	"github.com/spf13/cobra"
@@ -14,7 +13,7 @@ type checkOptions struct {
 	Format  string // text | json
 }
 
-func newCheckCommand() *cobra.Command {
+func newCheckCommand(run func(checkOptions, streams) error, ios streams) *cobra.Command {
 	opts := checkOptions{}
 	cmd := &cobra.Command{
 		Use:   "check JOB.yaml",
@@ -30,7 +29,7 @@ options, costs and scan. Values the file leaves out are shown with their default
 		Args: argsUsage(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.JobFile = args[0]
-			return runCheck(opts, cmd.OutOrStdout())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	cmd.Flags().StringVar(&opts.Format, "format", "text", "output format: text or json")
@@ -39,7 +38,8 @@ options, costs and scan. Values the file leaves out are shown with their default
 
 // runCheck validates and analyses the job, then prints its summary; nothing is written on
 // error.
-func runCheck(opts checkOptions, stdout io.Writer) error {
+func runCheck(opts checkOptions, ios streams) error {
+	stdout := ios.Out
 	if err := checkFormat(opts.Format, "text", "json"); err != nil {
 		return err
 	}

@@ -56,7 +56,7 @@ vehicles:
 func checkJSON(t *testing.T, job string) encode.JobSummary {
 	t.Helper()
 	var out bytes.Buffer
-	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, job), Format: "json"}, &out))
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, job), Format: "json"}, outTo(&out)))
 	var s encode.JobSummary
 	require.NoError(t, json.Unmarshal(out.Bytes(), &s))
 	return s
@@ -168,7 +168,7 @@ func TestCheckReportsWhatItUnderstood(t *testing.T) {
 // The JSON keys are a machine contract: scripts read them.
 func TestCheckJSONKeys(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, checkJob), Format: "json"}, &out))
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, checkJob), Format: "json"}, outTo(&out)))
 	var top map[string]json.RawMessage
 	require.NoError(t, json.Unmarshal(out.Bytes(), &top))
 	for _, k := range []string{"input", "version", "valid", "units", "title", "section", "grade", "length", "spans",
@@ -191,7 +191,7 @@ func TestCheckJSONKeys(t *testing.T) {
 // Statics: each case's total downward load equals the sum of its support reactions in the
 // unfactored analysis (vertical equilibrium).
 func TestCheckTotalsMatchReactions(t *testing.T) {
-	for name, job := range map[string]string{"check job": checkJob, "starter": string(starterJob)} {
+	for name, job := range map[string]string{"check job": checkJob, "starter": string(optimise.StarterJob())} {
 		t.Run(name, func(t *testing.T) {
 			s := checkJSON(t, job)
 			setup, err := optimise.Prepare("job.yaml", []byte(job))
@@ -249,7 +249,7 @@ cases:
 	assert.Len(t, s.Notes, 3, "no piece limits, no vehicles, no costs")
 
 	var out bytes.Buffer
-	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, minimal), Format: "text"}, &out))
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, minimal), Format: "text"}, outTo(&out)))
 	text := out.String()
 	for _, want := range []string{"S355 (default)", "EN 1993-1-1 Table 3.1 (default)", "γG,sup 1.35 (default)",
 		"category A (default)", "max piece length no limit (default)", "invented indicative rates", "CAUTION"} {
@@ -270,7 +270,7 @@ func TestCheckGradeTable(t *testing.T) {
 
 func TestCheckTextOfStarter(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, string(starterJob)), Format: "text"}, &out))
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, string(optimise.StarterJob())), Format: "text"}, outTo(&out)))
 	text := out.String()
 	for _, want := range []string{
 		"Transfer beam under an offset column",
@@ -374,7 +374,7 @@ func TestCheckRoofRuleAndThermal(t *testing.T) {
 	assert.Contains(t, cb.Names, "ULS 6.10, T leading")
 
 	var out bytes.Buffer
-	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, roofCheckJob), Format: "text"}, &out))
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, roofCheckJob), Format: "text"}, outTo(&out)))
 	assert.Contains(t, out.String(), "Roof:      EN 1990 A1.2.1(3), EN 1991-1-1 3.3.2(1) applied (default): "+
 		"the imposed load on the roof (category H) is not combined with snow or wind")
 	assert.Regexp(t, `T +thermal +- +0\.6, 0\.5, 0 \(EN 1990 Table A1\.1\) +no \(default\)`, out.String())
@@ -385,7 +385,7 @@ func TestCheckRoofRuleAndThermal(t *testing.T) {
 	assert.False(t, s.Combinations.RoofImposedApplied)
 	assert.NotContains(t, s.Defaults, "combinations.roof_imposed_separate")
 	out.Reset()
-	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, off), Format: "text"}, &out))
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, off), Format: "text"}, outTo(&out)))
 	assert.Contains(t, out.String(), "EN 1990 A1.2.1(3), EN 1991-1-1 3.3.2(1) not applied (roof_imposed_separate: false)")
 
 	// a floor beam has no roof imposed load: no line, no rule named
@@ -393,6 +393,6 @@ func TestCheckRoofRuleAndThermal(t *testing.T) {
 	assert.False(t, s.Combinations.RoofImposedApplied)
 	assert.Empty(t, s.Combinations.RoofImposedRule)
 	out.Reset()
-	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, checkJob), Format: "text"}, &out))
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, checkJob), Format: "text"}, outTo(&out)))
 	assert.NotContains(t, out.String(), "A1.2.1")
 }

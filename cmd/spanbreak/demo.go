@@ -23,7 +23,7 @@ type demoOptions struct {
 	NoReport bool   // print the optimisation only
 }
 
-func newDemoCommand() *cobra.Command {
+func newDemoCommand(run func(demoOptions, streams) error, ios streams) *cobra.Command {
 	opts := demoOptions{}
 	cmd := &cobra.Command{
 		Use:   "demo",
@@ -35,7 +35,7 @@ scan.csv, layouts.csv, result.json) into ./` + defaultDemoDir + ` or --out. A re
 left by an earlier demo run is replaced; any other existing folder needs --force.`,
 		Args: argsUsage(cobra.NoArgs),
 		RunE: func(cmd *cobra.Command, _ []string) error {
-			return runDemo(opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	f := cmd.Flags()
@@ -47,11 +47,12 @@ left by an earlier demo run is replaced; any other existing folder needs --force
 }
 
 // runDemo optimises the embedded demo job, prints the result and writes the report.
-func runDemo(opts demoOptions, stdout, stderr io.Writer) error {
+func runDemo(opts demoOptions, ios streams) error {
+	stdout, stderr := ios.Out, ios.Err
 	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
-	if err := runOptimise(optimiseOptions{Demo: true, Format: opts.Format}, stdout, stderr); err != nil {
+	if err := runOptimise(optimiseOptions{Demo: true, Format: opts.Format}, ios); err != nil {
 		return err
 	}
 	if opts.NoReport {
@@ -62,7 +63,9 @@ func runDemo(opts demoOptions, stdout, stderr io.Writer) error {
 		out = defaultDemoDir
 		force = force || earlierDemoReport(out)
 	}
-	if err := runReport(reportOptions{Demo: true, Out: out, Force: force}, io.Discard); err != nil {
+	quiet := ios
+	quiet.Out = io.Discard
+	if err := runReport(reportOptions{Demo: true, Out: out, Force: force}, quiet); err != nil {
 		return err
 	}
 	where := stdout

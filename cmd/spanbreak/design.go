@@ -4,7 +4,6 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"io"
 	"math"
 	"strconv"
 	"strings"
@@ -34,7 +33,7 @@ type designOptions struct {
 	Gap           float64 // between the beam ends [mm] (sizing, direct mode)
 }
 
-func newDesignCommand() *cobra.Command {
+func newDesignCommand(run func(designOptions, streams) error, ios streams) *cobra.Command {
 	opts := designOptions{}
 	cmd := &cobra.Command{
 		Use:   "design [JOB.yaml --at X] | --section NAME --grade GRADE --uls M=..,V=..,N=..",
@@ -56,7 +55,7 @@ always checked.
 				opts.JobFile = args[0]
 			}
 			opts.AtSet = cmd.Flags().Changed("at")
-			return runDesign(opts, cmd.OutOrStdout())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	f := cmd.Flags()
@@ -76,7 +75,8 @@ always checked.
 }
 
 // runDesign sizes or checks the splice and writes the sheet; nothing is written on error.
-func runDesign(opts designOptions, w io.Writer) error {
+func runDesign(opts designOptions, ios streams) error {
+	w := ios.Out
 	if err := checkFormat(opts.Format, "text", "json"); err != nil {
 		return err
 	}

@@ -55,7 +55,7 @@ func TestParseDesignForces(t *testing.T) {
 
 func TestDesignDirectTextSheet(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runDesign(directOptions(), &out))
+	require.NoError(t, runDesign(directOptions(), outTo(&out)))
 	text := out.String()
 	for _, id := range []string{"detail.spacing", "detail.fit", "detail.preload", "flange.bolt.shear", "flange.bolt.bearing.beam",
 		"flange.bolt.bearing.plate", "flange.bolt.slip", "flange.plate.tension", "flange.plate.block", "flange.plate.compression",
@@ -78,7 +78,7 @@ func TestDesignJSONContract(t *testing.T) {
 	opts.Format = "json"
 	opts.At, opts.AtSet = 12.5, true
 	var out bytes.Buffer
-	require.NoError(t, runDesign(opts, &out))
+	require.NoError(t, runDesign(opts, outTo(&out)))
 	var doc map[string]any
 	require.NoError(t, json.Unmarshal(out.Bytes(), &doc))
 	for _, key := range []string{"position", "forces", "splice", "checks", "utilisation", "governing", "quantities", "cost"} {
@@ -119,7 +119,7 @@ func TestDesignSpliceFileRoundTrip(t *testing.T) {
 	opts := directOptions()
 	opts.Format = "json"
 	var out bytes.Buffer
-	require.NoError(t, runDesign(opts, &out))
+	require.NoError(t, runDesign(opts, outTo(&out)))
 	var doc struct {
 		Splice      json.RawMessage `json:"splice"`
 		Utilisation float64         `json:"utilisation"`
@@ -131,7 +131,7 @@ func TestDesignSpliceFileRoundTrip(t *testing.T) {
 
 	opts.SpliceFile = path
 	var again bytes.Buffer
-	require.NoError(t, runDesign(opts, &again))
+	require.NoError(t, runDesign(opts, outTo(&again)))
 	var doc2 struct {
 		Status      string  `json:"status"`
 		Utilisation float64 `json:"utilisation"`
@@ -178,14 +178,14 @@ func TestDesignSpliceFileChecks(t *testing.T) {
 	opts := directOptions()
 	opts.SpliceFile = writeSplice(t, goodSplice)
 	var out bytes.Buffer
-	require.NoError(t, runDesign(opts, &out))
+	require.NoError(t, runDesign(opts, outTo(&out)))
 	assert.Contains(t, out.String(), "checked as given")
 	assert.Contains(t, out.String(), "outer plate 15 × 200, 2 inner plates 15 × 65")
 
 	// a bolt too close to the plate edge fails a detailing check: the sheet is printed, exit 3
 	opts.SpliceFile = writeSplice(t, strings.Replace(strings.Replace(goodSplice, "gauge: 130", "gauge: 160", 1), "edge: 35", "edge: 20", 1))
 	out.Reset()
-	err := runDesign(opts, &out)
+	err := runDesign(opts, outTo(&out))
 	require.Error(t, err)
 	assert.Equal(t, exitInfeasible, exitCode(err))
 	assert.Contains(t, out.String(), "detail.spacing")
@@ -194,7 +194,7 @@ func TestDesignSpliceFileChecks(t *testing.T) {
 	// a web edge distance that contradicts depth and pitch is an error naming the field
 	opts.SpliceFile = writeSplice(t, strings.Replace(goodSplice, "  edge: 50", "  edge: 40", 1))
 	out.Reset()
-	err = runDesign(opts, &out)
+	err = runDesign(opts, outTo(&out))
 	require.Error(t, err)
 	assert.Contains(t, err.Error(), "web.edge")
 	assert.Empty(t, out.String(), "nothing half-written")
@@ -222,7 +222,7 @@ func TestDesignErrorsAndExitCodes(t *testing.T) {
 			o := directOptions()
 			row.edit(&o)
 			var out bytes.Buffer
-			err := runDesign(o, &out)
+			err := runDesign(o, outTo(&out))
 			require.Error(t, err)
 			assert.Equal(t, row.exit, exitCode(err))
 			assert.Contains(t, err.Error(), row.msg)
@@ -236,7 +236,7 @@ func TestDesignErrorsAndExitCodes(t *testing.T) {
 
 // TestDesignCommandFlags: argv → options → output through cobra.
 func TestDesignCommandFlags(t *testing.T) {
-	cmd := newDesignCommand()
+	cmd := newDesignCommand(runDesign, streams{})
 	var out, errb bytes.Buffer
 	cmd.SetOut(&out)
 	cmd.SetErr(&errb)

@@ -4,17 +4,11 @@ import (
 	_ "embed"
 	"errors"
 	"fmt"
-	"io"
 	"io/fs"
+	"spanbreak/optimise"
 
 	"github.com/spf13/cobra"
 )
-
-// starterJob is the commented job `spanbreak init` writes: a transfer beam in a car-park deck,
-// a scenario invented for the tool, that checks and analyses as it stands.
-//
-//go:embed starter.yaml
-var starterJob []byte
 
 // initOptions are the inputs of `spanbreak init`.
 type initOptions struct {
@@ -22,7 +16,7 @@ type initOptions struct {
 	Force bool   // replace File if it exists
 }
 
-func newInitCommand() *cobra.Command {
+func newInitCommand(run func(initOptions, streams) error, ios streams) *cobra.Command {
 	opts := initOptions{}
 	cmd := &cobra.Command{
 		Use:   "init [FILE]",
@@ -37,7 +31,7 @@ all. Every key is described by "spanbreak help job-file".`,
 			if len(args) == 1 {
 				opts.File = args[0]
 			}
-			return runInit(opts, cmd.OutOrStdout())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	cmd.Flags().BoolVar(&opts.Force, "force", false, "replace FILE if it already exists")
@@ -45,15 +39,16 @@ all. Every key is described by "spanbreak help job-file".`,
 }
 
 // runInit prints the starter job, or writes it to opts.File and says so on stdout.
-func runInit(opts initOptions, stdout io.Writer) error {
+func runInit(opts initOptions, ios streams) error {
+	stdout := ios.Out
 	if opts.File == "" {
 		if opts.Force {
 			return usageError(errors.New("--force needs a FILE to replace"))
 		}
-		_, err := stdout.Write(starterJob)
+		_, err := stdout.Write(optimise.StarterJob())
 		return err
 	}
-	if err := writeFileAtomic(opts.File, starterJob, opts.Force); err != nil {
+	if err := writeFileAtomic(opts.File, optimise.StarterJob(), opts.Force); err != nil {
 		if errors.Is(err, fs.ErrExist) {
 			return fmt.Errorf("%w (pass --force to replace it)", err)
 		}

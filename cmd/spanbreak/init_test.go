@@ -5,8 +5,6 @@ import (
 	"io/fs"
 	"os"
 	"path/filepath"
-	"reflect"
-	"strings"
 	"testing"
 
 	"github.com/spf13/cobra"
@@ -14,19 +12,18 @@ import (
 	"github.com/stretchr/testify/require"
 
 	"spanbreak/optimise"
-	"spanbreak/optimise/jobfile"
 )
 
 // runMine runs a command line like execute does, on a root that has this file's commands
 // (init, check, help job-file) whether or not root.go registers them yet.
 func runMine(t *testing.T, args ...string) (stdout, stderr string, code int) {
 	t.Helper()
-	root := newRootCommand()
+	root := newRootCommand(realRunners(), streams{})
 	have := map[string]bool{}
 	for _, c := range root.Commands() {
 		have[c.Name()] = true
 	}
-	for _, c := range []*cobra.Command{newInitCommand(), newCheckCommand(), newJobFileHelpTopic()} {
+	for _, c := range []*cobra.Command{newInitCommand(runInit, streams{}), newCheckCommand(runCheck, streams{}), newJobFileHelpTopic()} {
 		if !have[c.Name()] {
 			root.AddCommand(c)
 		}
@@ -45,7 +42,7 @@ func runMine(t *testing.T, args ...string) (stdout, stderr string, code int) {
 // The starter job runs as it stands: it decodes and validates, the beam analyses, and a
 // whole optimisation finds a layout within its limits.
 func TestStarterRunsAsIs(t *testing.T) {
-	s, err := optimise.Prepare("starter.yaml", starterJob)
+	s, err := optimise.Prepare("starter.yaml", optimise.StarterJob())
 	require.NoError(t, err)
 	_, err = s.Analyse()
 	require.NoError(t, err)
@@ -58,40 +55,20 @@ func TestStarterRunsAsIs(t *testing.T) {
 	}
 }
 
-// The starter shows every block of the job file and says that its data are invented.
-func TestStarterShowsEveryBlock(t *testing.T) {
-	job, err := jobfile.LoadJob("starter.yaml", starterJob)
-	require.NoError(t, err)
-	typ := reflect.TypeFor[jobfile.Job]()
-	for i := range typ.NumField() {
-		tag, ok := typ.Field(i).Tag.Lookup("yaml")
-		if !ok {
-			continue
-		}
-		key, _, _ := strings.Cut(tag, ",")
-		assert.True(t, job.Has(key), "the starter has no %s block", key)
-	}
-	text := string(starterJob)
-	assert.Contains(t, job.Title, "invented")
-	assert.Contains(t, text, "INVENTED")
-	assert.Contains(t, text, "spanbreak help job-file")
-	assert.NotContains(t, job.Title, "bus-depot", "the starter is not the demo's scenario")
-}
-
 func TestInitPrintsStarter(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runInit(initOptions{}, &out))
-	assert.Equal(t, string(starterJob), out.String())
+	require.NoError(t, runInit(initOptions{}, outTo(&out)))
+	assert.Equal(t, string(optimise.StarterJob()), out.String())
 }
 
 func TestInitWritesFile(t *testing.T) {
 	dir := t.TempDir()
 	path := filepath.Join(dir, "beam.yaml")
 	var out bytes.Buffer
-	require.NoError(t, runInit(initOptions{File: path}, &out))
+	require.NoError(t, runInit(initOptions{File: path}, outTo(&out)))
 	got, err := os.ReadFile(path)
 	require.NoError(t, err)
-	assert.Equal(t, starterJob, got)
+	assert.Equal(t, optimise.StarterJob(), got)
 	assert.Contains(t, out.String(), "wrote "+path)
 	assert.Contains(t, out.String(), "spanbreak check "+path)
 	assert.Equal(t, []string{"beam.yaml"}, folderNames(t, dir))
@@ -103,7 +80,7 @@ func TestInitRefusesToOverwrite(t *testing.T) {
 	mine := []byte("title: my own job, hours of work\n")
 	require.NoError(t, os.WriteFile(path, mine, 0o644))
 	var out bytes.Buffer
-	err := runInit(initOptions{File: path}, &out)
+	err := runInit(initOptions{File: path}, outTo(&out))
 	require.Error(t, err)
 	assert.ErrorIs(t, err, fs.ErrExist)
 	assert.Equal(t, exitFailure, exitCode(err))
@@ -114,9 +91,9 @@ func TestInitRefusesToOverwrite(t *testing.T) {
 	assert.Equal(t, mine, got, "the existing job is untouched")
 	assert.Equal(t, []string{"beam.yaml"}, folderNames(t, dir), "nothing else is left in the folder")
 
-	require.NoError(t, runInit(initOptions{File: path, Force: true}, &out))
+	require.NoError(t, runInit(initOptions{File: path, Force: true}, outTo(&out)))
 	got, _ = os.ReadFile(path)
-	assert.Equal(t, starterJob, got, "--force replaces it")
+	assert.Equal(t, optimise.StarterJob(), got, "--force replaces it")
 }
 
 // The command line: argv → options → file, exit statuses as documented.
@@ -126,7 +103,7 @@ func TestInitCommandLine(t *testing.T) {
 
 	out, stderr, code := runMine(t, "init")
 	require.Equal(t, exitOK, code, stderr)
-	assert.Equal(t, string(starterJob), out)
+	assert.Equal(t, string(optimise.StarterJob()), out)
 
 	_, stderr, code = runMine(t, "init", path)
 	require.Equal(t, exitOK, code, stderr)

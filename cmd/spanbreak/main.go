@@ -12,17 +12,20 @@ import (
 )
 
 func main() {
-	os.Exit(execute(os.Args[1:], os.Stdout, os.Stderr))
+	os.Exit(executeWith(os.Args[1:], realRunners(), osStreams()))
 }
 
-// execute runs one command line and returns the process exit status.
+// execute runs one command line with the real commands and returns the process exit status.
 func execute(args []string, stdout, stderr io.Writer) int {
-	root := newRootCommand()
+	return executeWith(args, realRunners(), streams{Out: stdout, Err: stderr})
+}
+
+// executeWith runs one command line with the given runners and streams.
+func executeWith(args []string, r runners, ios streams) int {
+	root := newRootCommand(r, ios)
 	root.SetArgs(args)
-	root.SetOut(stdout)
-	root.SetErr(stderr)
 	if err := root.Execute(); err != nil {
-		fmt.Fprintf(stderr, "spanbreak: %v\n", err)
+		fmt.Fprintf(ios.Err, "spanbreak: %v\n", err)
 		return exitCode(err)
 	}
 	return exitOK

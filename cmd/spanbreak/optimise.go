@@ -14,7 +14,6 @@ import (
 
 	"github.com/schollz/progressbar/v3"
 	"github.com/spf13/cobra"
-	"golang.org/x/term"
 
 	"spanbreak/optimise"
 	"spanbreak/plots/encode"
@@ -31,10 +30,9 @@ type optimiseOptions struct {
 	Out        string   // folder to write the results into as files; "" for none
 	Force      bool     // replace files already in Out
 	Jobs       int      // jobs optimised at once in a batch; 0: one per CPU
-	Progress   *bool    // show a progress bar in a batch; nil: when stderr is a terminal
 }
 
-func newOptimiseCommand() *cobra.Command {
+func newOptimiseCommand(run func(optimiseOptions, streams) error, ios streams) *cobra.Command {
 	opts := optimiseOptions{}
 	cmd := &cobra.Command{
 		Use:   "optimise JOB.yaml [JOB.yaml...|DIR]",
@@ -52,7 +50,7 @@ Exit status 3 means the run worked but no layout satisfies the limits.`,
 		Args: argsUsage(cobra.MinimumNArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.Paths = args
-			return runOptimise(opts, cmd.OutOrStdout(), cmd.ErrOrStderr())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	f := cmd.Flags()
@@ -68,7 +66,8 @@ Exit status 3 means the run worked but no layout satisfies the limits.`,
 
 // runOptimise optimises one job or a batch and writes the result; for one job nothing is
 // written on error.
-func runOptimise(opts optimiseOptions, stdout, stderr io.Writer) error {
+func runOptimise(opts optimiseOptions, ios streams) error {
+	stdout := ios.Out
 	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
@@ -93,7 +92,7 @@ func runOptimise(opts optimiseOptions, stdout, stderr io.Writer) error {
 	if !batch {
 		return optimiseOne(opts, set, files[0], stdout)
 	}
-	return optimiseBatch(opts, set, files, stdout, stderr)
+	return optimiseBatch(opts, set, files, ios)
 }
 
 // jobFiles expands the arguments: files as given, folders to their *.yaml and *.yml files in
@@ -159,13 +158,14 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 
 // --- batch -----------------------------------------------------------------------------
 
-func optimiseBatch(opts optimiseOptions, set optimise.Settings, files []string, stdout, stderr io.Writer) error {
+func optimiseBatch(opts optimiseOptions, set optimise.Settings, files []string, ios streams) error {
+	stdout := ios.Out
 	inputs := make([]optimise.BatchInput, len(files))
 	for i, f := range files {
 		data, err := readInput(f)
 		inputs[i] = optimise.BatchInput{File: f, Data: data, Err: err}
 	}
-	progress, finish := progressReporter(opts, stderr, len(files))
+	progress, finish := progressReporter(ios, len(files))
 	outcomes := optimise.Batch(inputs, set, opts.Jobs, progress)
 	finish()
 	var buf bytes.Buffer
@@ -184,18 +184,12 @@ func optimiseBatch(opts optimiseOptions, set optimise.Settings, files []string, 
 }
 
 // progressReporter returns the batch's progress callback and a function that ends the bar: a
-// bar on stderr when it is a terminal (or when opts.Progress says so), nothing otherwise.
-func progressReporter(opts optimiseOptions, stderr io.Writer, total int) (func(done, total int), func()) {
-	show := false
-	if opts.Progress != nil {
-		show = *opts.Progress
-	} else if f, ok := stderr.(*os.File); ok {
-		show = term.IsTerminal(int(f.Fd()))
-	}
-	if !show {
+// bar on stderr when it is a terminal, nothing otherwise.
+func progressReporter(ios streams, total int) (func(done, total int), func()) {
+	if !ios.ErrTerminal {
 		return nil, func() {}
 	}
-	bar := progressbar.NewOptions(total, progressbar.OptionSetWriter(stderr), progressbar.OptionSetDescription("optimising"),
+	bar := progressbar.NewOptions(total, progressbar.OptionSetWriter(ios.Err), progressbar.OptionSetDescription("optimising"),
 		progressbar.OptionShowCount(), progressbar.OptionClearOnFinish(), progressbar.OptionSetWidth(30))
 	return func(done, _ int) { _ = bar.Set(done) }, func() { _ = bar.Finish() }
 }

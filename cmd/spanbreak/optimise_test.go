@@ -19,14 +19,14 @@ const smallJob = "../../optimise/testdata/small-space.yaml"
 func runOpt(t *testing.T, opts optimiseOptions) (string, string, error) {
 	t.Helper()
 	var out, errw bytes.Buffer
-	err := runOptimise(opts, &out, &errw)
+	err := runOptimise(opts, streams{Out: &out, Err: &errw})
 	return out.String(), errw.String(), err
 }
 
 // execOptimise runs the command line through cobra: argv → options → output.
 func execOptimise(t *testing.T, args ...string) (string, error) {
 	t.Helper()
-	cmd := newOptimiseCommand()
+	cmd := newOptimiseCommand(runOptimise, streams{})
 	var out, errw bytes.Buffer
 	cmd.SetArgs(args)
 	cmd.SetOut(&out)
@@ -246,13 +246,14 @@ func TestOptimiseBatchBadFileExitsWith1(t *testing.T) {
 	src, err := os.ReadFile(smallJob)
 	require.NoError(t, err)
 	require.NoError(t, os.WriteFile(filepath.Join(dir, "good.yaml"), src, 0o644))
-	progress := true
-	out, stderr, err := runOpt(t, optimiseOptions{Paths: []string{filepath.Join(dir, "bad.yaml"), filepath.Join(dir, "good.yaml")},
-		Format: "text", Progress: &progress})
+	var outb, errb bytes.Buffer
+	err = runOptimise(optimiseOptions{Paths: []string{filepath.Join(dir, "bad.yaml"), filepath.Join(dir, "good.yaml")},
+		Format: "text"}, streams{Out: &outb, Err: &errb, ErrTerminal: true})
+	out, stderr := outb.String(), errb.String()
 	assert.Equal(t, exitFailure, exitCode(err))
 	assert.Contains(t, out, "bad.yaml")
 	assert.Contains(t, out, "good.yaml")
-	assert.Contains(t, stderr, "optimising", "the bar when asked for")
+	assert.Contains(t, stderr, "optimising", "the bar when stderr is a terminal")
 }
 
 func TestOptimiseOutFolder(t *testing.T) {

@@ -4,11 +4,9 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"io"
 	"os"
 	"path/filepath"
 	"sort"
-	"time"
 
 	"github.com/spf13/cobra"
 
@@ -24,10 +22,9 @@ type reportOptions struct {
 	Out     string  // folder to write
 	Force   bool    // replace Out if it exists
 	Step    float64 // candidate spacing [m]; 0 takes the job's scan.step
-	Date    string  // date printed on the report; "" is today (tests fix it)
 }
 
-func newReportCommand() *cobra.Command {
+func newReportCommand(run func(reportOptions, streams) error, ios streams) *cobra.Command {
 	opts := reportOptions{}
 	cmd := &cobra.Command{
 		Use:   "report JOB.yaml --out DIR",
@@ -43,7 +40,7 @@ which is renamed to DIR at the end. An existing DIR is replaced only with --forc
 		Args: argsUsage(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.JobFile = args[0]
-			return runReport(opts, cmd.OutOrStdout())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	f := cmd.Flags()
@@ -61,7 +58,8 @@ type reportFile struct {
 
 // runReport optimises the job, builds the report in memory and writes the folder; nothing is
 // left behind on error.
-func runReport(opts reportOptions, stdout io.Writer) error {
+func runReport(opts reportOptions, ios streams) error {
+	stdout := ios.Out
 	if opts.Out == "" {
 		return usageError(errors.New("--out: give the folder to write the report into"))
 	}
@@ -85,10 +83,7 @@ func runReport(opts reportOptions, stdout io.Writer) error {
 		}
 		return err
 	}
-	date := opts.Date
-	if date == "" {
-		date = time.Now().Format("2006-01-02")
-	}
+	date := ios.now().Format("2006-01-02")
 	files, err := reportFiles(setup, res, date)
 	if err != nil {
 		return err

@@ -31,7 +31,7 @@ func TestRunReportDemoWritesTheFolder(t *testing.T) {
 	parent := t.TempDir()
 	out := filepath.Join(parent, "report")
 	var stdout bytes.Buffer
-	require.NoError(t, runReport(reportOptions{Demo: true, Out: out, Date: "2000-01-01"}, &stdout))
+	require.NoError(t, runReport(reportOptions{Demo: true, Out: out}, outTo(&stdout)))
 
 	want := []string{"layouts.csv", "report.pdf", "result.json", "scan.csv"}
 	figures := []string{"cost", "envelopes", "layouts", "utilisation"}
@@ -85,7 +85,7 @@ func TestRunReportDemoWritesTheFolder(t *testing.T) {
 	scan, err := os.ReadFile(filepath.Join(out, "scan.csv"))
 	require.NoError(t, err)
 	var optimiseCSV bytes.Buffer
-	require.NoError(t, runOptimise(optimiseOptions{Demo: true, Format: "csv"}, &optimiseCSV, &bytes.Buffer{}))
+	require.NoError(t, runOptimise(optimiseOptions{Demo: true, Format: "csv"}, outTo(&optimiseCSV)))
 	assert.Equal(t, optimiseCSV.String(), string(scan), "scan.csv is what optimise --format csv prints")
 	text := stdout.String()
 	assert.Contains(t, text, fmt.Sprintf("Wrote %d files to %s", len(want), out))
@@ -101,7 +101,7 @@ func TestRunReportReplacesOnlyWithForce(t *testing.T) {
 	require.NoError(t, os.WriteFile(marker, []byte("earlier work"), 0o644))
 
 	var stdout bytes.Buffer
-	err := runReport(reportOptions{Demo: true, Out: out, Date: "2000-01-01"}, &stdout)
+	err := runReport(reportOptions{Demo: true, Out: out}, outTo(&stdout))
 	require.Error(t, err)
 	assert.Contains(t, err.Error(), "--force")
 	assert.Equal(t, exitUsage, exitCode(err))
@@ -109,7 +109,7 @@ func TestRunReportReplacesOnlyWithForce(t *testing.T) {
 	assert.Equal(t, []string{"report"}, folderNames(t, parent))
 	assert.Zero(t, stdout.Len())
 
-	require.NoError(t, runReport(reportOptions{Demo: true, Out: out, Force: true, Date: "2000-01-01"}, &stdout))
+	require.NoError(t, runReport(reportOptions{Demo: true, Out: out, Force: true}, outTo(&stdout)))
 	assert.NoFileExists(t, marker, "--force replaces the folder as a whole")
 	assert.FileExists(t, filepath.Join(out, "report.pdf"))
 	assert.Equal(t, []string{"report"}, folderNames(t, parent), "neither the temporary nor the old folder is left")
@@ -136,7 +136,7 @@ func TestRunReportErrors(t *testing.T) {
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
 			var stdout bytes.Buffer
-			err := runReport(tt.opts, &stdout)
+			err := runReport(tt.opts, outTo(&stdout))
 			require.Error(t, err)
 			assert.Contains(t, err.Error(), tt.want)
 			assert.Equal(t, tt.exit, exitCode(err))
@@ -155,7 +155,7 @@ func TestReportCommandParsesArgsAndFlags(t *testing.T) {
 	require.NoError(t, os.WriteFile(job, optimise.DemoJob(), 0o644))
 	out := filepath.Join(dir, "out")
 
-	cmd := newReportCommand()
+	cmd := newReportCommand(runReport, streams{})
 	var stdout bytes.Buffer
 	cmd.SetOut(&stdout)
 	cmd.SetErr(&bytes.Buffer{})
@@ -169,7 +169,7 @@ func TestReportCommandParsesArgsAndFlags(t *testing.T) {
 	require.NoError(t, json.Unmarshal(raw, &result))
 	assert.InDelta(t, 0.1, result.Step, 1e-12, "--step reaches the scan")
 
-	cmd = newReportCommand()
+	cmd = newReportCommand(runReport, streams{})
 	cmd.SetOut(&bytes.Buffer{})
 	cmd.SetErr(&bytes.Buffer{})
 	cmd.SetArgs([]string{job, "--out", out}) // exists now, no --force
@@ -177,13 +177,13 @@ func TestReportCommandParsesArgsAndFlags(t *testing.T) {
 	require.Error(t, err)
 	assert.Equal(t, exitUsage, exitCode(err))
 
-	cmd = newReportCommand()
+	cmd = newReportCommand(runReport, streams{})
 	cmd.SetOut(&bytes.Buffer{})
 	cmd.SetErr(&bytes.Buffer{})
 	cmd.SetArgs([]string{job, "--out", out, "--force"})
 	require.NoError(t, cmd.Execute())
 
-	cmd = newReportCommand()
+	cmd = newReportCommand(runReport, streams{})
 	cmd.SetOut(&bytes.Buffer{})
 	cmd.SetErr(&bytes.Buffer{})
 	cmd.SetArgs([]string{"--out", out})

@@ -21,7 +21,9 @@ func version() string {
 	return "dev"
 }
 
-func newRootCommand() *cobra.Command {
+// newRootCommand builds the command tree: each command parses its flags into its options and
+// calls its runner with the streams.
+func newRootCommand(r runners, ios streams) *cobra.Command {
 	root := &cobra.Command{
 		Use:   "spanbreak",
 		Short: "Where to splice a long steel beam, and what each bolted splice costs",
@@ -35,15 +37,17 @@ splices to EN 1993-1-8 and finds where to break the beam for transport and erect
 		Version:       version(),
 	}
 	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return usageError(err) })
+	root.SetOut(ios.Out)
+	root.SetErr(ios.Err)
 	root.AddCommand(
-		newDemoCommand(),
-		newAnalyseCommand(),
-		newSectionsCommand(),
-		newDesignCommand(),
-		newOptimiseCommand(),
-		newReportCommand(),
-		newInitCommand(),
-		newCheckCommand(),
+		newDemoCommand(r.Demo, ios),
+		newAnalyseCommand(r.Analyse, ios),
+		newSectionsCommand(r.Sections, ios),
+		newDesignCommand(r.Design, ios),
+		newOptimiseCommand(r.Optimise, ios),
+		newReportCommand(r.Report, ios),
+		newInitCommand(r.Init, ios),
+		newCheckCommand(r.Check, ios),
 		newJobFileHelpTopic(),
 	)
 	return root

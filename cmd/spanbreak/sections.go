@@ -6,7 +6,6 @@ import (
 	"encoding/json"
 	"errors"
 	"fmt"
-	"io"
 	"math"
 	"strconv"
 	"strings"
@@ -23,7 +22,7 @@ type sectionsOptions struct {
 	Format string // text | json | csv
 }
 
-func newSectionsCommand() *cobra.Command {
+func newSectionsCommand(run func(sectionsOptions, streams) error, ios streams) *cobra.Command {
 	opts := sectionsOptions{Format: "text"}
 	cmd := &cobra.Command{
 		Use:   "sections [FILTER]",
@@ -41,7 +40,7 @@ check values.`,
 			if len(args) == 1 {
 				opts.Filter = args[0]
 			}
-			return runSections(opts, cmd.OutOrStdout())
+			return run(opts, ios.of(cmd))
 		},
 	}
 	cmd.Flags().StringVar(&opts.Format, "format", opts.Format, "output format: text, json or csv")
@@ -50,7 +49,8 @@ check values.`,
 
 // runSections writes the catalogue rows matching opts.Filter to w in opts.Format. Nothing is
 // written when it fails.
-func runSections(opts sectionsOptions, w io.Writer) error {
+func runSections(opts sectionsOptions, ios streams) error {
+	w := ios.Out
 	var render func([]beam.Section) ([]byte, error)
 	switch opts.Format {
 	case "text", "":

@@ -13,7 +13,7 @@ import (
 
 func TestRunSectionsTextSingleSection(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runSections(sectionsOptions{Filter: "ipe500", Format: "text"}, &out))
+	require.NoError(t, runSections(sectionsOptions{Filter: "ipe500", Format: "text"}, outTo(&out)))
 	text := out.String()
 	for _, want := range []string{
 		"h [mm]", "b [mm]", "tw [mm]", "tf [mm]", "r [mm]", "A [cm²]", "Iy [cm⁴]",
@@ -29,7 +29,7 @@ func TestRunSectionsTextSingleSection(t *testing.T) {
 
 func TestRunSectionsTextListAligned(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runSections(sectionsOptions{Filter: "HEB", Format: "text"}, &out))
+	require.NoError(t, runSections(sectionsOptions{Filter: "HEB", Format: "text"}, outTo(&out)))
 	lines := strings.Split(strings.TrimRight(out.String(), "\n"), "\n")
 	// header + 24 HE B rows + blank + summary
 	require.Len(t, lines, 27)
@@ -46,7 +46,7 @@ func TestRunSectionsTextListAligned(t *testing.T) {
 func TestRunSectionsExactNameWinsOverSubstring(t *testing.T) {
 	// "HEA 100" is also a substring of "HEA 1000"; naming a section shows that one.
 	var out bytes.Buffer
-	require.NoError(t, runSections(sectionsOptions{Filter: "HEA 100", Format: "csv"}, &out))
+	require.NoError(t, runSections(sectionsOptions{Filter: "HEA 100", Format: "csv"}, outTo(&out)))
 	rows, err := csv.NewReader(&out).ReadAll()
 	require.NoError(t, err)
 	require.Len(t, rows, 2)
@@ -55,7 +55,7 @@ func TestRunSectionsExactNameWinsOverSubstring(t *testing.T) {
 
 func TestRunSectionsJSON(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runSections(sectionsOptions{Filter: "IPE 300", Format: "json"}, &out))
+	require.NoError(t, runSections(sectionsOptions{Filter: "IPE 300", Format: "json"}, outTo(&out)))
 	raw := out.String()
 	// stable key order with units in the key names
 	assert.Contains(t, raw, "\"name\": \"IPE 300\",\n    \"series\": \"IPE\",\n    \"h_mm\": 300,\n    \"b_mm\": 150,")
@@ -76,14 +76,14 @@ func TestRunSectionsJSON(t *testing.T) {
 	assert.InEpsilon(t, 8356, r["Iy_published_cm4"], 1e-9)
 
 	out.Reset()
-	require.NoError(t, runSections(sectionsOptions{Format: "json"}, &out))
+	require.NoError(t, runSections(sectionsOptions{Format: "json"}, outTo(&out)))
 	require.NoError(t, json.Unmarshal(out.Bytes(), &records))
 	assert.Len(t, records, 201)
 }
 
 func TestRunSectionsCSV(t *testing.T) {
 	var out bytes.Buffer
-	require.NoError(t, runSections(sectionsOptions{Filter: "UC 305", Format: "csv"}, &out))
+	require.NoError(t, runSections(sectionsOptions{Filter: "UC 305", Format: "csv"}, outTo(&out)))
 	rows, err := csv.NewReader(&out).ReadAll()
 	require.NoError(t, err)
 	assert.Equal(t, []string{"name", "series", "h_mm", "b_mm", "tw_mm", "tf_mm", "r_mm", "A_cm2", "Iy_cm4",
@@ -109,7 +109,7 @@ func TestRunSectionsErrors(t *testing.T) {
 	for _, tt := range tests {
 		t.Run(tt.name, func(t *testing.T) {
 			var out bytes.Buffer
-			err := runSections(tt.opts, &out)
+			err := runSections(tt.opts, outTo(&out))
 			require.Error(t, err)
 			for _, want := range tt.want {
 				assert.Contains(t, err.Error(), want)
@@ -121,7 +121,7 @@ func TestRunSectionsErrors(t *testing.T) {
 }
 
 func TestSectionsCommandParsesArgsAndFlags(t *testing.T) {
-	cmd := newSectionsCommand()
+	cmd := newSectionsCommand(runSections, streams{})
 	var out bytes.Buffer
 	cmd.SetOut(&out)
 	cmd.SetErr(&bytes.Buffer{})
@@ -132,7 +132,7 @@ func TestSectionsCommandParsesArgsAndFlags(t *testing.T) {
 	require.Len(t, rows, 2)
 	assert.Equal(t, "HE 300 B", rows[1][0])
 
-	cmd = newSectionsCommand()
+	cmd = newSectionsCommand(runSections, streams{})
 	cmd.SetOut(&bytes.Buffer{})
 	cmd.SetErr(&bytes.Buffer{})
 	cmd.SetArgs([]string{"IPE", "HEB"})
