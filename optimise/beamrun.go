@@ -22,6 +22,9 @@ type BeamOutcome struct {
 	Stations  []beam.Station
 	Envelopes *beam.Envelopes  // nil for one case
 	Case      *beam.CaseResult // nil for the envelopes
+	// Member are the beam's own checks over the whole beam (at every key point and
+	// ChartIntervals intervals, whatever the stations asked for); nil for one case.
+	Member *MemberChecks
 }
 
 // SettingError is a run setting (not the job file) that cannot be used: a command line
@@ -74,5 +77,39 @@ func AnalyseBeam(s *Setup, set BeamSettings) (*BeamOutcome, error) {
 		return nil, err
 	}
 	o.Envelopes = &env
+	fine, err := chartEnvelopes(an, s)
+	if err != nil {
+		return nil, err
+	}
+	m, err := s.CheckMember(an, &fine)
+	if err != nil {
+		return nil, err
+	}
+	o.Member = &m
 	return o, nil
+}
+
+// JobCheck is what a check of the job reports: the resolved job, its analysis (a mechanism or
+// an overflow is an error) and the beam's own checks.
+type JobCheck struct {
+	Setup    *Setup
+	Analysis *beam.Analysis
+	Member   MemberChecks
+}
+
+// CheckJob analyses the job's beam and checks the beam itself.
+func CheckJob(s *Setup) (*JobCheck, error) {
+	an, err := s.Analyse()
+	if err != nil {
+		return nil, err
+	}
+	env, err := chartEnvelopes(an, s)
+	if err != nil {
+		return nil, err
+	}
+	m, err := s.CheckMember(an, &env)
+	if err != nil {
+		return nil, err
+	}
+	return &JobCheck{Setup: s, Analysis: an, Member: m}, nil
 }

@@ -2,6 +2,7 @@ package optimise
 
 import (
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 
@@ -22,6 +23,12 @@ type DesignOutcome struct {
 	Grade      string
 	PlateGrade string
 	Indicative bool // priced at the splice package's indicative rates
+	// Origins name the combination and pattern of every design force; nil for direct forces.
+	Origins *PositionOrigins
+	// Beam is the beam's cross-section under the same design forces; Member the beam's own
+	// checks over its whole length (nil for direct forces).
+	Beam   SectionCheck
+	Member *MemberChecks
 }
 
 // DesignAt sizes the cheapest splice for the envelope forces at x [mm] (the worse side at a
@@ -34,10 +41,22 @@ func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*Design
 	if err != nil {
 		return nil, err
 	}
-	fs, err := DesignForces(an, s.Combinations, []float64{x})
+	fs, origins, err := DesignForcesTraced(an, s.Combinations, []float64{x})
 	if probs, ok := s.LocateOverflow(err); ok {
 		return nil, probs
 	}
+	if err != nil {
+		return nil, err
+	}
+	fine, err := chartEnvelopes(an, s)
+	if err != nil {
+		return nil, err
+	}
+	member, err := s.CheckMember(an, &fine)
+	if err != nil {
+		return nil, err
+	}
+	section, err := s.SectionAt(fs[0].ULS)
 	if err != nil {
 		return nil, err
 	}
@@ -49,7 +68,8 @@ func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*Design
 	pos := x / 1e3
 	o := &DesignOutcome{Problem: p, Position: &pos, SpliceFile: file,
 		Input:   fmt.Sprintf("%s, envelopes at x = %.3f m (worse side at a jump)", s.File, pos),
-		Section: s.Section.Name, Grade: s.Grade.Name, PlateGrade: s.PlateGrade, Indicative: !s.Costed}
+		Section: s.Section.Name, Grade: s.Grade.Name, PlateGrade: s.PlateGrade, Indicative: !s.Costed,
+		Origins: &origins[0], Member: &member, Beam: section}
 	return o, o.run(fixed)
 }
 
@@ -89,6 +109,15 @@ func DirectDesign(spec DirectSpec, fixed *splice.Geometry, file string) (*Design
 	if err != nil {
 		return nil, err
 	}
+	bm, err := beam.NewMember(sec, grade, beam.MemberSettings{Table: beam.TableEN1993})
+	if err != nil {
+		return nil, &SettingError{"section", err}
+	}
+	forces := ForceSet{MMax: spec.ULS.MMax, MMin: spec.ULS.MMin, V: math.Abs(spec.ULS.V), NMax: spec.ULS.NMax, NMin: spec.ULS.NMin}
+	section, err := sectionAt(bm, forces)
+	if err != nil {
+		return nil, err
+	}
 	dist, err := splice.ParseDistribution(spec.Distribution)
 	if err != nil {
 		return nil, &SettingError{"distribution", err}
@@ -108,7 +137,7 @@ func DirectDesign(spec DirectSpec, fixed *splice.Geometry, file string) (*Design
 		Problem:  splice.Problem{Member: m, ULS: spec.ULS, SLS: spec.SLS, PlateSteel: directSteel(plate), Distribution: dist, Sizing: z},
 		Position: spec.Position, SpliceFile: file,
 		Input:   "direct forces (--section, --grade, --uls, --sls)",
-		Section: sec.Name, Grade: grade.Name, PlateGrade: plate.Name, Indicative: true,
+		Section: sec.Name, Grade: grade.Name, PlateGrade: plate.Name, Indicative: true, Beam: section,
 	}
 	return o, o.run(fixed)
 }

@@ -52,21 +52,82 @@ func DesignForces(an *beam.Analysis, combos []beam.Combination, xs []float64) ([
 		return nil, err
 	}
 	out := make([]PositionForces, len(xs))
+	for c, idx := range positionStations(st, len(xs)) {
+		out[c] = PositionForces{ULS: forceSetAt(&env.ULS, idx), SLS: forceSetAt(&env.SLS, idx)}
+	}
+	return out, nil
+}
+
+// positionStations groups the stations StationsAt gives for n positions: one station per
+// position, two (left, right) at a jump, in order.
+func positionStations(st []beam.Station, n int) [][]int {
+	out := make([][]int, n)
 	k := 0
-	for c := range xs {
+	for c := range n {
 		start := k
-		// StationsAt gives one station per position, two (left, right) at a jump, in order.
 		for k < len(st) && (k == start || st[k].X == st[start].X && st[k].Side != st[k-1].Side) {
 			k++
 		}
-		idx := make([]int, 0, 2)
+		out[c] = make([]int, 0, 2)
 		for i := start; i < k; i++ {
-			idx = append(idx, i)
+			out[c] = append(out[c], i)
 		}
-		out[c] = PositionForces{ULS: forceSetAt(&env.ULS, idx), SLS: forceSetAt(&env.SLS, idx)}
 	}
 	if k != len(st) {
-		panic(fmt.Sprintf("optimise: %d stations for %d positions, %d read", len(st), len(xs), k))
+		panic(fmt.Sprintf("optimise: %d stations for %d positions, %d read", len(st), n, k))
 	}
-	return out, nil
+	return out
+}
+
+// ForceOrigins name, for each design force of one limit state, the combination and the span
+// pattern that produce it (beam.Envelopes.Governing), so that a checker can rebuild it.
+type ForceOrigins struct {
+	MMax, MMin, V, NMax, NMin string
+}
+
+// PositionOrigins are the origins of the ULS and SLS design forces at one position.
+type PositionOrigins struct {
+	ULS, SLS ForceOrigins
+}
+
+// originsAt names the extremes forceSetAt takes at the stations idx.
+func originsAt(env *beam.Envelopes, e *beam.Envelope, idx []int) ForceOrigins {
+	pick := func(ex []beam.Extreme, better func(a, b float64) bool) beam.Extreme {
+		best := ex[idx[0]]
+		for _, i := range idx[1:] {
+			if better(ex[i].Value, best.Value) {
+				best = ex[i]
+			}
+		}
+		return best
+	}
+	gt := func(a, b float64) bool { return a > b }
+	lt := func(a, b float64) bool { return a < b }
+	vmax, vmin := pick(e.VMax, gt), pick(e.VMin, lt)
+	v := vmax
+	if math.Abs(vmin.Value) > math.Abs(vmax.Value) {
+		v = vmin
+	}
+	return ForceOrigins{MMax: env.Governing(pick(e.MMax, gt)), MMin: env.Governing(pick(e.MMin, lt)), V: env.Governing(v),
+		NMax: env.Governing(pick(e.NMax, gt)), NMin: env.Governing(pick(e.NMin, lt))}
+}
+
+// DesignForcesTraced is DesignForces with the origin of every design force. It names
+// combinations in words, so it is for the few positions a sheet is printed for, not the scan.
+func DesignForcesTraced(an *beam.Analysis, combos []beam.Combination, xs []float64) ([]PositionForces, []PositionOrigins, error) {
+	st, err := an.StationsAt(xs)
+	if err != nil {
+		return nil, nil, err
+	}
+	env, err := an.Envelopes(combos, st)
+	if err != nil {
+		return nil, nil, err
+	}
+	forces := make([]PositionForces, len(xs))
+	origins := make([]PositionOrigins, len(xs))
+	for c, idx := range positionStations(st, len(xs)) {
+		forces[c] = PositionForces{ULS: forceSetAt(&env.ULS, idx), SLS: forceSetAt(&env.SLS, idx)}
+		origins[c] = PositionOrigins{ULS: originsAt(&env, &env.ULS, idx), SLS: originsAt(&env, &env.SLS, idx)}
+	}
+	return forces, origins, nil
 }

@@ -69,6 +69,7 @@ type Outcome struct {
 
 	Analysis  *beam.Analysis
 	Envelopes beam.Envelopes // at every key point and ChartIntervals intervals along the beam
+	Member    MemberChecks   // the beam's own checks on those envelopes
 
 	Candidates []Candidate
 	Stats      ScanStats
@@ -131,6 +132,9 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 		return nil, err
 	}
 	if o.Envelopes, err = chartEnvelopes(o.Analysis, s); err != nil {
+		return nil, err
+	}
+	if o.Member, err = s.CheckMember(o.Analysis, &o.Envelopes); err != nil {
 		return nil, err
 	}
 	xs, err := Grid(s.Model.Length, o.Step)

@@ -58,6 +58,11 @@ type Setup struct {
 	Vehicles   []Vehicle
 	Lift       float64 // per piece erected [currency]
 
+	// Member is the beam for its own EN 1993-1-1 checks (fy of the thicker plate); Deflection
+	// the SLS limits of its spans and overhangs.
+	Member     beam.Member
+	Deflection beam.DeflectionLimits
+
 	Step         float64 // candidate spacing [mm]
 	Alternatives int     // near-best alternative layouts
 
@@ -116,6 +121,10 @@ func Prepare(file string, data []byte) (*Setup, error) {
 		return nil, probs.Err()
 	}
 	s.transport()
+	if s.Member, err = beam.NewMember(s.Section, s.Grade, beam.MemberSettings{Table: s.GradeTable}); err != nil {
+		probs.Add(s.job.Beam.Where("section"), "%v", err)
+		return nil, probs.Err()
+	}
 	s.Zones = KeepOutZones(s.Model, s.Cases, s.KeepOut, s.Limits.MinLength)
 	sp, err := s.spliceProblem()
 	if err != nil {
@@ -175,6 +184,15 @@ func (s *Setup) transport() {
 		s.Costed = true
 		s.Lift = deref(c.Lift)
 	}
+	s.Deflection = beam.DeflectionLimits{Span: beam.DefaultSpanRatio, Overhang: beam.DefaultOverhangRatio}
+	if l := job.Limits; l != nil && l.Deflection != nil {
+		if v := l.Deflection.Span; v != nil {
+			s.Deflection.Span = *v
+		}
+		if v := l.Deflection.Overhang; v != nil {
+			s.Deflection.Overhang = *v
+		}
+	}
 	s.Step, s.Alternatives = DefaultStep, DefaultAlternatives
 	if sc := job.Scan; sc != nil {
 		if sc.Step != nil {
@@ -212,7 +230,7 @@ func defaultsOf(job *jobfile.Job) []string {
 	}
 	l := job.Limits
 	for _, k := range []string{"max_piece_length", "min_piece_length", "max_piece_mass", "keep_out.supports",
-		"keep_out.point_loads", "splices.min", "splices.max"} {
+		"keep_out.point_loads", "splices.min", "splices.max", "deflection.span", "deflection.overhang"} {
 		given(l != nil && l.Has(k), "limits."+k)
 	}
 	o := job.Splice

@@ -13,7 +13,9 @@ type SpliceSheet struct {
 	Name     string  // "S1", "S2", ... from the left
 	Position float64 // [mm]
 	Forces   PositionForces
-	Result   splice.Result // every check with its formula, numbers and clause
+	Origins  PositionOrigins // the combination and pattern of every design force
+	Section  SectionCheck    // the beam's own cross-section under the same forces
+	Result   splice.Result   // every check with its formula, numbers and clause
 }
 
 // Sheets re-checks the splice the scan sized at each of the positions xs [mm] (candidates of
@@ -24,6 +26,10 @@ func (o *Outcome) Sheets(xs []float64) ([]SpliceSheet, error) {
 	p.Brief = false
 	var sheets []SpliceSheet
 	var errs []error
+	_, origins, err := DesignForcesTraced(o.Analysis, o.Setup.Combinations, xs)
+	if err != nil {
+		return nil, err
+	}
 	for i, x := range xs {
 		c := o.CandidateAt(x)
 		if c == nil || !c.Feasible {
@@ -39,7 +45,13 @@ func (o *Outcome) Sheets(xs []float64) ([]SpliceSheet, error) {
 			errs = append(errs, fmt.Errorf("splice %d at %s: %w", i+1, metres(x), err))
 			continue
 		}
-		sheets = append(sheets, SpliceSheet{Name: fmt.Sprintf("S%d", i+1), Position: x, Forces: c.Forces, Result: r})
+		sec, err := o.Setup.SectionAt(c.Forces.ULS)
+		if err != nil {
+			errs = append(errs, fmt.Errorf("splice %d at %s: %w", i+1, metres(x), err))
+			continue
+		}
+		sheets = append(sheets, SpliceSheet{Name: fmt.Sprintf("S%d", i+1), Position: x, Forces: c.Forces, Origins: origins[i],
+			Section: sec, Result: r})
 	}
 	return sheets, errors.Join(errs...)
 }

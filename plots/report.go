@@ -246,7 +246,7 @@ func (w *reportWriter) summary(title, version string) {
 
 // sectionTitles are the report's top-level headings in order.
 func (w *reportWriter) sectionTitles() []string {
-	t := []string{"Job summary", "Beam and loads", "Envelopes", "Limits", "Candidate positions", "Layouts"}
+	t := []string{"Job summary", "Beam and loads", "Envelopes", "The beam itself", "Limits", "Candidate positions", "Layouts"}
 	for _, sh := range w.r.Sheets {
 		t = append(t, sheetTitle(&sh))
 	}
@@ -399,13 +399,87 @@ func (w *reportWriter) envelopes() {
 	d.para("The bands are the exact envelopes over every combination and every pattern: ULS bending moment and shear, " +
 		"SLS deflection. Keep-out zones are shaded; the splices of the recommended layout are the vertical lines S1, S2, ….")
 	w.figure(w.findFigure("envelopes"))
-	ch := w.r.Charts["envelopes"]
+	env := &w.in.Outcome.Envelopes
+	st := env.Stations
 	var rows [][]string
-	for _, m := range ch.MarksOf(MarkPeak) {
-		rows = append(rows, []string{m.Panel, m.Label})
+	extreme := func(label string, ex []beam.Extreme, unit string, f float64, seekMax bool) {
+		if len(ex) == 0 {
+			return
+		}
+		best := 0
+		for i := range ex {
+			if (seekMax && ex[i].Value > ex[best].Value) || (!seekMax && ex[i].Value < ex[best].Value) {
+				best = i
+			}
+		}
+		rows = append(rows, []string{label, formatClean(ex[best].Value*f, 1) + " " + unit, fmtM(st[best].X), env.Governing(ex[best])})
 	}
+	u, sl := &env.ULS, &env.SLS
+	extreme("ULS M max (sagging)", u.MMax, "kNm", 1e-6, true)
+	extreme("ULS M min (hogging)", u.MMin, "kNm", 1e-6, false)
+	extreme("ULS V max", u.VMax, "kN", 1e-3, true)
+	extreme("ULS V min", u.VMin, "kN", 1e-3, false)
+	extreme("SLS w max (down)", sl.WMax, "mm", 1, true)
+	extreme("SLS w min (up)", sl.WMin, "mm", 1, false)
 	d.heading(1, "Extreme values", 40)
-	d.table(table{Columns: []column{{"panel", 1, false}, {"value and position", 4, false}}, Rows: rows})
+	d.table(table{Columns: []column{{"extreme", 1.6, false}, {"value", 1, true}, {"at", 0.9, true},
+		{"combination and pattern", 5, false}}, Rows: rows})
+	d.heading(1, "Support reactions", 40)
+	rows = nil
+	for i, r := range env.ULSReactions {
+		sr := env.SLSReactions[i]
+		rows = append(rows,
+			[]string{fmt.Sprint(i + 1), fmtM(r.X), "ULS max", kN(r.FzMax.Value), env.Governing(r.FzMax)},
+			[]string{"", "", "ULS min", kN(r.FzMin.Value), env.Governing(r.FzMin)},
+			[]string{"", "", "SLS max", kN(sr.FzMax.Value), env.Governing(sr.FzMax)},
+			[]string{"", "", "SLS min", kN(sr.FzMin.Value), env.Governing(sr.FzMin)})
+	}
+	d.table(table{Columns: []column{{"support", 0.7, true}, {"x", 0.9, true}, {"state", 0.8, false}, {"Fz [kN]", 0.9, true},
+		{"combination and pattern", 5, false}}, Rows: rows})
+	d.small("Fz is the vertical reaction, upward positive; a negative minimum is uplift, to be held down.")
+	w.member()
+}
+
+// member writes the beam's own checks: the cross-section along the beam, the deflection of
+// every span and overhang, what fails and what is outside scope.
+func (w *reportWriter) member() {
+	d, m := w.d, &w.in.Outcome.Member
+	d.heading(0, "The beam itself", 120)
+	d.para("EN 1993-1-1: the cross-section class by Table 5.2 under the actual bending moment and axial force, Mc,Rd " +
+		"(6.2.5: Wpl for class 1 and 2, Wel for class 3), Vc,Rd (6.2.6), bending with shear (6.2.8) and with axial force " +
+		"(6.2.9) at every station of the envelopes, each moment extreme paired with the largest |V| and both axial extremes; " +
+		"SLS deflection of every span (from the chord between its supports) and overhang (from its support) against the " +
+		"job's limits.")
+	for _, s := range m.Warnings() {
+		d.boxed("Warning", s)
+	}
+	r := m.Member
+	if m.Scope == nil {
+		c := r.Section.Class
+		gov := r.Section.Checks[r.Section.Governing]
+		d.keyValues([][2]string{
+			{"Class", fmt.Sprintf("%s at the governing station (flange outstand c/t = %s, %s; web c/t = %s, %s; ε = %s); worst anywhere %s",
+				c.Class, fixed(c.Flange.Ratio, 2), c.Flange.Class, fixed(c.Web.Ratio, 2), c.Web.Class, fixed(c.Epsilon, 3), r.Class)},
+			{"Resistances", fmt.Sprintf("Mc,Rd = %s kNm, Vc,Rd = %s kN, Npl,Rd = %s kN, fy = %s N/mm²", kNm(r.McRd), kN(r.VcRd),
+				kN(r.Section.NplRd), fixed(c.Fy, 0))},
+			{"Governing", fmt.Sprintf("%s (%s) at x = %s: utilisation %s, %s", gov.ID, gov.Clause, fmtM(r.X), fixed(r.Utilisation, 3),
+				passWord(r.Utilisation <= 1))},
+			{"Forces there", fmt.Sprintf("%s: %s", r.Pairing, r.Combination)},
+		})
+	} else {
+		d.para("Outside scope: " + m.Scope.Error() + ".")
+	}
+	var rows [][]string
+	for _, x := range m.Deflection.Regions {
+		rows = append(rows, []string{x.Region.Name, fmtM(x.Region.From), fmtM(x.Region.To), fixed(x.W, 1),
+			fmt.Sprintf("L/%s = %s", formatClean(x.Ratio, 0), fixed(x.Limit, 1)), fixed(x.Utilisation, 3), passWord(x.Pass), x.Combination})
+	}
+	d.heading(1, "Deflection", 40)
+	d.table(table{Columns: []column{{"region", 1.3, false}, {"from", 0.8, true}, {"to", 0.8, true}, {"w [mm]", 0.7, true},
+		{"limit [mm]", 1.2, true}, {"util.", 0.6, true}, {"", 0.5, false}, {"combination and pattern", 4, false}}, Rows: rows})
+	d.small("Limits span/" + formatClean(m.Deflection.Limits.Span, 0) + " and overhang/" + formatClean(m.Deflection.Limits.Overhang, 0) +
+		" (common practice unless the job sets them; the national annex and the client's specification govern).")
+	d.small("Not checked: " + optimise.LTBCaution + ".")
 }
 
 func (w *reportWriter) limits() {
@@ -644,6 +718,18 @@ func (w *reportWriter) sheet(sh *optimise.SpliceSheet) {
 	}})
 	d.small("From the envelopes at the position, the worse side taken at a jump; each moment extreme is paired with the " +
 		"largest |V| and with both axial extremes (conservative), and both signs are checked.")
+	o := sh.Origins
+	d.table(table{Columns: []column{{"force", 1, false}, {"ULS combination and pattern", 4, false}, {"SLS combination and pattern", 4, false}},
+		Rows: [][]string{{"M max", o.ULS.MMax, o.SLS.MMax}, {"M min", o.ULS.MMin, o.SLS.MMin}, {"|V| max", o.ULS.V, o.SLS.V},
+			{"N max", o.ULS.NMax, o.SLS.NMax}, {"N min", o.ULS.NMin, o.SLS.NMin}}})
+	if c := sh.Section; c.Scope != nil {
+		d.small("The beam here: outside scope, " + c.Scope.Error() + ".")
+	} else {
+		b := c.Result
+		g := b.Checks[b.Governing]
+		d.small(fmt.Sprintf("The beam here (EN 1993-1-1 6.2): %s, Mc,Rd = %s kNm, Vc,Rd = %s kN; %s utilisation %s under %s — %s.",
+			b.Class.Class, kNm(b.McRd), kN(b.VcRd), g.ID, fixed(b.Utilisation, 3), c.Pairing, passWord(b.Utilisation <= 1)))
+	}
 	if r.Actions.MinimumNote != "" {
 		d.small("Minimum design action (user policy, no EN 1993 clause sets one): " + r.Actions.MinimumNote)
 	}

@@ -48,7 +48,7 @@ func TestReportStructure(t *testing.T) {
 	assert.True(t, has(fmt.Sprintf("page %d of %d", rep.Pages, rep.Pages)), "the last footer")
 
 	// top-level sections in order, one calculation sheet per splice of the recommended layout
-	want := []string{"Job summary", "Beam and loads", "Envelopes", "Limits", "Candidate positions", "Layouts"}
+	want := []string{"Job summary", "Beam and loads", "Envelopes", "The beam itself", "Limits", "Candidate positions", "Layouts"}
 	for i := range rec.Splices {
 		want = append(want, fmt.Sprintf("Calculation sheet: splice S%d at x = %s", i+1, fmtM(rec.Splices[i])))
 	}
@@ -70,7 +70,7 @@ func TestReportStructure(t *testing.T) {
 		}
 	}
 	// the contents on page 1 gives the pages the headings landed on
-	assert.True(t, has(fmt.Sprintf("7: %s: %d", want[6], pageOf(rep, want[6]))), "contents line of the first sheet")
+	assert.True(t, has(fmt.Sprintf("8: %s: %d", want[7], pageOf(rep, want[7]))), "contents line of the first sheet")
 	assert.Equal(t, 1, pageOf(rep, "Job summary"))
 	assert.LessOrEqual(t, pageOf(rep, "Caution and references"), rep.Pages)
 }
@@ -194,4 +194,35 @@ func mustJSON(t *testing.T, v any) string {
 	b, err := json.Marshal(v)
 	require.NoError(t, err)
 	return string(b)
+}
+
+// TestReportTracesForces: every extreme, reaction and design force in the report names the
+// combination and pattern that produces it (the analysis's own words), and the beam's own
+// checks are reported with their clauses.
+func TestReportTracesForces(t *testing.T) {
+	_, res, rep := demoReport(t)
+	has := func(s string) bool { return strings.Contains(rep.Text, s) }
+	env := &res.Envelopes
+	for _, r := range env.ULSReactions {
+		assert.True(t, has(env.Governing(r.FzMax)), "reaction at %g mm: %s", r.X, env.Governing(r.FzMax))
+		assert.True(t, has(env.Governing(r.FzMin)))
+	}
+	for _, r := range env.SLSReactions {
+		assert.True(t, has(env.Governing(r.FzMax)))
+	}
+	assert.True(t, has("Support reactions"))
+	for _, sh := range rep.Sheets {
+		for _, o := range []string{sh.Origins.ULS.MMax, sh.Origins.ULS.MMin, sh.Origins.ULS.V, sh.Origins.SLS.MMax} {
+			require.NotEmpty(t, o)
+			assert.True(t, has(o), "sheet %s: %s", sh.Name, o)
+		}
+		assert.True(t, has("The beam here (EN 1993-1-1 6.2)"))
+	}
+	assert.True(t, has("The beam itself"))
+	assert.True(t, has("lateral-torsional buckling"))
+	m := res.Member.Member
+	assert.True(t, has(fmt.Sprintf("Mc,Rd = %s kNm", kNm(m.McRd))))
+	for _, d := range res.Member.Deflection.Regions {
+		assert.True(t, has(d.Region.Name))
+	}
 }

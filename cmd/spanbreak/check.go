@@ -2,6 +2,7 @@ package main
 
 import (
 	"bytes"
+	"spanbreak/optimise"
 	"spanbreak/plots/encode"
 
 	"github.com/spf13/cobra"
@@ -47,12 +48,12 @@ func runCheck(opts checkOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	an, err := setup.Analyse()
+	jc, err := optimise.CheckJob(setup)
 	if err != nil {
 		return err
 	}
 	var buf bytes.Buffer
-	if err := encode.WriteCheck(&buf, opts.Format, setup, an); err != nil {
+	if err := encode.WriteCheck(&buf, opts.Format, jc); err != nil {
 		return err
 	}
 	_, err = stdout.Write(buf.Bytes())

@@ -467,6 +467,15 @@ type Limits struct {
 	Rigging        *Kilograms   `yaml:"rigging"` // slings, shackles and spreader added to every piece's lifted mass
 	KeepOut        *KeepOut     `yaml:"keep_out"`
 	Splices        *SpliceCount `yaml:"splices"`
+	Deflection     *Deflection  `yaml:"deflection"`
+}
+
+// Deflection sets the SLS deflection limits of the beam as span/ratio: each span against
+// its length, each overhang against its own length.
+type Deflection struct {
+	Meta
+	Span     *float64 `yaml:"span"`     // L/span for a span, e.g. 250
+	Overhang *float64 `yaml:"overhang"` // L/overhang for an overhang, e.g. 180
 }
 
 // KeepOut lists where no splice may go.

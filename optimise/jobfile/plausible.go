@@ -14,6 +14,13 @@ import (
 // P·L³/EI, factored sums over every load of a 4 MiB file) stays more than 250 orders of
 // magnitude inside the range of float64, so a file that passes cannot overflow the analysis.
 // The limits are common practice, chosen here, unless a source is named.
+// Deflection limits are span/deflection ratios (limits.deflection): from L/10 (a beam that
+// sags a tenth of its span is no beam in service) to L/10000 (beyond any limit in use).
+const (
+	MinDeflectionRatio = 10.0
+	MaxDeflectionRatio = 10000.0
+)
+
 const (
 	// MinSpan is the shortest span, 0.1 m: shorter than the depth of almost every catalogue
 	// section, where a span is a bearing detail, not a beam in bending (the analysis is the

@@ -516,6 +516,17 @@ func (c *checker) limits(l *Limits, length beamLength) {
 	if k := l.KeepOut; k != nil {
 		c.keepOut(k, length)
 	}
+	if d := l.Deflection; d != nil {
+		for _, r := range []struct {
+			key string
+			v   *float64
+		}{{"span", d.Span}, {"overhang", d.Overhang}} {
+			if r.v != nil && !(*r.v >= MinDeflectionRatio && *r.v <= MaxDeflectionRatio) {
+				c.add(d.Where(r.key), "deflection.%s: %g is not a span/deflection ratio between %g and %g (L/%g is usual for spans)",
+					r.key, *r.v, MinDeflectionRatio, MaxDeflectionRatio, 250.0)
+			}
+		}
+	}
 	if s := l.Splices; s != nil {
 		if s.Min != nil && *s.Min < 0 {
 			c.add(s.Where("min"), "splices.min must not be negative, got %d", *s.Min)

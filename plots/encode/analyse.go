@@ -47,7 +47,7 @@ func WriteAnalysis(w io.Writer, format string, o *optimise.BeamOutcome) error {
 	if o.Case != nil {
 		return writeCase(w, format, o.Setup, *o.Case)
 	}
-	return writeEnvelopes(w, format, o.Setup, o.Envelopes)
+	return writeEnvelopes(w, format, o.Setup, o.Envelopes, o.Member)
 }
 
 // --- one case ---------------------------------------------------------------------------
@@ -216,6 +216,8 @@ type EnvelopesDoc struct {
 	Combinations []string          `json:"combinations"`
 	ULS          envelopeDoc       `json:"uls"`
 	SLS          envelopeDoc       `json:"sls"`
+	Member       *MemberDoc        `json:"member"`
+	Deflection   []DeflectionDoc   `json:"deflection"`
 }
 
 func extremes(ex []beam.Extreme, f float64) []Num {
@@ -256,7 +258,7 @@ func toEnvelopeDoc(env *beam.Envelopes, e *beam.Envelope, re []beam.ReactionEnve
 	return j
 }
 
-func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Envelopes) error {
+func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Envelopes, m *optimise.MemberChecks) error {
 	switch format {
 	case "json":
 		out := EnvelopesDoc{
@@ -264,6 +266,9 @@ func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Env
 			Stations: stationXs(env.Stations), Sides: sides(env.Stations),
 			ULS: toEnvelopeDoc(env, &env.ULS, env.ULSReactions),
 			SLS: toEnvelopeDoc(env, &env.SLS, env.SLSReactions),
+		}
+		if m != nil {
+			out.Member, out.Deflection = ptr(Member(m)), Deflections(m)
 		}
 		for _, c := range env.Combinations {
 			out.Combinations = append(out.Combinations, c.Name)
@@ -284,11 +289,11 @@ func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Env
 			"sls_M_max_kNm", "sls_M_min_kNm", "sls_w_max_mm", "sls_w_min_mm",
 			"uls_M_max_governing", "uls_M_min_governing"}, rows)
 	}
-	writeEnvelopeText(w, s, env)
+	writeEnvelopeText(w, s, env, m)
 	return nil
 }
 
-func writeEnvelopeText(w io.Writer, s *optimise.Setup, env *beam.Envelopes) {
+func writeEnvelopeText(w io.Writer, s *optimise.Setup, env *beam.Envelopes, m *optimise.MemberChecks) {
 	writeBeamHeader(w, s, "beam analysis, ULS and SLS envelopes")
 	st := env.Stations
 	u, l := &env.ULS, &env.SLS
@@ -339,5 +344,8 @@ func writeEnvelopeText(w io.Writer, s *optimise.Setup, env *beam.Envelopes) {
 	extreme("SLS w max (down)", l.WMax, 1, "mm", true)
 	extreme("SLS w min (up)", l.WMin, 1, "mm", false)
 	tw.Flush()
+	if m != nil {
+		writeMemberText(w, m)
+	}
 	fmt.Fprintf(w, "\n%s\n", Caution)
 }

@@ -13,15 +13,18 @@ import (
 )
 
 // WriteCheck writes what check understood of a job, as "json" or "text".
-func WriteCheck(w io.Writer, format string, st *optimise.Setup, an *beam.Analysis) error {
-	sum, err := summarise(st, an)
+func WriteCheck(w io.Writer, format string, jc *optimise.JobCheck) error {
+	sum, err := summarise(jc.Setup, jc.Analysis)
 	if err != nil {
 		return err
 	}
+	sum.Member, sum.Deflection = ptr(Member(&jc.Member)), Deflections(&jc.Member)
 	if format == "json" {
 		return WriteJSON(w, sum)
 	}
 	writeCheckText(w, sum)
+	writeMemberText(w, &jc.Member)
+	fmt.Fprintf(w, "\n%s\n", Caution)
 	return nil
 }
 
@@ -51,6 +54,8 @@ type JobSummary struct {
 	Scan         checkScan         `json:"scan"`
 	Defaults     []string          `json:"defaults"` // key paths the file leaves out, which take their default
 	Notes        []string          `json:"notes"`
+	Member       *MemberDoc        `json:"member"`
+	Deflection   []DeflectionDoc   `json:"deflection"`
 }
 
 type checkSection struct {
@@ -125,7 +130,9 @@ type checkLimits struct {
 	KeepPointLoads float64      `json:"keep_out_point_loads"`
 	KeepRanges     [][2]float64 `json:"keep_out_ranges"`
 	MinSplices     int          `json:"splices_min"`
-	MaxSplices     *int         `json:"splices_max"` // null: no limit
+	DeflectionSpan float64      `json:"deflection_span"`     // span/ratio
+	DeflectionOver float64      `json:"deflection_overhang"` // overhang length/ratio
+	MaxSplices     *int         `json:"splices_max"`         // null: no limit
 }
 
 type JobVehicle struct {
@@ -293,7 +300,7 @@ func (s *checkBuilder) limits(st *optimise.Setup) {
 	l := st.Limits
 	s.Limits = checkLimits{KeepRanges: [][2]float64{}, MinPieceLength: Round(l.MinLength * ToM),
 		KeepSupports: Round(st.KeepOut.Supports * ToM), KeepPointLoads: Round(st.KeepOut.PointLoads * ToM),
-		MinSplices: st.MinSplices}
+		MinSplices: st.MinSplices, DeflectionSpan: st.Deflection.Span, DeflectionOver: st.Deflection.Overhang}
 	if !math.IsInf(l.MaxLength, 1) {
 		v := Round(l.MaxLength * ToM)
 		s.Limits.MaxPieceLength = &v
@@ -438,7 +445,6 @@ func writeCheckText(w io.Writer, s JobSummary) {
 			fmt.Fprintf(w, "  - %s\n", n)
 		}
 	}
-	fmt.Fprintf(w, "\n%s\n", Caution)
 }
 
 // writeRoofRule names the rule on roof imposed loads where the job has roof imposed and snow
@@ -481,6 +487,8 @@ func writeCheckLimits(w io.Writer, s JobSummary, mark func(...string) string) {
 		maxS = strconv.Itoa(*l.MaxSplices)
 	}
 	fmt.Fprintf(w, "  splices from %d%s to %s%s\n", l.MinSplices, mark("limits.splices.min"), maxS, mark("limits.splices.max"))
+	fmt.Fprintf(w, "  deflection span/%s%s, overhang/%s%s (SLS; common practice, the national annex and the client govern)\n",
+		shortNum(l.DeflectionSpan), mark("limits.deflection.span"), shortNum(l.DeflectionOver), mark("limits.deflection.overhang"))
 	fmt.Fprintln(w, "\nVehicles")
 	if len(s.Vehicles) == 0 {
 		fmt.Fprintln(w, "  none")

@@ -37,14 +37,23 @@ type DesignDoc struct {
 	Governing   string      `json:"governing"`
 	Quantities  quantityDoc `json:"quantities"`
 	Cost        spliceCost  `json:"cost"`
+	Beam        sectionDoc  `json:"beam"`
+	Member      *MemberDoc  `json:"member"`
 	Notes       []string    `json:"notes"`
 	Caution     string      `json:"caution"`
 }
 
 // ForcesDoc are a splice's design forces (kNm, kN; V is the largest |V|).
 type ForcesDoc struct {
-	ULS ForceSetDoc  `json:"uls"`
-	SLS *ForceSetDoc `json:"sls"`
+	ULS       ForceSetDoc   `json:"uls"`
+	SLS       *ForceSetDoc  `json:"sls"`
+	Governing *governingDoc `json:"governing,omitempty"` // the combination and pattern of each force
+}
+
+// governingDoc names the combination and pattern of each design force of both states.
+type governingDoc struct {
+	ULS OriginDoc  `json:"uls"`
+	SLS *OriginDoc `json:"sls"`
 }
 
 // ForceSetDoc is one limit state's design forces.
@@ -54,6 +63,30 @@ type ForceSetDoc struct {
 	V    Num `json:"V"`
 	NMax Num `json:"N_max"`
 	NMin Num `json:"N_min"`
+}
+
+// OriginDoc names the combination and span pattern of each design force.
+type OriginDoc struct {
+	MMax string `json:"M_max"`
+	MMin string `json:"M_min"`
+	V    string `json:"V"`
+	NMax string `json:"N_max"`
+	NMin string `json:"N_min"`
+}
+
+func originDoc(o optimise.ForceOrigins) OriginDoc {
+	return OriginDoc{MMax: o.MMax, MMin: o.MMin, V: o.V, NMax: o.NMax, NMin: o.NMin}
+}
+
+// beamDoc is the shape of the beam's cross-section check at a splice.
+func beamDoc(c optimise.SectionCheck) sectionDoc {
+	r := c.Result
+	d := sectionDoc{Class: r.Class.Class.String(), McRd: Num(r.McRd * ToKNm), VcRd: Num(r.VcRd * ToKN), Utilisation: Num(r.Utilisation),
+		Pairing: c.Pairing, Checks: sectionChecks(r)}
+	if r.Governing >= 0 && r.Governing < len(r.Checks) {
+		d.Check = "member." + r.Checks[r.Governing].ID
+	}
+	return d
 }
 
 // SpliceDoc is a splice in the keys and units (mm) of the splice file, so that it can be
@@ -183,7 +216,7 @@ func Design(dc *optimise.DesignOutcome) DesignDoc {
 	out := DesignDoc{
 		Version: Version(), Input: dc.Input, Section: dc.Section, Grade: dc.Grade, PlateGrade: dc.PlateGrade,
 		Status: r.Status.String(), Pass: r.Pass,
-		Forces:      ForcesDoc{ULS: forceSetDoc(r.Actions.ULS)},
+		Forces:      forcesDoc(r, dc.Origins),
 		Splice:      Splice(r.Geometry),
 		Checks:      Checks(r.Checks),
 		Utilisation: Num(r.Utilisation), Governing: r.Governing.ID,
@@ -196,9 +229,9 @@ func Design(dc *optimise.DesignOutcome) DesignDoc {
 	if dc.Position != nil {
 		out.Position = NumPtr(*dc.Position)
 	}
-	if r.Actions.SLSGiven {
-		s := forceSetDoc(r.Actions.SLS)
-		out.Forces.SLS = &s
+	out.Beam = beamDoc(dc.Beam)
+	if dc.Member != nil {
+		out.Member = ptr(Member(dc.Member))
 	}
 	return out
 }
@@ -233,6 +266,12 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 	} else {
 		fmt.Fprintf(w, "  SLS  none given\n")
 	}
+	if o := dc.Origins; o != nil {
+		writeOrigins(w, "ULS", o.ULS)
+		if a.SLSGiven {
+			writeOrigins(w, "SLS", o.SLS)
+		}
+	}
 	fmt.Fprintf(w, "  States: M_max and M_min, each with the largest |V| and with N_max and N_min; both signs of M checked\n")
 	if a.Distribution == splice.FlangesOnly {
 		fmt.Fprintf(w, "  Distribution: flanges only (Mw = 0); web Nw = N·Aw/A = %.4f·N\n", a.AwOverA)
@@ -248,6 +287,8 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 	if a.MinimumNote != "" {
 		fmt.Fprintf(w, "  %s\n", a.MinimumNote)
 	}
+
+	writeBeamAtSplice(w, dc.Beam, dc.Member)
 
 	fmt.Fprintf(w, "\nSplice (%s)\n", r.Status)
 	threads := "threads in the shear planes"
@@ -358,4 +399,52 @@ func designNumber(v float64) string {
 	default:
 		return strconv.FormatFloat(v, 'f', 3, 64)
 	}
+}
+
+// writeOrigins names the combination and pattern of each design force of one state.
+func writeOrigins(w io.Writer, state string, o optimise.ForceOrigins) {
+	fmt.Fprintf(w, "  %s combinations and patterns:\n", state)
+	for _, r := range [][2]string{{"M_max", o.MMax}, {"M_min", o.MMin}, {"|V|", o.V}, {"N_max", o.NMax}, {"N_min", o.NMin}} {
+		fmt.Fprintf(w, "    %-6s %s\n", r[0], r[1])
+	}
+}
+
+// writeBeamAtSplice prints the beam's own cross-section check under the splice's design
+// forces, and the member's warnings and summary where the whole beam was checked.
+func writeBeamAtSplice(w io.Writer, c optimise.SectionCheck, m *optimise.MemberChecks) {
+	fmt.Fprintf(w, "\nThe beam at this position (EN 1993-1-1 6.2, Table 5.2)\n")
+	if c.Scope != nil {
+		fmt.Fprintf(w, "  outside scope: %v\n", c.Scope)
+	} else {
+		r := c.Result
+		verdict := "passes"
+		if r.Utilisation > 1 {
+			verdict = "FAILS: the splice is designed for forces the beam itself cannot carry"
+		}
+		fmt.Fprintf(w, "  %s (flange c/t %.2f, web c/t %.2f): Mc,Rd = %.1f kNm, Vc,Rd = %.1f kN; %s %.3f under %s, %s\n",
+			r.Class.Class, r.Class.Flange.Ratio, r.Class.Web.Ratio, r.McRd*ToKNm, r.VcRd*ToKN, r.Checks[r.Governing].ID,
+			r.Utilisation, c.Pairing, verdict)
+	}
+	if m != nil {
+		for _, s := range m.Warnings() {
+			fmt.Fprintf(w, "  WARNING: %s\n", s)
+		}
+		fmt.Fprintf(w, "  whole beam: %s\n", memberLine(m))
+		fmt.Fprintf(w, "  Note: %s\n", optimise.LTBCaution)
+	}
+}
+
+// forcesDoc is the shape of a splice's design forces, with their origins when known.
+func forcesDoc(r splice.Result, o *optimise.PositionOrigins) ForcesDoc {
+	out := ForcesDoc{ULS: forceSetDoc(r.Actions.ULS)}
+	if r.Actions.SLSGiven {
+		out.SLS = ptr(forceSetDoc(r.Actions.SLS))
+	}
+	if o != nil {
+		out.Governing = &governingDoc{ULS: originDoc(o.ULS)}
+		if out.SLS != nil {
+			out.Governing.SLS = ptr(originDoc(o.SLS))
+		}
+	}
+	return out
 }

@@ -339,6 +339,9 @@ func WriteOptimiseText(w io.Writer, r *optimise.Outcome) {
 	}
 	fmt.Fprintf(w, "Scan:     every %.3f m, %d positions: %d admissible, %d in keep-out zones, %d where no splice passes; lift %s per piece\n\n",
 		r.Step*ToM, len(r.Candidates), feasible, kept, len(r.Candidates)-feasible-kept, money(r.Setup.Lift))
+	for _, s := range r.Member.Warnings() {
+		fmt.Fprintf(w, "WARNING: %s\n\n", s)
+	}
 	writeRecommendation(w, r)
 	writeLayoutTable(w, r)
 	writeCandidateSummary(w, r)

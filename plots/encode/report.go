@@ -32,6 +32,8 @@ type ChosenSpliceDoc struct {
 	Position    Num        `json:"position"`
 	Summary     string     `json:"summary"`
 	Splice      SpliceDoc  `json:"splice"`
+	Forces      ForcesDoc  `json:"forces"`
+	Beam        sectionDoc `json:"beam"`
 	Checks      []CheckDoc `json:"checks"`
 	Utilisation Num        `json:"utilisation"`
 	Governing   string     `json:"governing"`
@@ -47,7 +49,8 @@ func ChosenSplices(sheets []optimise.SpliceSheet) []ChosenSpliceDoc {
 	for _, sh := range sheets {
 		r := sh.Result
 		out = append(out, ChosenSpliceDoc{Name: sh.Name, Position: Num(sh.Position * ToM), Summary: SpliceWords(r.Geometry),
-			Splice: Splice(r.Geometry), Checks: Checks(r.Checks), Utilisation: Num(r.Utilisation), Governing: r.Governing.ID,
+			Splice: Splice(r.Geometry), Forces: forcesDoc(r, &sh.Origins), Beam: beamDoc(sh.Section), Checks: Checks(r.Checks),
+			Utilisation: Num(r.Utilisation), Governing: r.Governing.ID,
 			Cost: Num(r.Cost.Total), Bolts: r.Quantities.Bolts, PlateMass: Num(r.Quantities.PlateMass)})
 	}
 	return out
