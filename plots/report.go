@@ -471,11 +471,11 @@ func (w *reportWriter) member() {
 	}
 	var rows [][]string
 	for _, x := range m.Deflection.Regions {
-		rows = append(rows, []string{x.Region.Name, fmtM(x.Region.From), fmtM(x.Region.To), fixed(x.W, 1),
+		rows = append(rows, []string{x.Region.Name, formatClean(x.Region.From/1e3, 3), formatClean(x.Region.To/1e3, 3), fixed(x.W, 1),
 			fmt.Sprintf("L/%s = %s", formatClean(x.Ratio, 0), fixed(x.Limit, 1)), fixed(x.Utilisation, 3), passWord(x.Pass), x.Combination})
 	}
 	d.heading(1, "Deflection", 40)
-	d.table(table{Columns: []column{{"region", 1.3, false}, {"from", 0.8, true}, {"to", 0.8, true}, {"w [mm]", 0.7, true},
+	d.table(table{Columns: []column{{"region", 1.3, false}, {"from [m]", 0.8, true}, {"to [m]", 0.8, true}, {"w [mm]", 0.7, true},
 		{"limit [mm]", 1.2, true}, {"util.", 0.6, true}, {"", 0.5, false}, {"combination and pattern", 4, false}}, Rows: rows})
 	d.small("Limits span/" + formatClean(m.Deflection.Limits.Span, 0) + " and overhang/" + formatClean(m.Deflection.Limits.Overhang, 0) +
 		" (common practice unless the job sets them; the national annex and the client's specification govern).")
