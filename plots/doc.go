@@ -1,11 +1,13 @@
-// Package plots draws spanbreak's results and writes its documents: the envelope chart, the
-// position-versus-cost and utilisation charts, the layout comparison, the dimensioned splice
-// drawing, the calculation report (PDF) and the CSV and JSON files.
+// Package plots draws spanbreak's results and lays out the calculation report: the envelope
+// chart, the position-versus-cost and utilisation charts, the layout comparison, the
+// dimensioned splice drawing and the report (PDF). It renders an optimise.Outcome as it is:
+// it never analyses the beam, sizes or checks a splice, or reads the job file (the test
+// TestLayers in cmd/spanbreak keeps it so). The CSV and JSON documents and the text of every
+// command are written by the sub-package encode, which the report shares its shapes with.
 //
 // Everything is built in memory and returned: a Figure renders to SVG, PNG or PDF into any
-// io.Writer (the format is a parameter), BuildReport returns the PDF bytes with the text it
-// prints, and ScanCSV, LayoutsCSV and ResultJSON return bytes. The caller decides file names
-// and writes them. Charts are gonum/plot plots in Liberation Sans with a few plotters of this
+// io.Writer (the format is a parameter), and BuildReport returns the PDF bytes with the text
+// it prints, the figures and the sheets. The caller decides file names and writes them. Charts are gonum/plot plots in Liberation Sans with a few plotters of this
 // package (labelled vertical lines, shaded x-ranges, support symbols, envelope bands, labelled
 // points); the drawing is drawn with vg primitives at a standard scale; the report is laid out
 // with codeberg.org/go-pdf/fpdf, and the charts go into it as vector paths through a vg canvas
