@@ -27,6 +27,17 @@ func (s Shape) String() string {
 	return "unknown"
 }
 
+// aTable is "an envelope table" or "a per-combination table", for messages.
+func (s Shape) aTable() string {
+	if s == EnvelopeShape {
+		return "an envelope table"
+	}
+	return "a per-combination table"
+}
+
+// theTable is "the envelope table" or "the per-combination table".
+func (s Shape) theTable() string { return "the " + s.String() + " table" }
+
 // quantity is one internal force or the deflection.
 type quantity int
 

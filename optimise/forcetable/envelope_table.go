@@ -16,10 +16,11 @@ type comboKey struct {
 // good row.
 type order struct {
 	seen  bool
-	x     float64 // [mm]
-	text  string  // the x cell as written
-	lines []int   // lines of the rows at x (one, or two at a jump)
-	side  beam.Side
+	x     float64   // [mm]
+	text  string    // the x cell as written
+	lines [2]int    // lines of the rows at x
+	n     int       // rows at x so far: 1, or 2 at a jump
+	side  beam.Side // of the last row at x
 }
 
 // envelopeTable reads the data rows of an envelope table.
@@ -116,9 +117,15 @@ func (r *reader) envelopeTable() *Table {
 		return nil
 	}
 	n := len(env.Stations)
-	for k, c := range cols {
-		if len(*data[k]) == 0 || !(c.state == beam.ULS || t.SLS.has(c.q)) {
-			*data[k] = absent(n)
+	for _, e := range []*beam.Envelope{&env.ULS, &env.SLS} {
+		for q := qM; q < nQuantities; q++ {
+			for _, isMax := range []bool{true, false} {
+				// the ULS deflection, and an SLS quantity the table does not give (or gives
+				// only one extreme of, a problem already reported)
+				if s := series(e, extremeCol{e.State, q, isMax}); e.State == beam.SLS && !t.SLS.has(q) || len(*s) != n {
+					*s = absent(n)
+				}
+			}
 		}
 	}
 	if h.side < 0 {
@@ -137,9 +144,9 @@ func (r *reader) inOrder(prev *order, rec []string, x float64, side beam.Side) b
 	if prev.seen {
 		switch {
 		case x < prev.x:
-			r.cell(h.x, "x = %s m comes after x = %s m (line %d); the stations must ascend", text, prev.text, prev.lines[len(prev.lines)-1])
+			r.cell(h.x, "x = %s m comes after x = %s m (line %d); the stations must ascend", text, prev.text, prev.lines[prev.n-1])
 			return false
-		case x == prev.x && len(prev.lines) == 2:
+		case x == prev.x && prev.n == 2:
 			r.cell(h.x, "a third row at x = %s m (lines %d and %d are the others); a jump is two rows, the left side then the right",
 				text, prev.lines[0], prev.lines[1])
 			return false
@@ -148,11 +155,11 @@ func (r *reader) inOrder(prev *order, rec []string, x float64, side beam.Side) b
 				text, prev.lines[0], line, sideName(prev.side), sideName(side))
 			return false
 		case x == prev.x:
-			prev.lines, prev.side = append(prev.lines, line), side
+			prev.lines[1], prev.n, prev.side = line, 2, side
 			return true
 		}
 	}
-	*prev = order{seen: true, x: x, text: text, lines: []int{line}, side: side}
+	*prev = order{seen: true, x: x, text: text, lines: [2]int{line}, n: 1, side: side}
 	return true
 }
 

@@ -59,9 +59,9 @@ func TestCombinationTableByHand(t *testing.T) {
 		{X: 2000, Side: beam.Right}, {X: 3000, Side: beam.Right}, {X: 4000, Side: beam.Left}}, env.Stations)
 
 	type row struct {
-		station                          int
+		station                            int
 		mMax, mMin, vMax, vMin, nMax, nMin want
-		sls                              [4]float64 // SLS C alone: M, V, N, w
+		sls                                [4]float64 // SLS C alone: M, V, N, w
 	}
 	rows := []row{
 		// x = 1 m: A between 0 and 2 (left): M = 0 + ½·40 = 20, V = 30 + ½(10 − 30) = 20, N = 10;

@@ -86,7 +86,7 @@ func (r *reader) header(rec []string) bool {
 			r.add(h.line, i+1, n, "a second column %s (the first is column %d)", n, j+1)
 		case index[n] == nil:
 			first[n] = i
-			r.add(h.line, i+1, clip(n), "unknown column %q in a %s table%s", clip(n), h.shape, columnHint(n, allowed, h.shape))
+			r.add(h.line, i+1, clip(n), "unknown column %q in %s%s", clip(n), h.shape.aTable(), columnHint(n, allowed, h.shape))
 		default:
 			first[n] = i
 			*index[n] = i
@@ -117,7 +117,7 @@ func (r *reader) checkColumns() bool {
 	ok := true
 	missing := func(idx int, name string) {
 		if idx < 0 {
-			r.add(h.line, 0, name, "the %s table needs the column %s", h.shape, name)
+			r.add(h.line, 0, name, "%s needs the column %s", h.shape.theTable(), name)
 			ok = false
 		}
 	}

@@ -247,12 +247,14 @@ func (r *reader) number(rec []string, i int) (float64, bool) {
 }
 
 // position reads field i as x [m] and returns it in mm, on the member within CoverTolerance.
+// x is taken to 1e-6 m (0.001 mm), the resolution the tables are written with, so that a
+// table written from this one reads back with the same stations.
 func (r *reader) position(rec []string, i int) (float64, bool) {
 	v, ok := r.number(rec, i)
 	if !ok {
 		return 0, false
 	}
-	x := v * mmPerM
+	x := math.Round(v*1e6) / 1e6 * mmPerM
 	if !(x >= -CoverTolerance && x <= r.opt.Length+CoverTolerance) {
 		r.cell(i, "x = %s m is off the member (0 to %s m)", strings.TrimSpace(rec[i]), metres(r.opt.Length))
 		return 0, false

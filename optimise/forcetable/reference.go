@@ -21,8 +21,9 @@ FORCES TABLE (forces.file)
                 positive when sagging, shear V = dM/dx, axial force positive in tension,
                 deflection positive downward.
   Stations      The stations must cover the whole member, from x = 0 to its length L, each
-                end within 1 mm, and lie on it. A jump (at a support, a point load or a point
-                moment) is two rows at the same x: the value just left of x, then just right.
+                end within 1 mm, and lie on it. x is read to 0.000001 m (0.001 mm). A jump
+                (at a support, a point load or a point moment) is two rows at the same x: the
+                value just left of x, then the value just right.
   Between       Values are exact only at the stations; between two stations they are taken
                 as linear, so give a station at every support, load point and peak, and
                 enough between them for the curvature of the moment diagram. At a station
