@@ -178,7 +178,7 @@ func (r *reader) next() ([]string, bool) {
 		}
 		var pe *csv.ParseError
 		if errors.As(err, &pe) {
-			r.add(pe.Line, 0, "", "%s (at character %d of the line)", csvMessage(pe.Err), pe.Column)
+			r.add(pe.Line, 0, "", "%s (at byte %d of the line)", csvMessage(pe.Err), pe.Column)
 			r.bad = true
 			continue
 		}

@@ -166,3 +166,20 @@ func TestWriteRefusesNonFinite(t *testing.T) {
 	assert.Contains(t, err.Error(), "sls_w_min_mm")
 	assert.Zero(t, out.Len())
 }
+
+// TestPositionsToTheWrittenResolution: x is read to 1e-6 m, the resolution tables are written
+// with, so stations that would print alike are one station and a table written from a read one
+// reads back.
+func TestPositionsToTheWrittenResolution(t *testing.T) {
+	data := "x_m,combination,state,M_kNm,V_kN,N_kN\n" +
+		"0,A,ULS,0,1,0\n1.0000004,A,ULS,1,1,0\n2,A,ULS,2,1,0\n" +
+		"0,B,ULS,0,1,0\n1.0000001,B,ULS,1,1,0\n2,B,ULS,2,1,0\n"
+	tab, err := Read("f.csv", []byte(data), Options{Length: 2000})
+	require.NoError(t, err)
+	require.Len(t, tab.Envelopes.Stations, 3)
+	assert.Equal(t, 1000.0, tab.Envelopes.Stations[1].X)
+	var out bytes.Buffer
+	require.NoError(t, tab.Write(&out))
+	_, err = Read("f.csv", out.Bytes(), Options{Length: 2000})
+	assert.NoError(t, err)
+}
