@@ -516,3 +516,12 @@ func distributedIntegrals(s, q1, k float64) (float64, float64, float64) {
 	s2 := s * s
 	return q1*s + k*s2/2, q1*s2/2 + k*s2*s/6, q1*s2*s2/24 + k*s2*s2*s/120
 }
+
+// ModelRegions returns the spans and overhangs of a model with at least one support, left to
+// right: the regions an analysis patterns loads over and checks deflections in.
+func ModelRegions(m Model) []Region {
+	if len(m.Supports) == 0 {
+		return nil
+	}
+	return regionsOf(m)
+}

@@ -37,12 +37,18 @@ type SettingError struct {
 func (e *SettingError) Error() string { return e.Setting + ": " + e.Err.Error() }
 func (e *SettingError) Unwrap() error { return e.Err }
 
-// AnalyseBeam analyses the job's beam at the stations the settings ask for.
+// AnalyseBeam analyses the job's beam at the stations the settings ask for. A job with
+// imported forces has no analysis: its table's envelopes are given at the table's stations
+// (the settings' stations do not apply), and there are no load cases.
 func AnalyseBeam(s *Setup, set BeamSettings) (*BeamOutcome, error) {
-	an, err := s.Analyse()
+	src, err := s.Forces()
 	if err != nil {
 		return nil, err
 	}
+	if s.Imported() {
+		return importedBeam(s, src, set)
+	}
+	an := src.Analysis()
 	o := &BeamOutcome{Setup: s, Analysis: an}
 	if len(set.At) > 0 {
 		if o.Stations, err = an.StationsAt(set.At); err != nil {
@@ -77,16 +83,32 @@ func AnalyseBeam(s *Setup, set BeamSettings) (*BeamOutcome, error) {
 		return nil, err
 	}
 	o.Envelopes = &env
-	fine, err := chartEnvelopes(an, s)
+	fine, err := src.Chart()
 	if err != nil {
 		return nil, err
 	}
-	m, err := s.CheckMember(an, &fine)
+	m, err := src.Member(&fine)
 	if err != nil {
 		return nil, err
 	}
 	o.Member = &m
 	return o, nil
+}
+
+// importedBeam is AnalyseBeam for a job with a forces table.
+func importedBeam(s *Setup, src Forces, set BeamSettings) (*BeamOutcome, error) {
+	if set.Case != "" {
+		return nil, &SettingError{"case", fmt.Errorf("the job has no load cases: its forces come from %s", s.Table.File)}
+	}
+	env, err := src.Chart()
+	if err != nil {
+		return nil, err
+	}
+	m, err := src.Member(&env)
+	if err != nil {
+		return nil, err
+	}
+	return &BeamOutcome{Setup: s, Stations: env.Stations, Envelopes: &env, Member: &m}, nil
 }
 
 // JobCheck is what a check of the job reports: the resolved job, its analysis (a mechanism or
@@ -97,19 +119,19 @@ type JobCheck struct {
 	Member   MemberChecks
 }
 
-// CheckJob analyses the job's beam and checks the beam itself.
+// CheckJob analyses the job's beam (or takes its imported forces) and checks the beam itself.
 func CheckJob(s *Setup) (*JobCheck, error) {
-	an, err := s.Analyse()
+	src, err := s.Forces()
 	if err != nil {
 		return nil, err
 	}
-	env, err := chartEnvelopes(an, s)
+	env, err := src.Chart()
 	if err != nil {
 		return nil, err
 	}
-	m, err := s.CheckMember(an, &env)
+	m, err := src.Member(&env)
 	if err != nil {
 		return nil, err
 	}
-	return &JobCheck{Setup: s, Analysis: an, Member: m}, nil
+	return &JobCheck{Setup: s, Analysis: src.Analysis(), Member: m}, nil
 }

@@ -40,7 +40,7 @@ func BenchmarkExhaustivePosition(b *testing.B) {
 	xs := []float64{3500, 7200, 9300, 13300, 16000, 20100, 25600, 30900, 35300}
 	i := 0
 	for b.Loop() {
-		if _, _, err := Scan(an, s.Combinations, xs[i%len(xs):i%len(xs)+1], nil, d, ScanSettings{Exhaustive: true}); err != nil {
+		if _, _, err := Scan(AnalysedForces(an, s.Combinations), xs[i%len(xs):i%len(xs)+1], nil, d, ScanSettings{Exhaustive: true}); err != nil {
 			b.Fatal(err)
 		}
 		i++

@@ -37,22 +37,19 @@ func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*Design
 	if !(x >= 0 && x <= s.Model.Length) {
 		return nil, &SettingError{"at", fmt.Errorf("%g m is off the beam (0 to %g m)", x/1e3, s.Model.Length/1e3)}
 	}
-	an, err := s.Analyse()
+	src, err := s.Forces()
 	if err != nil {
 		return nil, err
 	}
-	fs, origins, err := DesignForcesTraced(an, s.Combinations, []float64{x})
-	if probs, ok := s.LocateOverflow(err); ok {
-		return nil, probs
-	}
+	fs, origins, err := src.Traced([]float64{x})
 	if err != nil {
 		return nil, err
 	}
-	fine, err := chartEnvelopes(an, s)
+	fine, err := src.Chart()
 	if err != nil {
 		return nil, err
 	}
-	member, err := s.CheckMember(an, &fine)
+	member, err := src.Member(&fine)
 	if err != nil {
 		return nil, err
 	}
@@ -67,7 +64,7 @@ func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*Design
 	p.SLS = &sls
 	pos := x / 1e3
 	o := &DesignOutcome{Problem: p, Position: &pos, SpliceFile: file,
-		Input:   fmt.Sprintf("%s, envelopes at x = %.3f m (worse side at a jump)", s.File, pos),
+		Input:   fmt.Sprintf("%s, %s at x = %.3f m (worse side at a jump)", s.File, s.forcesWords(), pos),
 		Section: s.Section.Name, Grade: s.Grade.Name, PlateGrade: s.PlateGrade, Indicative: !s.Costed,
 		Origins: &origins[0], Member: &member, Beam: section}
 	return o, o.run(fixed)
@@ -216,4 +213,12 @@ func LoadSpliceFile(file string, data []byte) (splice.Geometry, error) {
 		g.Flange.Inner = splice.Plate{Thickness: fl.Inner.Thickness.MM(), Width: fl.Inner.Width.MM()}
 	}
 	return g, nil
+}
+
+// forcesWords says where the job's design forces come from.
+func (s *Setup) forcesWords() string {
+	if s.Table != nil {
+		return "forces imported from " + s.Table.File
+	}
+	return "envelopes"
 }

@@ -3,6 +3,7 @@ package optimise
 import (
 	"fmt"
 	"math"
+	"slices"
 	"sort"
 
 	"spanbreak/beam"
@@ -33,6 +34,42 @@ type KeepOutSpec struct {
 // and point moments (of every load case), the user ranges, then the ends of the beam closer
 // than minPiece [mm] (no piece may be that short). A zero distance makes no zone.
 func KeepOutZones(m beam.Model, cases []beam.Case, k KeepOutSpec, minPiece float64) []Zone {
+	var pts []PointAction
+	for _, c := range cases {
+		for _, l := range c.Loads {
+			switch l.Kind {
+			case beam.PointForce:
+				pts = append(pts, PointAction{l.X1, "the point load of case " + c.Name})
+			case beam.PointMoment:
+				pts = append(pts, PointAction{l.X1, "the point moment of case " + c.Name})
+			}
+		}
+	}
+	return keepOutZones(m, pts, k, minPiece)
+}
+
+// PointAction is where a point load or point moment acts, and what it is in words.
+type PointAction struct {
+	X    float64 // [mm]
+	What string
+}
+
+// tableJumps are the jumps of an imported table away from the supports: the point loads and
+// moments of the analysis the table comes from.
+func tableJumps(m beam.Model, st []beam.Station) []PointAction {
+	var out []PointAction
+	for i := 1; i < len(st); i++ {
+		if st[i].X != st[i-1].X || slices.ContainsFunc(m.Supports, func(s beam.Support) bool { return math.Abs(s.X-st[i].X) <= zoneTol }) {
+			continue
+		}
+		if len(out) == 0 || out[len(out)-1].X != st[i].X {
+			out = append(out, PointAction{st[i].X, "the jump of the forces table (a point load or moment)"})
+		}
+	}
+	return out
+}
+
+func keepOutZones(m beam.Model, pts []PointAction, k KeepOutSpec, minPiece float64) []Zone {
 	var zones []Zone
 	if k.Supports > 0 {
 		for _, s := range m.Supports {
@@ -41,25 +78,11 @@ func KeepOutZones(m beam.Model, cases []beam.Case, k KeepOutSpec, minPiece float
 		}
 	}
 	if k.PointLoads > 0 {
-		type point struct {
-			x    float64
-			what string
-		}
-		var pts []point
-		for _, c := range cases {
-			for _, l := range c.Loads {
-				switch l.Kind {
-				case beam.PointForce:
-					pts = append(pts, point{l.X1, "the point load of case " + c.Name})
-				case beam.PointMoment:
-					pts = append(pts, point{l.X1, "the point moment of case " + c.Name})
-				}
-			}
-		}
-		sort.SliceStable(pts, func(i, j int) bool { return pts[i].x < pts[j].x })
+		pts = slices.Clone(pts)
+		sort.SliceStable(pts, func(i, j int) bool { return pts[i].X < pts[j].X })
 		for _, p := range pts {
-			zones = append(zones, Zone{From: p.x - k.PointLoads, To: p.x + k.PointLoads, Key: "limits.keep_out.point_loads",
-				Reason: fmt.Sprintf("keep-out: %s each side of %s at %s", metres(k.PointLoads), p.what, metres(p.x))})
+			zones = append(zones, Zone{From: p.X - k.PointLoads, To: p.X + k.PointLoads, Key: "limits.keep_out.point_loads",
+				Reason: fmt.Sprintf("keep-out: %s each side of %s at %s", metres(k.PointLoads), p.What, metres(p.X))})
 		}
 	}
 	for i, r := range k.Ranges {

@@ -16,6 +16,9 @@ type MemberChecks struct {
 	Member     beam.MemberResult
 	Scope      error // why the cross-section checks are outside scope (class 4, shear buckling), or nil
 	Deflection beam.DeflectionResult
+	// NoDeflection says why the deflection is not checked (imported forces without w, or a
+	// member without supports); "" when it is.
+	NoDeflection string
 }
 
 // LTBCaution says what the member checks leave to the engineer.

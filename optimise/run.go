@@ -67,8 +67,9 @@ type Outcome struct {
 	Limits       PieceLimits // the job's, with the settings' rigging allowance
 	Alternatives int         // near-best alternatives asked for
 
-	Analysis  *beam.Analysis
-	Envelopes beam.Envelopes // at every key point and ChartIntervals intervals along the beam
+	Source    Forces         // where the design forces come from: the job's analysis or its table
+	Analysis  *beam.Analysis // the job's own analysis; nil for imported forces
+	Envelopes beam.Envelopes // the analysis at every key point and ChartIntervals intervals, or the table
 	Member    MemberChecks   // the beam's own checks on those envelopes
 
 	Candidates []Candidate
@@ -128,13 +129,14 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	if err != nil {
 		return nil, err
 	}
-	if o.Analysis, err = s.Analyse(); err != nil {
+	if o.Source, err = s.Forces(); err != nil {
 		return nil, err
 	}
-	if o.Envelopes, err = chartEnvelopes(o.Analysis, s); err != nil {
+	o.Analysis = o.Source.Analysis()
+	if o.Envelopes, err = o.Source.Chart(); err != nil {
 		return nil, err
 	}
-	if o.Member, err = s.CheckMember(o.Analysis, &o.Envelopes); err != nil {
+	if o.Member, err = o.Source.Member(&o.Envelopes); err != nil {
 		return nil, err
 	}
 	xs, err := Grid(s.Model.Length, o.Step)
@@ -147,7 +149,7 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	if set.Exhaustive {
 		workers = 1
 	}
-	cands, stats, err := Scan(o.Analysis, s.Combinations, xs, s.Zones, d, ScanSettings{Exhaustive: set.Exhaustive, Workers: workers})
+	cands, stats, err := Scan(o.Source, xs, s.Zones, d, ScanSettings{Exhaustive: set.Exhaustive, Workers: workers})
 	if probs, ok := s.LocateOverflow(err); ok {
 		return nil, probs // the envelopes overflow
 	}
@@ -171,20 +173,6 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	}
 	o.Layouts = lr
 	return o, nil
-}
-
-// chartEnvelopes are the envelopes at every key point and ChartIntervals intervals (no finer
-// than 10 mm).
-func chartEnvelopes(an *beam.Analysis, s *Setup) (beam.Envelopes, error) {
-	st, err := an.Stations(math.Max(s.Model.Length/ChartIntervals, 10))
-	if err != nil {
-		return beam.Envelopes{}, err
-	}
-	env, err := an.Envelopes(s.Combinations, st)
-	if probs, ok := s.LocateOverflow(err); ok {
-		return beam.Envelopes{}, probs
-	}
-	return env, err
 }
 
 // newOutcome applies the settings to the setup: step, rigging, alternatives and the notes.

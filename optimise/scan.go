@@ -6,7 +6,6 @@ import (
 	"runtime"
 	"sync"
 
-	"spanbreak/beam"
 	"spanbreak/splice"
 )
 
@@ -99,8 +98,7 @@ func Grid(length, step float64) ([]float64, error) {
 // splice. The normal scan computes the envelopes at all positions at once and sizes each
 // distinct force set once, in parallel; the exhaustive scan does neither and must give the
 // same candidates.
-func Scan(an *beam.Analysis, combos []beam.Combination, xs []float64, zones []Zone, d Designer,
-	set ScanSettings) ([]Candidate, ScanStats, error) {
+func Scan(src Forces, xs []float64, zones []Zone, d Designer, set ScanSettings) ([]Candidate, ScanStats, error) {
 	cands := make([]Candidate, len(xs))
 	stats := ScanStats{Candidates: len(xs)}
 	var open []int // positions outside every zone
@@ -115,9 +113,9 @@ func Scan(an *beam.Analysis, combos []beam.Combination, xs []float64, zones []Zo
 	}
 	var err error
 	if set.Exhaustive {
-		err = scanExhaustive(an, combos, cands, open, d, &stats)
+		err = scanExhaustive(src, cands, open, d, &stats)
 	} else {
-		err = scanShared(an, combos, cands, open, d, set.Workers, &stats)
+		err = scanShared(src, cands, open, d, set.Workers, &stats)
 	}
 	if err != nil {
 		return nil, stats, err
@@ -146,10 +144,9 @@ func zoneAt(zones []Zone, x float64) *Zone {
 }
 
 // scanExhaustive is the reference: each position on its own, in order.
-func scanExhaustive(an *beam.Analysis, combos []beam.Combination, cands []Candidate, open []int, d Designer,
-	stats *ScanStats) error {
+func scanExhaustive(src Forces, cands []Candidate, open []int, d Designer, stats *ScanStats) error {
 	for _, i := range open {
-		f, err := DesignForces(an, combos, []float64{cands[i].X})
+		f, err := src.At([]float64{cands[i].X})
 		if err != nil {
 			return err
 		}
@@ -166,8 +163,7 @@ func scanExhaustive(an *beam.Analysis, combos []beam.Combination, cands []Candid
 
 // scanShared computes the forces at every open position in one envelope pass, then sizes each
 // distinct force set once on a bounded pool of workers.
-func scanShared(an *beam.Analysis, combos []beam.Combination, cands []Candidate, open []int, d Designer,
-	workers int, stats *ScanStats) error {
+func scanShared(src Forces, cands []Candidate, open []int, d Designer, workers int, stats *ScanStats) error {
 	if len(open) == 0 {
 		return nil
 	}
@@ -175,7 +171,7 @@ func scanShared(an *beam.Analysis, combos []beam.Combination, cands []Candidate,
 	for k, i := range open {
 		xs[k] = cands[i].X
 	}
-	forces, err := DesignForces(an, combos, xs)
+	forces, err := src.At(xs)
 	if err != nil {
 		return err
 	}

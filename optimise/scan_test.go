@@ -36,7 +36,7 @@ func TestScanSharesEqualForceSets(t *testing.T) {
 	zones := []Zone{{From: 4000, To: 5000, Reason: "test zone", Key: "limits.keep_out.ranges[0]"}}
 	for _, exhaustive := range []bool{false, true} {
 		d := &countingDesigner{}
-		cands, stats, err := Scan(an, combos, xs, zones, d, ScanSettings{Exhaustive: exhaustive, Workers: 3})
+		cands, stats, err := Scan(AnalysedForces(an, combos), xs, zones, d, ScanSettings{Exhaustive: exhaustive, Workers: 3})
 		require.NoError(t, err)
 		require.Len(t, cands, 19)
 		assert.Equal(t, 3, stats.KeptOut, "4.0, 4.5 and 5.0 m are in the closed zone")
@@ -63,7 +63,7 @@ func TestScanReturnsTheDesignersError(t *testing.T) {
 	an, err := s.Analyse()
 	require.NoError(t, err)
 	for _, ex := range []bool{false, true} {
-		_, _, err = Scan(an, s.Combinations, []float64{5000, 15000, 25000}, nil, failingDesigner{}, ScanSettings{Exhaustive: ex})
+		_, _, err = Scan(AnalysedForces(an, s.Combinations), []float64{5000, 15000, 25000}, nil, failingDesigner{}, ScanSettings{Exhaustive: ex})
 		require.ErrorContains(t, err, "M99")
 	}
 }

@@ -6,6 +6,7 @@ import (
 	"slices"
 
 	"spanbreak/beam"
+	"spanbreak/optimise/forcetable"
 	"spanbreak/optimise/jobfile"
 	"spanbreak/splice"
 )
@@ -38,6 +39,10 @@ type Setup struct {
 	Spans      []float64  // as written, left to right [mm]
 	Overhang   [2]float64 // left, right [mm]
 	SelfWeight float64    // the section's weight per length when the job includes it, else 0 [N/mm]
+
+	// Table holds the forces imported from another analysis (job key forces), in place of
+	// the cases and combinations, which are then empty; nil when the job analyses its beam.
+	Table *forcetable.Table
 
 	Cases        []beam.Case // job cases in file order; SelfWeightCase first when self weight is on
 	Rules        beam.Rules
@@ -76,7 +81,7 @@ type Setup struct {
 
 // JobFileReference is the reference of every key of the job file and the splice file: unit,
 // default, allowed values, plausible range and an example.
-func JobFileReference() string { return jobfile.Reference() }
+func JobFileReference() string { return jobfile.Reference() + "\n" + forcetable.Reference() }
 
 // Where locates a job-file key path ("limits.keep_out", "scan.step") in the file, for
 // messages; a key the file does not hold points at its nearest written parent.
@@ -115,8 +120,10 @@ func Prepare(file string, data []byte) (*Setup, error) {
 	}
 	s.model()
 	s.regions(&probs)
-	s.cases()
-	s.combinations(&probs)
+	if job.Forces == nil {
+		s.cases()
+		s.combinations(&probs)
+	}
 	if len(probs) > 0 {
 		return nil, probs.Err()
 	}
@@ -125,13 +132,21 @@ func Prepare(file string, data []byte) (*Setup, error) {
 		probs.Add(s.job.Beam.Where("section"), "%v", err)
 		return nil, probs.Err()
 	}
-	s.Zones = KeepOutZones(s.Model, s.Cases, s.KeepOut, s.Limits.MinLength)
+
 	sp, err := s.spliceProblem()
 	if err != nil {
 		return nil, err
 	}
 	s.Splice = sp
 	s.PlateGrade, s.Rates = sp.PlateSteel.Name, sp.Rates
+	if job.Forces != nil {
+		if s.Table, err = s.readTable(); err != nil {
+			return nil, err
+		}
+		s.Zones = keepOutZones(s.Model, tableJumps(s.Model, s.Table.Envelopes.Stations), s.KeepOut, s.Limits.MinLength)
+	} else {
+		s.Zones = KeepOutZones(s.Model, s.Cases, s.KeepOut, s.Limits.MinLength)
+	}
 	s.Defaults = defaultsOf(job)
 	s.Notes = notesOf(job)
 	return s, nil
@@ -266,4 +281,16 @@ func notesOf(job *jobfile.Job) []string {
 		out = append(out, "no costs block: splices are priced at invented indicative rates, for ranking only, and lifts cost nothing")
 	}
 	return out
+}
+
+// readTable reads the job's forces table, its path relative to the job file. Slip at SLS
+// (category B) needs the SLS forces.
+func (s *Setup) readTable() (*forcetable.Table, error) {
+	path := forcetable.ResolvePath(s.File, s.job.Forces.File)
+	opt := forcetable.Options{Length: s.Model.Length}
+	if s.Splice.Sizing.Category == splice.CategoryB {
+		opt.NeedSLS = true
+		opt.SLSReason = "splice.category B is checked for slip at SLS (EN 1993-1-8 Table 3.2, 3.9)"
+	}
+	return forcetable.ReadFile(path, opt)
 }

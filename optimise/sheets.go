@@ -26,7 +26,7 @@ func (o *Outcome) Sheets(xs []float64) ([]SpliceSheet, error) {
 	p.Brief = false
 	var sheets []SpliceSheet
 	var errs []error
-	_, origins, err := DesignForcesTraced(o.Analysis, o.Setup.Combinations, xs)
+	_, origins, err := o.Source.Traced(xs)
 	if err != nil {
 		return nil, err
 	}

@@ -103,7 +103,7 @@ func (r *Report) build(in ReportInput) error {
 	sheets := r.Sheets
 	envChart, err := EnvelopeChart(EnvelopeInput{
 		Title: "Envelopes along the beam, " + s.Section.Name + " " + s.Grade.Name, Envelopes: &env,
-		Model: s.Model, KeepOut: KeepOutRanges(res), Splices: rec.Splices, Deflection: true,
+		Model: s.Model, KeepOut: KeepOutRanges(res), Splices: rec.Splices, Deflection: s.Table == nil || s.Table.Deflection(),
 	})
 	if err != nil {
 		return err
@@ -333,6 +333,21 @@ func (w *reportWriter) beamAndLoads() {
 		}
 		d.para("Internal hinges at " + strings.Join(hs, ", ") + ".")
 	}
+	if t := s.Table; t != nil {
+		d.heading(1, "Forces from another analysis", 60)
+		defl := "the table gives no deflection, so the deflection of the member is not checked"
+		if t.Deflection() && len(s.Model.Supports) > 0 {
+			defl = "the deflection is checked from the table's w"
+		}
+		d.keyValues([][2]string{
+			{"File", t.File},
+			{"SHA-256", t.SHA256},
+			{"Table", fmt.Sprintf("%s shape, %d rows, %d stations over %s", t.Shape, t.Rows, len(t.Envelopes.Stations), fmtM(t.Length))},
+			{"Method", "The beam analysis was not run: the design forces are those of the table, linear between its stations " +
+				"(exact only at the stations), the worse side taken at a jump. The cross-section of the beam is checked on them; " + defl + "."},
+		})
+		return
+	}
 	d.heading(1, "Load cases (characteristic)", 60)
 	rows = nil
 	for _, c := range s.Cases {
@@ -425,6 +440,11 @@ func (w *reportWriter) envelopes() {
 	d.table(table{Columns: []column{{"extreme", 1.6, false}, {"value", 1, true}, {"at", 0.9, true},
 		{"combination and pattern", 5, false}}, Rows: rows})
 	d.heading(1, "Support reactions", 40)
+	if len(env.ULSReactions) == 0 {
+		d.para("None: the forces are imported from another analysis, which gives the reactions itself.")
+		w.member()
+		return
+	}
 	rows = nil
 	for i, r := range env.ULSReactions {
 		sr := env.SLSReactions[i]
@@ -468,6 +488,11 @@ func (w *reportWriter) member() {
 		})
 	} else {
 		d.para("Outside scope: " + m.Scope.Error() + ".")
+	}
+	if m.NoDeflection != "" {
+		d.para("The deflection is not checked: " + m.NoDeflection + ".")
+		d.small("Not checked: " + optimise.LTBCaution + ".")
+		return
 	}
 	var rows [][]string
 	for _, x := range m.Deflection.Regions {

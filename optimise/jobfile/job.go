@@ -14,7 +14,8 @@ type Job struct {
 	Meta
 	Title        string         `yaml:"title"`
 	Beam         Beam           `yaml:"beam,required"`
-	Cases        Map[Case]      `yaml:"cases,required"` // characteristic load cases, in file order
+	Cases        Map[Case]      `yaml:"cases"`  // characteristic load cases, in file order; required without forces
+	Forces       *ForcesFile    `yaml:"forces"` // forces from another analysis, in place of cases and combinations
 	Combinations *Combinations  `yaml:"combinations"`
 	Splice       *SpliceOptions `yaml:"splice"`
 	Limits       *Limits        `yaml:"limits"`
@@ -32,14 +33,22 @@ const (
 // Beam describes the member: section, grade, spans, overhangs, supports and hinges.
 type Beam struct {
 	Meta
-	Section    Section   `yaml:"section,required"`
-	Grade      string    `yaml:"grade"`       // e.g. "S355"; looked up by the caller
-	GradeTable string    `yaml:"grade_table"` // GradeTableEN1993 (default when "") or GradeTableEN10025
-	Spans      []Metres  `yaml:"spans,required"`
-	Overhang   *Overhang `yaml:"overhang"`
-	Supports   []Support `yaml:"supports,required"` // one per span end, left to right
-	Hinges     []Metres  `yaml:"hinges"`            // x of internal moment hinges
-	SelfWeight *bool     `yaml:"self_weight"`       // nil: the default, see IncludesSelfWeight
+	Section      Section   `yaml:"section,required"`
+	Grade        string    `yaml:"grade"`       // e.g. "S355"; looked up by the caller
+	GradeTable   string    `yaml:"grade_table"` // GradeTableEN1993 (default when "") or GradeTableEN10025
+	Spans        []Metres  `yaml:"spans"`       // required unless length is given
+	MemberLength *Metres   `yaml:"length"`      // a member with no supports of its own (imported forces only)
+	Overhang     *Overhang `yaml:"overhang"`
+	Supports     []Support `yaml:"supports"`    // one per span end, left to right; required with spans
+	Hinges       []Metres  `yaml:"hinges"`      // x of internal moment hinges
+	SelfWeight   *bool     `yaml:"self_weight"` // nil: the default, see IncludesSelfWeight
+}
+
+// ForcesFile names a table of forces from another analysis (optimise/forcetable), its path
+// relative to the job file.
+type ForcesFile struct {
+	Meta
+	File string `yaml:"file,required"`
 }
 
 // SelfWeightCase is the name of the permanent case the section's own weight makes.
@@ -68,6 +77,9 @@ func (b Beam) RightOverhang() float64 {
 
 // Length returns the total length [mm]: both overhangs and every span.
 func (b Beam) Length() float64 {
+	if b.MemberLength != nil {
+		return b.MemberLength.MM()
+	}
 	l := b.LeftOverhang() + b.RightOverhang()
 	for _, s := range b.Spans {
 		l += s.MM()
@@ -78,6 +90,9 @@ func (b Beam) Length() float64 {
 // SupportPositions returns x of each span end from the left end of the beam [mm]: the left
 // overhang, then the running sum of the spans.
 func (b Beam) SupportPositions() []float64 {
+	if len(b.Spans) == 0 {
+		return nil // a member given by its length has no supports of its own
+	}
 	x := b.LeftOverhang()
 	xs := []float64{x}
 	for _, s := range b.Spans {

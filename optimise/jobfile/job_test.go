@@ -253,13 +253,13 @@ func TestLoadMinimalJob(t *testing.T) {
 func TestLoadBadJobs(t *testing.T) {
 	tests := []problemCase{
 		{"unknown top-level key", minimal + "limts: {}\n",
-			[]string{`9:1: unknown key "limts" (allowed: title, beam, cases, combinations, splice, limits, vehicles, costs, scan); did you mean "limits"?`}},
+			[]string{`9:1: unknown key "limts" (allowed: title, beam, cases, forces, combinations, splice, limits, vehicles, costs, scan); did you mean "limits"?`}},
 		{"misspelt beam key", `beam:
   sectoin: IPE 300
   spans: [6]
   supports: [pinned, roller]
 cases: {G: {kind: permanent, loads: [{udl: 5}]}}
-`, []string{`2:3: beam: unknown key "sectoin" (allowed: section, grade, grade_table, spans, overhang, supports, hinges, self_weight); did you mean "section"?`}},
+`, []string{`2:3: beam: unknown key "sectoin" (allowed: section, grade, grade_table, spans, length, overhang, supports, hinges, self_weight); did you mean "section"?`}},
 		{"missing required keys", "beam:\n  grade: S355\n",
 			[]string{`1:1: beam: missing required key "section"`, `1:1: beam: missing required key "spans"`,
 				`1:1: beam: missing required key "supports"`, `1:1: missing required key "cases"`}},

@@ -106,6 +106,16 @@ func (l beamLength) String() string { return Metres(l.mm).String() }
 
 func (c *checker) job(j *Job) {
 	length := c.beam(&j.Beam)
+	switch {
+	case j.Forces != nil:
+		c.imported(j)
+	case !j.Has("cases"):
+		c.add(j.Where(""), "missing required key %q (or forces: {file: ...} to import the forces of another analysis)", "cases")
+	}
+	if j.Beam.MemberLength != nil && j.Forces == nil {
+		c.add(j.Beam.Where("length"), "beam.length describes a member with no supports of its own, which only imported forces "+
+			"(forces: {file: ...}) can load; loads in cases need spans and supports")
+	}
 	names := c.cases(j, length)
 	c.combinations(j.Combinations, names)
 	c.spliceOptions(j.Splice)
@@ -115,12 +125,52 @@ func (c *checker) job(j *Job) {
 	c.scan(j.Scan, length)
 }
 
+// imported checks a job whose forces come from a table: the table replaces the cases and
+// combinations, and the file name must be given (the table itself is read and checked by
+// optimise/forcetable).
+func (c *checker) imported(j *Job) {
+	for _, k := range []string{"cases", "combinations"} {
+		if j.Has(k) {
+			c.add(j.Where(k), "%s: the forces come from forces.file, so the job has no %s; remove one of the two", k, k)
+		}
+	}
+	if f := j.Forces; f.Has("file") && strings.TrimSpace(f.File) == "" {
+		c.add(f.Where("file"), "the forces file name is empty")
+	}
+	if j.Beam.Has("self_weight") {
+		c.add(j.Beam.Where("self_weight"), "self_weight: imported forces already include every load; remove the key")
+	}
+}
+
+// memberLength checks beam.length, the alternative to spans and supports.
+func (c *checker) memberLength(b *Beam) beamLength {
+	for _, k := range []string{"spans", "supports", "overhang", "hinges"} {
+		if b.Has(k) {
+			c.add(b.Where(k), "%s: the beam gives its length, so it has no %s; give either length or spans with supports", k, k)
+		}
+	}
+	l := *b.MemberLength
+	if !(l > 0) {
+		c.add(b.Where("length"), "the member length must be more than 0, got %s", l)
+		return beamLength{}
+	}
+	return beamLength{mm: l.MM(), ok: c.plausible(b.Where("length"), rangeLength, l.MM())}
+}
+
 func (c *checker) beam(b *Beam) beamLength {
 	c.section(b.Section)
 	if b.Has("grade") && strings.TrimSpace(b.Grade) == "" {
 		c.add(b.Where("grade"), "the grade is empty; write a steel grade such as S355")
 	}
 	c.enum(b.Meta, "grade_table", "grade table", b.GradeTable, []string{GradeTableEN1993, GradeTableEN10025})
+	if b.MemberLength != nil {
+		return c.memberLength(b)
+	}
+	for _, k := range []string{"spans", "supports"} {
+		if b.Loc.Line > 0 && !b.Has(k) { // (a missing beam block is reported by the decoder)
+			c.add(b.Where(""), "missing required key %q (or length, for a member with imported forces)", k)
+		}
+	}
 	ok := !c.failed(b.Where("spans")) && !c.failed(b.Where("overhang"))
 	if b.Has("spans") && len(b.Spans) == 0 && ok {
 		c.add(b.Where("spans"), "the beam needs at least one span")

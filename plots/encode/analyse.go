@@ -7,6 +7,7 @@ import (
 
 	"spanbreak/beam"
 	"spanbreak/optimise"
+	"spanbreak/optimise/forcetable"
 )
 
 // AnalysisUnits are the units of the analyse documents.
@@ -151,6 +152,12 @@ func writeBeamHeader(w io.Writer, s *optimise.Setup, what string) {
 		}
 		fmt.Fprintf(w, "Hinges:   %s\n", strings.Join(h, ", "))
 	}
+	if t := s.Table; t != nil {
+		fmt.Fprintf(w, "Forces:   imported from %s (%s table, %d rows, SHA-256 %s); the beam analysis was not run;\n", t.File, t.Shape, t.Rows, t.SHA256)
+		fmt.Fprintf(w, "          the table's own stations, linear between them (exact only at stations)\n")
+		fmt.Fprintf(w, "Units:    x m, M kNm (sagging +), V kN (V = dM/dx), N kN (tension +), w mm (downward +)\n\n")
+		return
+	}
 	var cs []string
 	for _, c := range s.Cases {
 		d := c.Name + " (" + c.Kind.String()
@@ -275,19 +282,8 @@ func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Env
 		}
 		return WriteJSON(w, out)
 	case "csv":
-		u, l := &env.ULS, &env.SLS
-		rows := make([][]string, len(env.Stations))
-		for i, st := range env.Stations {
-			rows[i] = []string{Number(st.X * ToM), SideName(st.Side),
-				Number(u.MMax[i].Value * ToKNm), Number(u.MMin[i].Value * ToKNm), Number(u.VMax[i].Value * ToKN), Number(u.VMin[i].Value * ToKN),
-				Number(u.NMax[i].Value * ToKN), Number(u.NMin[i].Value * ToKN),
-				Number(l.MMax[i].Value * ToKNm), Number(l.MMin[i].Value * ToKNm), Number(l.WMax[i].Value), Number(l.WMin[i].Value),
-				env.Governing(u.MMax[i]), env.Governing(u.MMin[i])}
-		}
-		return WriteCSV(w, []string{"x_m", "side",
-			"uls_M_max_kNm", "uls_M_min_kNm", "uls_V_max_kN", "uls_V_min_kN", "uls_N_max_kN", "uls_N_min_kN",
-			"sls_M_max_kNm", "sls_M_min_kNm", "sls_w_max_mm", "sls_w_min_mm",
-			"uls_M_max_governing", "uls_M_min_governing"}, rows)
+		// the envelope table a job can import back (optimise/forcetable)
+		return forcetable.WriteEnvelopes(w, env)
 	}
 	writeEnvelopeText(w, s, env, m)
 	return nil

@@ -56,6 +56,7 @@ type JobSummary struct {
 	Notes        []string          `json:"notes"`
 	Member       *MemberDoc        `json:"member"`
 	Deflection   []DeflectionDoc   `json:"deflection"`
+	Forces       SourceDoc         `json:"forces"`
 }
 
 type checkSection struct {
@@ -190,9 +191,11 @@ func summarise(st *optimise.Setup, an *beam.Analysis) (JobSummary, error) {
 	}
 	s.cases(st)
 	s.combinations(st)
-	for _, r := range an.Regions() {
+	for _, r := range beam.ModelRegions(st.Model) {
 		s.Regions = append(s.Regions, r.Name)
 	}
+	s.Regions = append([]string{}, s.Regions...)
+	s.Forces = forcesSource(st)
 	s.limits(st)
 	for _, v := range st.Vehicles {
 		s.Vehicles = append(s.Vehicles, JobVehicle{Name: v.Name, MaxLength: Round(v.MaxLength * ToM), Payload: Round(v.Payload), Cost: v.Cost})
@@ -351,7 +354,11 @@ func writeCheckText(w io.Writer, s JobSummary) {
 		}
 		return ""
 	}
-	fmt.Fprintf(w, "spanbreak %s: check of %s: the job is valid and the beam analyses\n", s.Version, s.Input)
+	what := "the beam analyses"
+	if s.Forces.Mode == "imported" {
+		what = "its forces table reads"
+	}
+	fmt.Fprintf(w, "spanbreak %s: check of %s: the job is valid and %s\n", s.Version, s.Input, what)
 	if s.Title != "" {
 		fmt.Fprintf(w, "Title:     %s\n", s.Title)
 	}
@@ -366,62 +373,38 @@ func writeCheckText(w io.Writer, s JobSummary) {
 	fmt.Fprintf(w, "Grade:     %s%s, %s; strengths from %s%s: fy %g, fu %g N/mm² at tf = %g mm; fy %g, fu %g N/mm² at tw = %g mm\n",
 		g.Name, mark("beam.grade"), g.Standard, g.Table, mark("beam.grade_table"), g.FyFlange, g.FuFlange, sec.Tf, g.FyWeb, g.FuWeb, sec.Tw)
 	fmt.Fprintf(w, "Length:    %s m\n", shortNum(s.Length))
-	fmt.Fprintf(w, "Spans:     %s m\n", joinShortNums(s.Spans, ", "))
-	fmt.Fprintf(w, "Overhangs: left %s m%s, right %s m%s\n", shortNum(s.Overhang[0]), mark("beam.overhang.left"),
-		shortNum(s.Overhang[1]), mark("beam.overhang.right"))
-	var sup []string
-	for _, sp := range s.Supports {
-		t := fmt.Sprintf("x = %s m %s", shortNum(sp.X), sp.Type)
-		if sp.K != nil {
-			t += fmt.Sprintf(" (k = %s kN/m)", shortNum(*sp.K))
+	if len(s.Spans) == 0 {
+		fmt.Fprintf(w, "Supports:  none of its own (beam.length): a member whose forces come from another analysis\n")
+	} else {
+		fmt.Fprintf(w, "Spans:     %s m\n", joinShortNums(s.Spans, ", "))
+		fmt.Fprintf(w, "Overhangs: left %s m%s, right %s m%s\n", shortNum(s.Overhang[0]), mark("beam.overhang.left"),
+			shortNum(s.Overhang[1]), mark("beam.overhang.right"))
+		var sup []string
+		for _, sp := range s.Supports {
+			t := fmt.Sprintf("x = %s m %s", shortNum(sp.X), sp.Type)
+			if sp.K != nil {
+				t += fmt.Sprintf(" (k = %s kN/m)", shortNum(*sp.K))
+			}
+			sup = append(sup, t)
 		}
-		sup = append(sup, t)
+		fmt.Fprintf(w, "Supports:  %s\n", strings.Join(sup, "; "))
+		hinges := "none"
+		if len(s.Hinges) > 0 {
+			hinges = "x = " + joinShortNums(s.Hinges, ", ") + " m"
+		}
+		fmt.Fprintf(w, "Hinges:    %s%s\n", hinges, mark("beam.hinges"))
 	}
-	fmt.Fprintf(w, "Supports:  %s\n", strings.Join(sup, "; "))
-	hinges := "none"
-	if len(s.Hinges) > 0 {
-		hinges = "x = " + joinShortNums(s.Hinges, ", ") + " m"
-	}
-	fmt.Fprintf(w, "Hinges:    %s%s\n", hinges, mark("beam.hinges"))
 	sw := "off"
 	if s.SelfWeight > 0 {
 		sw = fmt.Sprintf("on, %.3f kN/m as permanent case %s", s.SelfWeight, optimise.SelfWeightCase)
 	}
-	fmt.Fprintf(w, "Self weight: %s%s\n", sw, mark("beam.self_weight"))
-	fmt.Fprintf(w, "Pattern regions: %s\n", strings.Join(s.Regions, ", "))
-
-	fmt.Fprintln(w, "\nLoad cases (characteristic)")
-	tw := Table(w)
-	fmt.Fprintln(tw, "case\tkind\tcategory\tψ0, ψ1, ψ2\tpattern\tloads\ttotal down [kN]")
-	for _, c := range s.Cases {
-		psi := "-"
-		if c.Psi != nil {
-			psi = fmt.Sprintf("%g, %g, %g (%s)", c.Psi[0], c.Psi[1], c.Psi[2], c.PsiSource)
-		}
-		pattern := "no"
-		if c.Pattern {
-			pattern = "yes"
-		}
-		pattern += mark("cases." + c.Name + ".pattern")
-		name := c.Name
-		if c.SelfW {
-			name += " (self weight)"
-		}
-		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%d\t%.2f\n", name, c.Kind, dashIfEmpty(c.Category), psi, pattern, c.Loads, Clean(c.TotalDown))
+	if s.Forces.Mode == "imported" {
+		writeSource(w, s.Forces)
+	} else {
+		fmt.Fprintf(w, "Self weight: %s%s\n", sw, mark("beam.self_weight"))
+		fmt.Fprintf(w, "Pattern regions: %s\n", strings.Join(s.Regions, ", "))
+		writeLoads(w, s, mark)
 	}
-	tw.Flush()
-
-	cb := s.Combinations
-	fmt.Fprintf(w, "\nCombinations: %d ULS by EN 1990 %s%s, %d SLS %s%s, %d of them from combinations.extra\n",
-		cb.ULSCount, cb.ULS, mark("combinations.uls"), cb.SLSCount, cb.SLS, mark("combinations.sls"), cb.UserCount)
-	fmt.Fprintf(w, "Rules:     %s%s: γG,sup %.2f%s, γG,inf %.2f%s, γQ %.2f%s, ξ %.2f%s\n", cb.Rules, mark("combinations.rules"),
-		cb.GammaGSup, mark("combinations.overrides.gamma_G_sup"), cb.GammaGInf, mark("combinations.overrides.gamma_G_inf"),
-		cb.GammaQ, mark("combinations.overrides.gamma_Q"), cb.Xi, mark("combinations.overrides.xi"))
-	writeRoofRule(w, cb, mark("combinations.roof_imposed_separate"))
-	for _, n := range cb.Names {
-		fmt.Fprintf(w, "  %s\n", n)
-	}
-
 	writeCheckLimits(w, s, mark)
 	sp := s.Splice
 	fmt.Fprintln(w, "\nSplice options")
@@ -548,4 +531,68 @@ func dashIfEmpty(s string) string {
 		return "-"
 	}
 	return s
+}
+
+// writeLoads prints the load cases and the combinations of a job that analyses its beam.
+func writeLoads(w io.Writer, s JobSummary, mark func(...string) string) {
+	fmt.Fprintln(w, "\nLoad cases (characteristic)")
+	tw := Table(w)
+	fmt.Fprintln(tw, "case\tkind\tcategory\tψ0, ψ1, ψ2\tpattern\tloads\ttotal down [kN]")
+	for _, c := range s.Cases {
+		psi := "-"
+		if c.Psi != nil {
+			psi = fmt.Sprintf("%g, %g, %g (%s)", c.Psi[0], c.Psi[1], c.Psi[2], c.PsiSource)
+		}
+		pattern := "no"
+		if c.Pattern {
+			pattern = "yes"
+		}
+		pattern += mark("cases." + c.Name + ".pattern")
+		name := c.Name
+		if c.SelfW {
+			name += " (self weight)"
+		}
+		fmt.Fprintf(tw, "%s\t%s\t%s\t%s\t%s\t%d\t%.2f\n", name, c.Kind, dashIfEmpty(c.Category), psi, pattern, c.Loads, Clean(c.TotalDown))
+	}
+	tw.Flush()
+
+	cb := s.Combinations
+	fmt.Fprintf(w, "\nCombinations: %d ULS by EN 1990 %s%s, %d SLS %s%s, %d of them from combinations.extra\n",
+		cb.ULSCount, cb.ULS, mark("combinations.uls"), cb.SLSCount, cb.SLS, mark("combinations.sls"), cb.UserCount)
+	fmt.Fprintf(w, "Rules:     %s%s: γG,sup %.2f%s, γG,inf %.2f%s, γQ %.2f%s, ξ %.2f%s\n", cb.Rules, mark("combinations.rules"),
+		cb.GammaGSup, mark("combinations.overrides.gamma_G_sup"), cb.GammaGInf, mark("combinations.overrides.gamma_G_inf"),
+		cb.GammaQ, mark("combinations.overrides.gamma_Q"), cb.Xi, mark("combinations.overrides.xi"))
+	writeRoofRule(w, cb, mark("combinations.roof_imposed_separate"))
+	for _, n := range cb.Names {
+		fmt.Fprintf(w, "  %s\n", n)
+	}
+}
+
+// SourceDoc says where a job's design forces come from: its own analysis, or a table.
+type SourceDoc struct {
+	Mode       string `json:"mode"` // "analysis" or "imported"
+	File       string `json:"file,omitempty"`
+	SHA256     string `json:"sha256,omitempty"`
+	Shape      string `json:"shape,omitempty"`
+	Rows       int    `json:"rows,omitempty"`
+	Deflection bool   `json:"deflection"` // the member's deflection can be checked
+}
+
+func forcesSource(st *optimise.Setup) SourceDoc {
+	t := st.Table
+	if t == nil {
+		return SourceDoc{Mode: "analysis", Deflection: true}
+	}
+	return SourceDoc{Mode: "imported", File: t.File, SHA256: t.SHA256, Shape: t.Shape.String(), Rows: t.Rows,
+		Deflection: t.Deflection() && len(st.Model.Supports) > 0}
+}
+
+// writeSource prints where imported forces come from and what they allow.
+func writeSource(w io.Writer, f SourceDoc) {
+	fmt.Fprintf(w, "Forces:    imported from %s (%s, %d rows, SHA-256 %s); the beam analysis was not run\n", f.File, f.Shape, f.Rows, f.SHA256)
+	defl := "no (the table gives no w, or the member has no supports)"
+	if f.Deflection {
+		defl = "yes (from the table's w)"
+	}
+	fmt.Fprintf(w, "           linear between the table's stations (exact only at stations); member checks: cross-section yes, deflection %s\n", defl)
 }

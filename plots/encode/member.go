@@ -87,6 +87,11 @@ func writeMemberText(w io.Writer, m *optimise.MemberChecks) {
 			fmt.Fprintf(w, "  the worst class anywhere on the beam is %s\n", r.Class)
 		}
 	}
+	if m.NoDeflection != "" {
+		fmt.Fprintf(w, "  deflection not checked: %s\n", m.NoDeflection)
+		fmt.Fprintf(w, "  Note: %s.\n", optimise.LTBCaution)
+		return
+	}
 	tw := Table(w)
 	fmt.Fprintln(tw, "  region\tfrom [m]\tto [m]\tw [mm]\tlimit [mm]\tutilisation\t\tcombination")
 	for _, d := range m.Deflection.Regions {
@@ -107,10 +112,14 @@ func memberLine(m *optimise.MemberChecks) string {
 	if m.Scope != nil {
 		return "outside scope: " + m.Scope.Error()
 	}
-	d := m.Deflection.Regions[m.Deflection.Governing]
 	parts := []string{fmt.Sprintf("%s, Mc,Rd %.1f kNm, Vc,Rd %.1f kN; %s %.3f at x = %.3f m", r.Class, r.McRd*ToKNm, r.VcRd*ToKN,
-		r.Check, r.Utilisation, r.X*ToM),
-		fmt.Sprintf("deflection %.3f of L/%g in %s", d.Utilisation, d.Ratio, d.Region.Name)}
+		r.Check, r.Utilisation, r.X*ToM)}
+	if len(m.Deflection.Regions) > 0 {
+		d := m.Deflection.Regions[m.Deflection.Governing]
+		parts = append(parts, fmt.Sprintf("deflection %.3f of L/%g in %s", d.Utilisation, d.Ratio, d.Region.Name))
+	} else {
+		parts = append(parts, "deflection not checked: "+m.NoDeflection)
+	}
 	return strings.Join(parts, "; ")
 }
 
