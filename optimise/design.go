@@ -2,6 +2,7 @@ package optimise
 
 import (
 	"fmt"
+	"math"
 	"strconv"
 	"strings"
 
@@ -22,10 +23,15 @@ type DesignOutcome struct {
 	Grade      string
 	PlateGrade string
 	Indicative bool // priced at the splice package's indicative rates
+	// KeepOut is the job's keep-out zone that holds the position, if any (the first, as in
+	// the scan), clipped to the beam: the design still runs, but the optimiser would put no
+	// splice there.
+	KeepOut *Zone
 }
 
 // DesignAt sizes the cheapest splice for the envelope forces at x [mm] (the worse side at a
-// jump), or checks the fixed splice when one is given (file names it for the sheet).
+// jump), or checks the fixed splice when one is given (file names it for the sheet). A
+// position inside a keep-out zone is designed all the same, with the zone in KeepOut.
 func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*DesignOutcome, error) {
 	if !(x >= 0 && x <= s.Model.Length) {
 		return nil, &SettingError{"at", fmt.Errorf("%g m is off the beam (0 to %g m)", x/1e3, s.Model.Length/1e3)}
@@ -50,6 +56,10 @@ func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*Design
 	o := &DesignOutcome{Problem: p, Position: &pos, SpliceFile: file,
 		Input:   fmt.Sprintf("%s, envelopes at x = %.3f m (worse side at a jump)", s.File, pos),
 		Section: s.Section.Name, Grade: s.Grade.Name, PlateGrade: s.PlateGrade, Indicative: !s.Costed}
+	if z := zoneAt(s.Zones, x); z != nil {
+		z.From, z.To = math.Max(0, z.From), math.Min(s.Model.Length, z.To)
+		o.KeepOut = z
+	}
 	return o, o.run(fixed)
 }
 
