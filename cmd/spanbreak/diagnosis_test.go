@@ -104,6 +104,14 @@ func TestOptimiseWithoutALayoutPrintsTheWholeResult(t *testing.T) {
 		assert.NotContains(t, out, "RECOMMENDATION")
 		assert.NotContains(t, out, "Best layout for each number of splices")
 	})
+	t.Run("exhaustive", func(t *testing.T) {
+		for _, format := range []string{"text", "json", "csv"} {
+			fast, _, _ := runOpt(t, optimiseOptions{Paths: []string{noSpliceJob}, Format: format})
+			slow, _, err := runOpt(t, optimiseOptions{Paths: []string{noSpliceJob}, Format: format, Exhaustive: true})
+			assert.Equal(t, exitInfeasible, exitCode(err))
+			assert.Equal(t, fast, slow, "the reference run prints the same diagnosis (%s)", format)
+		}
+	})
 	t.Run("csv", func(t *testing.T) {
 		out, _, err := runOpt(t, optimiseOptions{Paths: []string{noSpliceJob}, Format: "csv"})
 		assert.Equal(t, exitInfeasible, exitCode(err))
