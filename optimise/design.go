@@ -29,10 +29,15 @@ type DesignOutcome struct {
 	// checks over its whole length (nil for direct forces).
 	Beam   SectionCheck
 	Member *MemberChecks
+	// KeepOut is the job's keep-out zone that holds the position, if any (the first, as in
+	// the scan), clipped to the beam: the design still runs, but the optimiser would put no
+	// splice there.
+	KeepOut *Zone
 }
 
 // DesignAt sizes the cheapest splice for the envelope forces at x [mm] (the worse side at a
-// jump), or checks the fixed splice when one is given (file names it for the sheet).
+// jump), or checks the fixed splice when one is given (file names it for the sheet). A
+// position inside a keep-out zone is designed all the same, with the zone in KeepOut.
 func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*DesignOutcome, error) {
 	if !(x >= 0 && x <= s.Model.Length) {
 		return nil, &SettingError{"at", fmt.Errorf("%g m is off the beam (0 to %g m)", x/1e3, s.Model.Length/1e3)}
@@ -67,6 +72,10 @@ func DesignAt(s *Setup, x float64, fixed *splice.Geometry, file string) (*Design
 		Input:   fmt.Sprintf("%s, %s at x = %.3f m (worse side at a jump)", s.File, s.forcesWords(), pos),
 		Section: s.Section.Name, Grade: s.Grade.Name, PlateGrade: s.PlateGrade, Indicative: !s.Costed,
 		Origins: &origins[0], Member: &member, Beam: section}
+	if z := zoneAt(s.Zones, x); z != nil {
+		z.From, z.To = math.Max(0, z.From), math.Min(s.Model.Length, z.To)
+		o.KeepOut = z
+	}
 	return o, o.run(fixed)
 }
 

@@ -77,11 +77,17 @@ type Outcome struct {
 	Layouts    LayoutResult  // empty when Infeasible is set
 	Chosen     []SpliceSheet // the recommended layout's splices, checked in full, left to right
 	Infeasible *LimitError   // the limit no layout can meet, when none can
+	Diagnosis  Diagnosis     // why no layout fits, when Infeasible is set; empty otherwise
 	Notes      []string
 }
 
-// Recommended returns the cheapest layout.
-func (o *Outcome) Recommended() Layout { return o.Layouts.ByCount[o.Layouts.Recommended] }
+// Recommended returns the cheapest layout; the zero Layout when no layout fits (Infeasible).
+func (o *Outcome) Recommended() Layout {
+	if len(o.Layouts.ByCount) == 0 {
+		return Layout{}
+	}
+	return o.Layouts.ByCount[o.Layouts.Recommended]
+}
 
 // Gap is the gap between the beam ends at a splice [mm].
 func (o *Outcome) Gap() float64 { return o.Setup.Splice.Sizing.Gap }
@@ -118,7 +124,7 @@ func Run(s *Setup, set Settings) (*Outcome, error) {
 // Optimise scans the job's beam with a designer and finds the layouts: candidates every step
 // from the left end, keep-out zones, design forces from the envelopes, the cheapest splice at
 // each position, then the exact layout search. No layout within the limits gives the outcome
-// so far (candidates, no layouts) with an *InfeasibleError; anything the job file causes is a
+// so far (candidates, no layouts, the Diagnosis) with an *InfeasibleError; anything the job file causes is a
 // jobfile.Problems and no outcome. The outcome's Chosen is left empty (Run fills it).
 func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	rank, err := ParseRank(string(set.Rank))
@@ -167,6 +173,7 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 		if errors.As(err, &le) {
 			o.explain(le)
 			o.Infeasible = le
+			o.Diagnosis = o.diagnosis(le)
 			return o, &InfeasibleError{At: s.Where(le.Key), Limit: le}
 		}
 		return nil, err

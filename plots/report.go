@@ -48,15 +48,17 @@ const reportStations = 600
 
 // BuildReport lays out the calculation report: the job summary, the beam and its loads, the
 // envelopes, the limits, the ranking of positions, the layouts, the full calculation sheet of
-// every splice of the recommended layout with its drawing, and the caution. The PDF is built
+// every splice of the recommended layout with its drawing, and the caution. When no layout
+// fits (the outcome is Infeasible) the layouts and sheets give way to the section that says
+// why, from the outcome's Diagnosis. The PDF is built
 // twice, the second time with the page count known for "page n of N"; it carries fixed
 // creation dates, so equal inputs give equal bytes.
 func BuildReport(in ReportInput) (*Report, error) {
 	if in.Outcome == nil {
 		return nil, errors.New("report: needs the optimisation outcome")
 	}
-	if len(in.Outcome.Layouts.ByCount) == 0 {
-		return nil, errors.New("report: the optimisation found no layout to report")
+	if in.Outcome.Infeasible == nil && len(in.Outcome.Layouts.ByCount) == 0 {
+		return nil, errors.New("report: the optimisation found no layout and says no reason")
 	}
 	r := &Report{Charts: map[string]*Chart{}}
 	if err := r.build(in); err != nil {
@@ -120,13 +122,18 @@ func (r *Report) build(in ReportInput) error {
 	if err != nil {
 		return err
 	}
+	r.Charts["envelopes"], r.Charts["cost"], r.Charts["utilisation"] = envChart, cost, util
+	r.Figures = []*Figure{&envChart.Figure, &cost.Figure, &util.Figure}
+	if res.Infeasible != nil {
+		return nil // no layouts to chart, no splices to draw
+	}
 	r.Layouts = LayoutsOf(res, "Best layout for each number of splices", in.Currency)
 	lay, err := LayoutChart(r.Layouts)
 	if err != nil {
 		return err
 	}
-	r.Charts["envelopes"], r.Charts["cost"], r.Charts["utilisation"], r.Charts["layouts"] = envChart, cost, util, lay
-	r.Figures = []*Figure{&envChart.Figure, &cost.Figure, &util.Figure, &lay.Figure}
+	r.Charts["layouts"] = lay
+	r.Figures = append(r.Figures, &lay.Figure)
 	for _, sh := range sheets {
 		f, err := SpliceDrawing(DrawingInput{
 			Title:   fmt.Sprintf("Splice %s at x = %s, %s", sh.Name, fmtM(sh.Position), s.Section.Name),
@@ -166,7 +173,11 @@ func (r *Report) document(in ReportInput, pages int, toc []heading) (*pdfDoc, er
 	w.envelopes()
 	w.limits()
 	w.ranking()
-	w.layouts()
+	if in.Outcome.Infeasible != nil {
+		w.whyNoLayout()
+	} else {
+		w.layouts()
+	}
 	for i := range r.Sheets {
 		w.sheet(&r.Sheets[i])
 	}
@@ -214,7 +225,6 @@ func (w *reportWriter) summary(title, version string) {
 	d, s, res := w.d, w.in.Outcome.Setup, w.in.Outcome
 	d.paraStyled("Splice report", true, false, 18, 22)
 	d.paraStyled(title, true, false, 12, 15)
-	rec := res.Recommended()
 	d.heading(0, "Job summary", 80)
 	d.keyValues([][2]string{
 		{"Input file", s.File},
@@ -225,11 +235,7 @@ func (w *reportWriter) summary(title, version string) {
 		{"Signs", "bending moment sagging +; V = dM/dx; axial force tension +; deflection downward +"},
 	})
 	d.heading(1, "Result", 60)
-	rows := [][2]string{
-		{"Recommended layout", layoutWords(rec)},
-		{"Cost", fmt.Sprintf("%s %s: splices %s, transport %s, erection %s", money(rec.Cost.Total), w.cur,
-			money(rec.Cost.Splices), money(rec.Cost.Transport), money(rec.Cost.Erection))},
-	}
+	rows := w.resultRows()
 	for _, sh := range w.r.Sheets {
 		g := sh.Result.Governing
 		rows = append(rows, [2]string{fmt.Sprintf("Splice %s at %s", sh.Name, fmtM(sh.Position)),
@@ -247,6 +253,9 @@ func (w *reportWriter) summary(title, version string) {
 // sectionTitles are the report's top-level headings in order.
 func (w *reportWriter) sectionTitles() []string {
 	t := []string{"Job summary", "Beam and loads", "Envelopes", "The beam itself", "Limits", "Candidate positions", "Layouts"}
+	if w.in.Outcome.Infeasible != nil {
+		t[len(t)-1] = whyTitle
+	}
 	for _, sh := range w.r.Sheets {
 		t = append(t, sheetTitle(&sh))
 	}
@@ -652,6 +661,11 @@ func (w *reportWriter) ranking() {
 	for _, c := range best {
 		rows = append(rows, []string{fmt.Sprint(c.Rank), formatClean(c.X/1e3, 3), money(c.Design.Cost), fmt.Sprint(c.Design.Bolts),
 			fixed(c.Design.PlateMass, 1), fixed(c.Design.Utilisation, 3), c.Design.Governing, c.Design.Summary})
+	}
+	if len(rows) == 0 {
+		d.heading(1, "Best positions", 60)
+		d.para("None: no position admits a splice (see the reasons in scan.csv).")
+		return
 	}
 	d.heading(1, fmt.Sprintf("The %d best positions", len(rows)), 60)
 	d.table(table{Columns: []column{{"rank", 0.6, true}, {"x [m]", 0.9, true}, {"cost", 0.8, true}, {"bolts", 0.7, true},

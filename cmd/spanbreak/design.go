@@ -46,7 +46,8 @@ the utilisation and pass or fail; then the governing check, the quantities and t
 Forces come from a job file at --at X (m), or directly: --uls and --sls take M in kNm and V,
 N in kN as "M=350,V=120,N=-40"; M (or N) sets both extremes, or give M_max, M_min, N_max,
 N_min separately. M is positive sagging, N positive in tension. Both signs of the moment are
-always checked.
+always checked. A position inside one of the job's keep-out zones is designed all the same,
+with a note naming the zone (its reason and job-file key) before the design forces.
 
 ` + caution,
 		Args: argsUsage(cobra.MaximumNArgs(1)),

@@ -46,7 +46,10 @@ best layout for each splice count from the fewest feasible up to two more, and t
 alternatives.
 
 Several job files, or a folder, are optimised in parallel and summarised in one table.
-Exit status 3 means the run worked but no layout satisfies the limits.`,
+Exit status 3 means the run worked but no layout satisfies the limits: the result is still
+printed in full (every candidate with its reason, no layouts) with a diagnosis of why nothing
+fits — each stretch where no splice passes with its closest attempt and the forces there, and
+the limit that cannot be met with the figure that breaks it.`,
 		Args: argsUsage(cobra.MinimumNArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.Paths = args
@@ -135,14 +138,13 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 	if err != nil {
 		return err
 	}
-	res, err := optimise.Run(setup, set)
-	if err != nil {
-		var inf *optimise.InfeasibleError
-		if errors.As(err, &inf) {
-			return infeasibleError(err)
-		}
-		return err
+	res, runErr := optimise.Run(setup, set)
+	var inf *optimise.InfeasibleError
+	if runErr != nil && !errors.As(runErr, &inf) {
+		return runErr
 	}
+	// a run without a layout within the limits is still a whole document: the candidates
+	// with their reasons and the diagnosis, printed before the exit-3 error
 	var buf bytes.Buffer
 	if err := encode.WriteOptimise(&buf, opts.Format, res); err != nil {
 		return err
@@ -152,8 +154,13 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 			return err
 		}
 	}
-	_, err = w.Write(buf.Bytes())
-	return err
+	if _, err := w.Write(buf.Bytes()); err != nil {
+		return err
+	}
+	if inf != nil {
+		return infeasibleError(runErr)
+	}
+	return nil
 }
 
 // --- batch -----------------------------------------------------------------------------

@@ -135,7 +135,9 @@ func TestOptimiseInfeasibleExitsWith3(t *testing.T) {
 	assert.Equal(t, exitInfeasible, exitCode(err))
 	assert.Contains(t, err.Error(), "limits.max_piece_mass")
 	assert.Contains(t, err.Error(), "heavy.yaml:32:")
-	assert.Empty(t, out, "nothing is printed when no layout satisfies the limits")
+	// the result is still printed, with the limit and the figure that breaks it
+	assert.Contains(t, out, "WHY NO LAYOUT FITS\n- limits.max_piece_mass: no layout keeps every piece within max_piece_mass 150 kg")
+	assert.NotContains(t, out, "RECOMMENDATION")
 }
 
 func TestOptimiseUsageErrors(t *testing.T) {

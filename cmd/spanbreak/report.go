@@ -36,7 +36,13 @@ its drawing, and the caution), every chart and drawing as PNG and SVG, scan.csv 
 position), layouts.csv and result.json.
 
 The folder is written complete or not at all: the files go into a temporary folder next to DIR,
-which is renamed to DIR at the end. An existing DIR is replaced only with --force.`,
+which is renamed to DIR at the end. An existing DIR is replaced only with --force.
+
+When no layout satisfies the limits the folder is still written, and the exit status is 3:
+report.pdf has everything up to the candidate positions and then "Why no layout fits" (each
+stretch where no splice passes with its closest attempt and the forces there, and the limit
+that cannot be met) in place of the layouts and calculation sheets; result.json is the whole
+optimise document with its diagnosis; scan.csv as always; layouts.csv has its header only.`,
 		Args: argsUsage(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.JobFile = args[0]
@@ -75,14 +81,13 @@ func runReport(opts reportOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	res, err := optimise.Run(setup, optimise.Settings{Step: opts.Step * 1e3})
-	if err != nil {
-		var inf *optimise.InfeasibleError
-		if errors.As(err, &inf) {
-			return infeasibleError(err)
-		}
-		return err
+	res, runErr := optimise.Run(setup, optimise.Settings{Step: opts.Step * 1e3})
+	var inf *optimise.InfeasibleError
+	if runErr != nil && !errors.As(runErr, &inf) {
+		return runErr
 	}
+	// without a layout the report still says everything up to the candidates, then why no
+	// layout fits; the exit status stays 3
 	date := ios.now().Format("2006-01-02")
 	files, err := reportFiles(setup, res, date)
 	if err != nil {
@@ -91,15 +96,25 @@ func runReport(opts reportOptions, ios streams) error {
 	if err := writeFolder(opts.Out, files, opts.Force); err != nil {
 		return err
 	}
-	rec := res.Recommended()
 	fmt.Fprintf(stdout, "spanbreak %s: report on %s\n", version(), setup.File)
-	fmt.Fprintf(stdout, "Recommended: %d splice(s)", len(rec.Splices))
-	for i, x := range rec.Splices {
-		fmt.Fprintf(stdout, "%s S%d at %.3f m", map[bool]string{true: ":", false: ","}[i == 0], i+1, x*encode.ToM)
+	if inf != nil {
+		fmt.Fprintf(stdout, "No layout fits the limits:\n")
+		for _, l := range res.Diagnosis.Lines() {
+			fmt.Fprintf(stdout, "- %s\n", l)
+		}
+	} else {
+		rec := res.Recommended()
+		fmt.Fprintf(stdout, "Recommended: %d splice(s)", len(rec.Splices))
+		for i, x := range rec.Splices {
+			fmt.Fprintf(stdout, "%s S%d at %.3f m", map[bool]string{true: ":", false: ","}[i == 0], i+1, x*encode.ToM)
+		}
+		fmt.Fprintf(stdout, "; total cost %.0f\n", rec.Cost.Total)
 	}
-	fmt.Fprintf(stdout, "; total cost %.0f\n", rec.Cost.Total)
 	fmt.Fprintf(stdout, "Wrote %d files to %s\n", len(files), opts.Out)
 	fmt.Fprintf(stdout, "\n%s\n", caution)
+	if inf != nil {
+		return infeasibleError(runErr)
+	}
 	return nil
 }
 

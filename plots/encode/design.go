@@ -40,7 +40,24 @@ type DesignDoc struct {
 	Beam        sectionDoc  `json:"beam"`
 	Member      *MemberDoc  `json:"member"`
 	Notes       []string    `json:"notes"`
+	KeepOut     *KeepOutDoc `json:"keep_out"`
 	Caution     string      `json:"caution"`
+}
+
+// KeepOutDoc is the keep-out zone a designed position lies in (from and to in m).
+type KeepOutDoc struct {
+	Reason string `json:"reason"`
+	Key    string `json:"key"`
+	From   Num    `json:"from"`
+	To     Num    `json:"to"`
+}
+
+// keepOutDoc is the shape of a zone; nil for none.
+func keepOutDoc(z *optimise.Zone) *KeepOutDoc {
+	if z == nil {
+		return nil
+	}
+	return &KeepOutDoc{Reason: z.Reason, Key: z.Key, From: Num(z.From * ToM), To: Num(z.To * ToM)}
 }
 
 // ForcesDoc are a splice's design forces (kNm, kN; V is the largest |V|).
@@ -224,7 +241,7 @@ func Design(dc *optimise.DesignOutcome) DesignDoc {
 			PlateMassKg: Num(r.Quantities.PlateMass), FayingM2: Num(r.Quantities.FayingArea)},
 		Cost: spliceCost{Bolts: Num(r.Cost.Bolts), Holes: Num(r.Cost.Holes), Plates: Num(r.Cost.Plates),
 			Faying: Num(r.Cost.Faying), Splice: Num(r.Cost.Splice), Total: Num(r.Cost.Total)},
-		Notes: append([]string{}, r.Notes...), Caution: Caution,
+		Notes: append([]string{}, r.Notes...), KeepOut: keepOutDoc(dc.KeepOut), Caution: Caution,
 	}
 	if dc.Position != nil {
 		out.Position = NumPtr(*dc.Position)
@@ -256,6 +273,14 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 		s.H, s.B, s.Tw, s.Tf, s.R, s.A/1e2, s.Iy/1e4)
 	fmt.Fprintf(w, "Plates:    %s\n", dc.PlateGrade)
 	fmt.Fprintf(w, "Units:     forces kN, moments kNm (sagging +), axial force tension +, sizes mm\n\n")
+	if z := dc.KeepOut; z != nil {
+		where := "the position"
+		if dc.Position != nil {
+			where = fmt.Sprintf("x = %.3f m", Clean(*dc.Position))
+		}
+		fmt.Fprintf(w, "NOTE: %s is inside a keep-out zone, %.3f to %.3f m: %s (%s); optimise puts no splice here\n\n",
+			where, Clean(z.From*ToM), Clean(z.To*ToM), z.Reason, z.Key)
+	}
 
 	fmt.Fprintf(w, "Design forces\n")
 	fmt.Fprintf(w, "  ULS  M_max %+.1f, M_min %+.1f kNm; |V| %.1f kN; N_max %+.1f, N_min %+.1f kN\n",

@@ -42,6 +42,7 @@ func optimiseUnits() map[string]string {
 	return map[string]string{
 		"x": "m", "length": "m", "from": "m", "to": "m", "step": "m", "splices": "m", "mass_kg": "kg",
 		"plate_mass_kg": "kg", "splice_mass_kg": "kg", "cost": "currency of the job's rates", "utilisation": "ratio (demand/resistance)",
+		"at": "m", "M_Ed": "kNm", "V_Ed": "kN", "Mc_Rd": "kNm", "Vc_Rd": "kN",
 	}
 }
 
@@ -103,8 +104,60 @@ type OptimiseDoc struct {
 	Rank       string            `json:"rank"`
 	Candidates []CandidateDoc    `json:"candidates"`
 	Layouts    []LayoutDoc       `json:"layouts"`
+	Diagnosis  []FindingDoc      `json:"diagnosis"`
 	Notes      []string          `json:"notes"`
 	Caution    string            `json:"caution"`
+}
+
+// FindingDoc is one line of the diagnosis of a run where no layout fits (exit status 3).
+// Units: from, to and at m; M_Ed and Mc_Rd kNm; V_Ed and Vc_Rd kN. A value a kind does not
+// have is null; Mc_Rd and Vc_Rd are null unless the design force exceeds them.
+type FindingDoc struct {
+	Kind        string  `json:"kind"` // "stretch", "keep_out" or "limit"
+	From        *Num    `json:"from"`
+	To          *Num    `json:"to"`
+	Positions   *int    `json:"positions"`
+	Key         string  `json:"key"`
+	Check       *string `json:"check"`
+	Utilisation *Num    `json:"utilisation"`
+	At          *Num    `json:"at"`
+	Splice      *string `json:"splice"`
+	MEd         *Num    `json:"M_Ed"`
+	VEd         *Num    `json:"V_Ed"`
+	McRd        *Num    `json:"Mc_Rd"`
+	VcRd        *Num    `json:"Vc_Rd"`
+	Message     string  `json:"message"`
+}
+
+// Diagnosis is the shape of a diagnosis; a run whose layout fits has an empty one.
+func Diagnosis(d optimise.Diagnosis) []FindingDoc {
+	out := make([]FindingDoc, 0, len(d))
+	for _, f := range d {
+		j := FindingDoc{Kind: string(f.Kind), Key: f.Key, Message: f.Message}
+		if f.To > f.From {
+			j.From, j.To = NumPtr(f.From*ToM), NumPtr(f.To*ToM)
+		}
+		if f.Kind != optimise.FindingLimit {
+			j.From, j.To, j.Positions = NumPtr(f.From*ToM), NumPtr(f.To*ToM), ptr(f.Positions)
+		}
+		if f.Kind == optimise.FindingStretch {
+			j.Utilisation, j.At, j.MEd, j.VEd = NumPtr(f.Utilisation), NumPtr(f.At*ToM), NumPtr(f.MEd*ToKNm), NumPtr(f.VEd*ToKN)
+			if f.Check != "" {
+				j.Check = ptr(f.Check)
+			}
+			if f.Attempt != "" {
+				j.Splice = ptr(f.Attempt)
+			}
+			if f.McRd > 0 {
+				j.McRd = NumPtr(f.McRd * ToKNm)
+			}
+			if f.VcRd > 0 {
+				j.VcRd = NumPtr(f.VcRd * ToKN)
+			}
+		}
+		out = append(out, j)
+	}
+	return out
 }
 
 func ptr[T any](v T) *T { return &v }
@@ -143,7 +196,7 @@ func layoutDoc(l optimise.Layout, kind string, recommended bool) LayoutDoc {
 }
 
 func layoutDocs(r *optimise.Outcome) []LayoutDoc {
-	var out []LayoutDoc
+	out := []LayoutDoc{}
 	for i, l := range r.Layouts.ByCount {
 		out = append(out, layoutDoc(l, "best", i == r.Layouts.Recommended))
 	}
@@ -157,7 +210,8 @@ func layoutDocs(r *optimise.Outcome) []LayoutDoc {
 func Optimise(r *optimise.Outcome) OptimiseDoc {
 	j := OptimiseDoc{Input: r.Setup.File, Version: Version(), Title: r.Setup.Title, Units: optimiseUnits(), Section: r.Setup.Section.Name,
 		Length: Num(r.Setup.Model.Length * ToM), Step: Num(r.Step * ToM), Rank: string(r.Rank),
-		Candidates: make([]CandidateDoc, 0, len(r.Candidates)), Layouts: layoutDocs(r), Notes: notes(r), Caution: Caution}
+		Candidates: make([]CandidateDoc, 0, len(r.Candidates)), Layouts: layoutDocs(r), Diagnosis: Diagnosis(r.Diagnosis),
+		Notes: notes(r), Caution: Caution}
 	for _, c := range r.Candidates {
 		j.Candidates = append(j.Candidates, candidateDoc(c))
 	}
@@ -177,10 +231,11 @@ func notes(r *optimise.Outcome) []string {
 }
 
 type batchJobDoc struct {
-	File  string     `json:"file"`
-	Title string     `json:"title"`
-	Best  *LayoutDoc `json:"best"`
-	Error *string    `json:"error"`
+	File      string       `json:"file"`
+	Title     string       `json:"title"`
+	Best      *LayoutDoc   `json:"best"`
+	Error     *string      `json:"error"`
+	Diagnosis []FindingDoc `json:"diagnosis"` // why no layout fits; empty otherwise
 }
 
 // BatchDoc is the JSON document of a batch: the best layout of each job, or its error.
@@ -195,9 +250,12 @@ type BatchDoc struct {
 func Batch(outcomes []optimise.BatchOutcome) BatchDoc {
 	jobs := make([]batchJobDoc, 0, len(outcomes))
 	for _, o := range outcomes {
-		j := batchJobDoc{File: o.File, Title: o.Title}
+		j := batchJobDoc{File: o.File, Title: o.Title, Diagnosis: []FindingDoc{}}
 		if o.Err != nil {
 			j.Error = ptr(o.Err.Error())
+			if o.Outcome != nil {
+				j.Diagnosis = Diagnosis(o.Outcome.Diagnosis)
+			}
 		} else {
 			j.Best = ptr(layoutDoc(o.Outcome.Recommended(), "best", true))
 		}
@@ -342,13 +400,26 @@ func WriteOptimiseText(w io.Writer, r *optimise.Outcome) {
 	for _, s := range r.Member.Warnings() {
 		fmt.Fprintf(w, "WARNING: %s\n\n", s)
 	}
-	writeRecommendation(w, r)
-	writeLayoutTable(w, r)
+	if r.Infeasible != nil {
+		WriteDiagnosisText(w, r.Diagnosis)
+	} else {
+		writeRecommendation(w, r)
+		writeLayoutTable(w, r)
+	}
 	writeCandidateSummary(w, r)
 	for _, n := range notes(r) {
 		fmt.Fprintf(w, "Note: %s\n", n)
 	}
 	fmt.Fprintf(w, "\n%s\n", Caution)
+}
+
+// WriteDiagnosisText writes the section that says why no layout fits, one finding a line.
+func WriteDiagnosisText(w io.Writer, d optimise.Diagnosis) {
+	fmt.Fprintln(w, "WHY NO LAYOUT FITS")
+	for _, l := range d.Lines() {
+		fmt.Fprintf(w, "- %s\n", l)
+	}
+	fmt.Fprintln(w)
 }
 
 func vehicleText(l optimise.Layout) string {
@@ -496,7 +567,11 @@ func WriteBatchText(w io.Writer, outcomes []optimise.BatchOutcome) {
 				status = "no layout within the limits (below)"
 			}
 			fmt.Fprintf(tw, "%s\t%s\t\t\t\t\t\t%s\n", o.File, o.Title, status)
-			errs = append(errs, o.Err.Error())
+			msg := o.Err.Error()
+			if o.Outcome != nil && len(o.Outcome.Diagnosis) > 0 {
+				msg += "\n  why: " + o.Outcome.Diagnosis[0].Message
+			}
+			errs = append(errs, msg)
 			continue
 		}
 		l := o.Outcome.Recommended()
