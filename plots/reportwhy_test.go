@@ -43,8 +43,8 @@ func TestReportWithoutALayoutSaysWhy(t *testing.T) {
 			got = append(got, h.Title)
 		}
 	}
-	assert.Equal(t, []string{"Job summary", "Beam and loads", "Envelopes", "Limits", "Candidate positions", "Why no layout fits",
-		"Caution and references"}, got)
+	assert.Equal(t, []string{"Job summary", "Beam and loads", "Envelopes", "The beam itself", "Limits", "Candidate positions",
+		"Why no layout fits", "Caution and references"}, got)
 	assert.Empty(t, rep.Sheets)
 	names := map[string]bool{}
 	for _, f := range rep.Figures {
