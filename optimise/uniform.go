@@ -58,6 +58,7 @@ type UniformStats struct {
 	Searched    int // splices whose layouts were searched
 	Parts       int // flange and web parts whose passing positions were found
 	Evaluations int // part checks at one set of forces
+	Settled     int // counts settled by trying the strongest parts after a long listing without a layout
 }
 
 // Compare orders uniform layouts: cheaper first, then fewer splices, then the design first in
@@ -155,10 +156,12 @@ type uniformSearch struct {
 	minCost  int64            // the cheapest splice anywhere [micro-units]
 	n        int
 	global   *search // every position, splices without cost or mass
-	widest   int     // the tier admitting every layout of massless splices that any tier does
+	widest   int     // the tier admitting every layout of massless splices that any tier does, or −1
 
-	flanges, webs [][]*partInfo // per bolt and part, nil until needed
-	computed      [2][][]int    // per kind (0 flange, 1 web) and bolt: parts whose sets are known
+	flanges, webs [][]*partInfo    // per bolt and part, nil until needed
+	computed      [2][][]int       // per kind (0 flange, 1 web) and bolt: parts whose sets are known
+	witness       map[int][]bitset // per count: positions of layouts known to satisfy the limits
+	proofAfter    int              // designs listed without a layout before strongest settles the count
 	designs       map[splice.Choice]*designInfo
 	kept          []*designInfo // designs not dominated, for the dominance test
 	stats         UniformStats
@@ -192,7 +195,7 @@ func newUniformSearch(o *Outcome) (*uniformSearch, error) {
 		return nil, err
 	}
 	u := &uniformSearch{cat: cat, designer: s.NewSpliceDesigner(o.Exhaustive), prob: s.Splice, p: o.layoutProblem(),
-		designs: map[splice.Choice]*designInfo{}, minCost: math.MaxInt64}
+		designs: map[splice.Choice]*designInfo{}, witness: map[int][]bitset{}, minCost: math.MaxInt64}
 	u.p.Alternatives = 0
 	u.n = len(u.p.Sites)
 	u.stats.Designs = cat.Len()
@@ -237,11 +240,17 @@ func newUniformSearch(o *Outcome) (*uniformSearch, error) {
 	slices.SortStableFunc(u.byBest, func(a, b int) int { return u.best[a].Compare(u.best[b]) })
 	u.global = u.searchOver(allOf(u.n), 0, 0, nil)
 	u.widest = widestTier(u.global)
+	for _, l := range append(slices.Clone(o.Layouts.ByCount), o.Layouts.Alternatives...) {
+		u.addWitness(l.Sites)
+	}
 	u.flanges, u.webs = make([][]*partInfo, cat.Bolts()), make([][]*partInfo, cat.Bolts())
 	for b := range u.flanges {
 		u.flanges[b], u.webs[b] = make([]*partInfo, cat.Flanges(b)), make([]*partInfo, cat.Webs(b))
 	}
 	u.computed[0], u.computed[1] = make([][]int, cat.Bolts()), make([][]int, cat.Bolts())
+	for b := range u.flanges {
+		u.proofAfter += len(u.flanges[b]) + len(u.webs[b])
+	}
 	return u, nil
 }
 
@@ -275,26 +284,16 @@ func admitsOn(s *search, t *tier, k int) bool {
 	return (k == 0 || layers != nil) && s.final(layers, k, t).ok()
 }
 
-// widestTier is the tier that takes the longest pieces when splices weigh nothing: a piece of
-// a massless-splice layout passes a tier's limits exactly when its length is within a
-// threshold of the tier's (and the shortest piece allowed is every tier's), so that tier
-// admits every layout that any tier does.
+// widestTier returns the tier whose length and mass limits are each at least every other
+// tier's, −1 when there is none: with massless splices the pieces it admits include those of
+// every tier, so it alone decides whether a set of positions admits k splices.
 func widestTier(s *search) int {
-	p := s.p
-	reach := func(t *tier) float64 {
-		l := t.maxLen + lengthTol
-		if p.MassPerLength > 0 {
-			l = math.Min(l, (t.maxMass+massTol-p.Limits.Rigging)/p.MassPerLength)
-		}
-		return l
-	}
-	best := 0
 	for i, t := range s.tiers {
-		if reach(t) > reach(s.tiers[best]) {
-			best = i
+		if !slices.ContainsFunc(s.tiers, func(o *tier) bool { return o.maxLen > t.maxLen || o.maxMass > t.maxMass }) {
+			return i
 		}
 	}
-	return best
+	return -1
 }
 
 // admits reports whether the positions of a set hold a k-splice layout with massless splices
@@ -306,8 +305,26 @@ func (u *uniformSearch) admits(set bitset, k int) bool {
 	case c == u.n:
 		return admitsCount(u.global, k)
 	}
+	for _, w := range u.witness[k] {
+		if w.subsetOf(set) {
+			return true
+		}
+	}
 	s := u.searchOver(set, 0, 0, nil)
+	if u.widest < 0 {
+		return admitsCount(s, k)
+	}
 	return admitsOn(s, s.tiers[u.widest], k)
+}
+
+// witness keeps the positions of a k-splice layout found, which proves that any set holding
+// them admits k splices.
+func (u *uniformSearch) addWitness(sites []int) {
+	w := newBitset(u.n)
+	for _, i := range sites {
+		w.add(i)
+	}
+	u.witness[len(sites)] = append(u.witness[len(sites)], w)
 }
 
 // lowest returns the least design that may hold a k-splice layout: the least of the
@@ -440,7 +457,16 @@ func (u *uniformSearch) bestFor(k int, cutoff *UniformLayout) (UniformLayout, bo
 	}
 	found := false
 	it := u.cat.Designs(&from)
-	for {
+	for listed := 0; ; listed++ {
+		if !found && listed == u.proofAfter {
+			// no layout yet: settle whether any design admits k splices at all
+			var any bool
+			inc, any = u.strongest(k, rule, inc)
+			if !any {
+				break
+			}
+			found = inc != nil && (cutoff == nil || inc.Compare(*cutoff) != 0)
+		}
 		ch, ord, ok := it.Next()
 		if !ok {
 			break
@@ -478,6 +504,67 @@ func (u *uniformSearch) bestFor(k int, cutoff *UniformLayout) (UniformLayout, bo
 	return *inc, true
 }
 
+// strongest settles a count after a long listing without a layout: it finds every part's
+// feasible positions, keeps for each bolt the parts whose positions no other part's include,
+// and tries each pair of them. When no pair's positions admit k massless splices, no design
+// has a k-splice layout (any design's positions lie within such a pair's), and it returns
+// false; otherwise it searches the layouts of those pairs and returns the best that comes
+// before inc (inc itself when none does).
+func (u *uniformSearch) strongest(k, rule int, inc *UniformLayout) (*UniformLayout, bool) {
+	u.stats.Settled++
+	any := false
+	for b := 0; b < u.cat.Bolts(); b++ {
+		flanges, webs := u.maximal(0, b), u.maximal(1, b)
+		for _, f := range flanges {
+			for _, w := range webs {
+				fi, wi := u.flanges[b][f], u.webs[b][w]
+				if !u.admits(fi.set.and(wi.set), k) {
+					continue
+				}
+				any = true
+				ch := splice.Choice{Bolt: b, Flange: f, Web: w}
+				d := u.design(ch, u.cat.Order(ch), (fi.plate+wi.plate)+(fi.boltsKg+wi.boltsKg), fi, wi, rule)
+				if d == nil {
+					continue // an earlier design does as well, and is listed or bounded before it
+				}
+				if l, ok := u.layout(d, k, inc); ok {
+					inc = &l
+				}
+			}
+		}
+	}
+	return inc, any
+}
+
+// maximal returns the parts of one kind of a bolt whose feasible positions no other part's
+// include (one of each set), finding every part's positions.
+func (u *uniformSearch) maximal(kind, bolt int) []int {
+	n := u.cat.Flanges(bolt)
+	if kind == 1 {
+		n = u.cat.Webs(bolt)
+	}
+	parts := make([]*partInfo, n)
+	for i := range parts {
+		pi := u.part(kind, bolt, i)
+		if pi.set == nil {
+			pi.set = u.passSet(kind, bolt, i)
+			u.computed[kind][bolt] = append(u.computed[kind][bolt], i)
+		}
+		parts[i] = pi
+	}
+	slices.SortStableFunc(parts, func(a, b *partInfo) int { return cmp.Compare(b.set.count(), a.set.count()) })
+	var out []int
+	var kept []bitset
+	for _, pi := range parts {
+		if slices.ContainsFunc(kept, pi.set.subsetOf) {
+			continue
+		}
+		kept = append(kept, pi.set)
+		out = append(out, pi.index)
+	}
+	return out
+}
+
 // part returns a flange (kind 0) or web (kind 1) part of a bolt with its masses; its set of
 // positions is found by useful.
 func (u *uniformSearch) part(kind, bolt, i int) *partInfo {
@@ -511,14 +598,6 @@ func (u *uniformSearch) useful(kind, bolt int, pi *partInfo, k, rule int) bool {
 		pi.set = u.passSet(kind, bolt, pi.index)
 		u.computed[kind][bolt] = append(u.computed[kind][bolt], pi.index)
 	}
-	ok, known := pi.admits[k]
-	if !known {
-		ok = u.admits(pi.set, k)
-		pi.admits[k] = ok
-	}
-	if !ok {
-		return false
-	}
 	if pi.dominated[rule] == 0 {
 		pi.dominated[rule] = 2
 		for _, j := range u.computed[kind][bolt] {
@@ -528,7 +607,15 @@ func (u *uniformSearch) useful(kind, bolt int, pi *partInfo, k, rule int) bool {
 			}
 		}
 	}
-	return pi.dominated[rule] == 2
+	if pi.dominated[rule] == 1 {
+		return false
+	}
+	ok, known := pi.admits[k]
+	if !known {
+		ok = u.admits(pi.set, k)
+		pi.admits[k] = ok
+	}
+	return ok
 }
 
 // partDominates reports whether part j of a bolt comes first, passes wherever part pi does
@@ -577,32 +664,28 @@ func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
 	po := &u.posets[kind]
 	nl := len(u.loads)
 	pass, known := newBitset(nl), newBitset(nl)
-	unknown := slices.Clone(po.order) // in order; settled ones are removed now and then
-	left, stale := nl, 0
-	for idle := 0; left > 0; {
+	unknown := slices.Clone(po.order) // the unsettled loadings, in order
+	for idle := 0; len(unknown) > 0; {
 		if idle >= settleIdle {
 			for _, l := range unknown {
-				if !known.has(l) && passes(&u.loads[l]) {
+				if passes(&u.loads[l]) {
 					pass.add(l)
 				}
 			}
 			break
 		}
-		l := middleUnknown(unknown, known)
+		mid := len(unknown) / 2
+		l := unknown[mid]
 		var settled int
 		if passes(&u.loads[l]) {
 			settled = known.union(po.below(u, kind, l), pass)
 		} else {
 			settled = known.union(po.above(u, kind, l), nil)
 		}
-		left, stale = left-settled, stale+settled
-		if 2*stale > len(unknown) {
-			unknown, stale = slices.DeleteFunc(unknown, known.has), 0
-		}
 		if settled > 1 {
-			idle = 0
+			unknown, idle = slices.DeleteFunc(unknown, known.has), 0
 		} else {
-			idle++
+			unknown, idle = slices.Delete(unknown, mid, mid+1), idle+1
 		}
 	}
 	for p, l := range u.loadOf {
@@ -611,19 +694,6 @@ func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
 		}
 	}
 	return set
-}
-
-// middleUnknown returns the unsettled loading nearest the middle of the list.
-func middleUnknown(list []int, known bitset) int {
-	mid := len(list) / 2
-	for d := 0; ; d++ {
-		if i := mid + d; i < len(list) && !known.has(list[i]) {
-			return list[i]
-		}
-		if i := mid - d - 1; i >= 0 && !known.has(list[i]) {
-			return list[i]
-		}
-	}
 }
 
 // settleIdle is the number of checks in a row that settle no other loading after which
@@ -737,6 +807,7 @@ func (u *uniformSearch) layout(d *designInfo, k int, inc *UniformLayout) (Unifor
 	if !ok {
 		return UniformLayout{}, false
 	}
+	u.addWitness(l.Sites)
 	if inc != nil && u.beatenTotal(l.key.total, k, d.order, inc) {
 		return UniformLayout{}, false
 	}

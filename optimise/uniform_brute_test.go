@@ -33,8 +33,14 @@ var tinySpaces = []splice.DesignSpace{
 		WebColumns: []int{1, 2}, WebRows: []int{3}},
 }
 
-// uniformJob is a two-span job (invented) whose loads, limits, vehicles and scan step vary.
-func uniformJob(r *rand.Rand) (string, float64) {
+// mediumSpace has 648 whole splices, for jobs with fewer positions.
+var mediumSpace = splice.DesignSpace{Sizes: []string{"M20", "M24"}, Classes: []string{"10.9"}, Thicknesses: []float64{10, 15, 20},
+	Arrangements: []splice.Arrangement{splice.OuterOnly}, FlangeColumns: []int{2, 4}, FlangeRows: []int{2, 3, 4},
+	WebColumns: []int{1, 2}, WebRows: []int{2, 3, 4}}
+
+// uniformJob is a two-span job (invented) whose loads, limits, vehicles and scan step vary;
+// the step divides the beam into about divisions parts.
+func uniformJob(r *rand.Rand, divisions int) (string, float64) {
 	span1, span2 := 7+4*r.Float64(), 8+5*r.Float64()
 	length := span1 + span2 + 1.2
 	g, q := 2+16*r.Float64(), 1+12*r.Float64()
@@ -51,7 +57,7 @@ func uniformJob(r *rand.Rand) (string, float64) {
 	if vehicles != "" {
 		vehicles = "vehicles:" + vehicles
 	}
-	step := length / float64(14+r.IntN(5))
+	step := length / float64(divisions+r.IntN(5))
 	return fmt.Sprintf(`title: uniform brute-force job (invented)
 beam:
   section: IPE 400
@@ -190,28 +196,32 @@ func bruteUniformLess(a bruteLayout, da bruteDesign, b bruteLayout, db bruteDesi
 }
 
 // TestUniformEqualsBruteForce: the uniform search (part sets, bounds, dominance, the layout
-// search per design) equals trying every splice of a tiny design space at every position and
-// every subset of its feasible positions, on random two-span jobs with up to 14 positions
-// (kind: property, exhaustive reference).
+// search per design) equals trying every splice of a small design space at every position
+// and every subset of its feasible positions, on random two-span jobs: tiny spaces with up to
+// 14 positions, a 648-splice space with up to 9 (kind: property, exhaustive reference).
 func TestUniformEqualsBruteForce(t *testing.T) {
 	r := rand.New(rand.NewPCG(8, 2027))
-	trials := 36
+	tiny, medium := 240, 10
 	if testing.Short() {
-		trials = 8
+		tiny, medium = 30, 2
 	}
-	compared, differs := 0, 0
-	for trial := 0; trial < trials; trial++ {
-		src, step := uniformJob(r)
+	var seen struct{ compared, dearer, listed, dominated, searched, settled int }
+	for trial := 0; trial < tiny+medium; trial++ {
+		space, divisions, most := tinySpaces[trial%len(tinySpaces)], 14, 14
+		if trial >= tiny {
+			space, divisions, most = mediumSpace, 8, 9
+		}
+		src, step := uniformJob(r, divisions)
 		s, err := Prepare("uniform.yaml", []byte(src))
 		require.NoError(t, err, src)
-		s.Splice.Sizing.Space = tinySpaces[trial%len(tinySpaces)]
+		s.Splice.Sizing.Space = space
 		o, err := Run(s, Settings{Step: step * 1000})
 		name := fmt.Sprintf("trial %d", trial)
 		if err != nil {
 			var ie *InfeasibleError
 			require.ErrorAs(t, err, &ie, name)
 		}
-		require.LessOrEqual(t, len(o.layoutProblem().Sites), 14, name)
+		require.LessOrEqual(t, len(o.layoutProblem().Sites), most, name)
 		want, designs := bruteUniform(t, o)
 		got, err := o.Uniform()
 		require.NoError(t, err, name)
@@ -224,22 +234,34 @@ func TestUniformEqualsBruteForce(t *testing.T) {
 			require.Equal(t, w.trips, g.Trips, what)
 			require.Equal(t, w.vehicle, g.Vehicle, what)
 			require.Equal(t, w.tie, g.Tie, what)
+			require.Len(t, g.Pieces, len(w.pieces), what)
+			for j := range w.pieces {
+				require.InDelta(t, w.pieces[j].Mass, g.Pieces[j].Mass, 1e-9, what)
+			}
 			if len(w.sites) > 0 {
 				require.Equal(t, designs[i], g.Choice, what)
 				require.Len(t, g.Designs, len(w.sites), what)
 			}
-			compared++
+			seen.compared++
 			if mixed := sameCount(o.Layouts.ByCount, len(w.sites)); mixed != nil && micro(mixed.Cost.Total) != w.total {
-				differs++
+				seen.dearer++
 			}
 		}
 		if len(want) > 0 {
 			require.GreaterOrEqual(t, got.Recommended, 0, name)
+		} else {
+			require.Equal(t, -1, got.Recommended, name)
 		}
+		seen.listed = max(seen.listed, got.Stats.Listed)
+		seen.dominated += got.Stats.Dominated
+		seen.searched += got.Stats.Searched
+		seen.settled += got.Stats.Settled
 	}
-	require.Greater(t, compared, trials, "most jobs have uniform layouts")
-	require.Greater(t, differs, 0, "some uniform layouts cost more than the mixed ones")
-	t.Logf("%d layouts compared, %d dearer than the mixed layout of their count", compared, differs)
+	t.Logf("%+v", seen)
+	require.Greater(t, seen.compared, tiny, "most jobs have uniform layouts")
+	require.Greater(t, seen.dearer, 0, "some uniform layouts cost more than the mixed ones")
+	require.Greater(t, seen.dominated, 0, "dominance was exercised")
+	require.Greater(t, seen.listed, 20, "some searches listed many designs")
 }
 
 func sameCount(ls []Layout, k int) *Layout {
@@ -249,4 +271,39 @@ func sameCount(ls []Layout, k int) *Layout {
 		}
 	}
 	return nil
+}
+
+// TestUniformSettlingFirst: settling each count by the strongest parts before listing any
+// design (the step taken after a long listing without a layout) gives the same layouts as
+// listing alone, on the brute-force test's jobs (kind: property, reference: the listing,
+// itself checked against brute force).
+func TestUniformSettlingFirst(t *testing.T) {
+	r := rand.New(rand.NewPCG(8, 2027))
+	trials := 60
+	if testing.Short() {
+		trials = 15
+	}
+	settled := 0
+	for trial := 0; trial < trials; trial++ {
+		src, step := uniformJob(r, 14)
+		s, err := Prepare("uniform.yaml", []byte(src))
+		require.NoError(t, err)
+		s.Splice.Sizing.Space = tinySpaces[trial%len(tinySpaces)]
+		o, _ := Run(s, Settings{Step: step * 1000})
+		want, err := o.Uniform()
+		require.NoError(t, err)
+		u, err := newUniformSearch(o)
+		require.NoError(t, err)
+		u.proofAfter = 0
+		got, rec := u.byCount()
+		require.Equal(t, want.Recommended, rec)
+		require.Len(t, got, len(want.ByCount))
+		for i := range got {
+			require.Zero(t, want.ByCount[i].Compare(got[i]), "trial %d count %d", trial, len(got[i].Sites))
+			require.Equal(t, want.ByCount[i].Sites, got[i].Sites)
+			require.Equal(t, want.ByCount[i].Choice, got[i].Choice)
+		}
+		settled += u.stats.Settled
+	}
+	require.Greater(t, settled, trials/2)
 }

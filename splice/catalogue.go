@@ -36,10 +36,12 @@ type Catalogue struct {
 type catalogueBolt struct {
 	flanges []flangeLayout
 	webs    []webLayout
-	fsc     []score // per flange part
-	wsc     []score // per web part
-	common  score   // the fixed cost per splice
-	byScore []int   // web indices in the order (score, index)
+	fgeo    []FlangeSplice // per flange part, in splice-file terms
+	wgeo    []WebSplice    // per web part
+	fsc     []score        // per flange part
+	wsc     []score        // per web part
+	common  score          // the fixed cost per splice
+	byScore []int          // web indices in the order (score, index)
 }
 
 // Choice names one whole splice of a catalogue: the bolt index, and the flange and web part
@@ -98,6 +100,12 @@ func NewCatalogue(p Problem) (*Catalogue, error) {
 			cb.webs = append(cb.webs, *wl)
 			cb.wsc = append(cb.wsc, u.score(webQty(wl, s.e.gap)))
 		})
+		for i := range cb.flanges {
+			cb.fgeo = append(cb.fgeo, geometryOf(b, s.e.cat, s.e.fc, s.e.holes, s.e.gap, &cb.flanges[i], &webLayout{}).Flange)
+		}
+		for i := range cb.webs {
+			cb.wgeo = append(cb.wgeo, geometryOf(b, s.e.cat, s.e.fc, s.e.holes, s.e.gap, &flangeLayout{}, &cb.webs[i]).Web)
+		}
 		cb.byScore = make([]int, len(cb.webs))
 		for i := range cb.byScore {
 			cb.byScore[i] = i
@@ -139,6 +147,12 @@ func (c *Catalogue) Order(ch Choice) Order {
 	return Order{sc: cb.common.add(cb.fsc[ch.Flange]).add(cb.wsc[ch.Web]), key: ch}
 }
 
+// Cost returns a whole splice's cost [currency], equal to Entry(ch).Cost.Total.
+func (c *Catalogue) Cost(ch Choice) float64 {
+	cb := &c.bolts[ch.Bolt]
+	return float64(cb.common.cost+cb.fsc[ch.Flange].cost+cb.wsc[ch.Web].cost) / micro
+}
+
 // FlangeBefore reports whether flange part f comes before flange part g of the same bolt in
 // the sizing's order: with any one web part, the splice with f is ranked before the one with g.
 func (c *Catalogue) FlangeBefore(bolt, f, g int) bool {
@@ -156,18 +170,14 @@ func (c *Catalogue) WebBefore(bolt, w, v int) bool {
 // FlangePart returns a flange part: the flange splice, its bolts (both flanges, both sides)
 // and its cover plates' mass [kg].
 func (c *Catalogue) FlangePart(bolt, f int) (FlangeSplice, int, float64) {
-	fl := &c.bolts[bolt].flanges[f]
-	q := flangeQty(fl, c.s.e.gap)
-	g := geometryOf(&c.s.bolts[bolt], c.s.e.cat, c.s.e.fc, c.s.e.holes, c.s.e.gap, fl, &webLayout{})
-	return g.Flange, q.bolts, q.mass
+	q := flangeQty(&c.bolts[bolt].flanges[f], c.s.e.gap)
+	return c.bolts[bolt].fgeo[f], q.bolts, q.mass
 }
 
 // WebPart returns a web part: the web splice, its bolts (both sides) and its plates' mass [kg].
 func (c *Catalogue) WebPart(bolt, w int) (WebSplice, int, float64) {
-	wl := &c.bolts[bolt].webs[w]
-	q := webQty(wl, c.s.e.gap)
-	g := geometryOf(&c.s.bolts[bolt], c.s.e.cat, c.s.e.fc, c.s.e.holes, c.s.e.gap, &flangeLayout{}, wl)
-	return g.Web, q.bolts, q.mass
+	q := webQty(&c.bolts[bolt].webs[w], c.s.e.gap)
+	return c.bolts[bolt].wgeo[w], q.bolts, q.mass
 }
 
 // Entry returns a whole splice's geometry, quantities and cost.
@@ -186,19 +196,8 @@ func (c *Catalogue) Find(g Geometry) (Choice, bool) {
 		if c.Bolt(bi) != g.Bolt {
 			continue
 		}
-		f, w := -1, -1
-		for i := range c.bolts[bi].flanges {
-			if got, _, _ := c.FlangePart(bi, i); got == g.Flange {
-				f = i
-				break
-			}
-		}
-		for i := range c.bolts[bi].webs {
-			if got, _, _ := c.WebPart(bi, i); got == g.Web {
-				w = i
-				break
-			}
-		}
+		f := slices.Index(c.bolts[bi].fgeo, g.Flange)
+		w := slices.Index(c.bolts[bi].wgeo, g.Web)
 		if f >= 0 && w >= 0 {
 			return Choice{Bolt: bi, Flange: f, Web: w}, true
 		}
@@ -298,8 +297,15 @@ func (c *Catalogue) WebPasses(bolt, w int, l *Loading) bool {
 // Check runs every check of a whole splice at a loading for numbers only: whether all pass and
 // the governing utilisation, equal to Verify's Pass and Utilisation for the splice's geometry.
 func (c *Catalogue) Check(ch Choice, l *Loading) (pass bool, utilisation float64) {
-	cb := &c.bolts[ch.Bolt]
-	return verdict(&l.e, &c.s.bolts[ch.Bolt], &cb.flanges[ch.Flange], &cb.webs[ch.Web])
+	cb, b := &c.bolts[ch.Bolt], &c.s.bolts[ch.Bolt]
+	fx := flangeEval{e: &l.e, b: b, l: &cb.flanges[ch.Flange]}
+	wx := newWebEval(&l.e, b, &cb.webs[ch.Web])
+	a := newAcc(false)
+	fx.fastA(&a)
+	fx.fastB(&a)
+	wx.fastBolts(&a)
+	wx.fastPlates(&a)
+	return a.pass, a.measure
 }
 
 // Designs lists the whole splices of the catalogue in the sizing's order, from the first that
@@ -316,7 +322,7 @@ func (c *Catalogue) Designs(from *Order) *DesignIter {
 		}
 		for f := range cb.flanges {
 			pos := 0
-			if from != nil {
+			if from != nil && c.row(bi, f, 0).ord.Compare(*from) < 0 {
 				pos, _ = slices.BinarySearchFunc(cb.byScore, *from, func(w int, o Order) int {
 					return c.Order(Choice{Bolt: bi, Flange: f, Web: w}).Compare(o)
 				})
