@@ -119,7 +119,8 @@ func TestCatalogueFirstPassingIsSize(t *testing.T) {
 			require.Equal(t, NoFeasible, r.Status, "case %d", i)
 		}
 	}
-	require.Greater(t, sized, n/4)
+	require.Greater(t, sized, 0, "some positions have a passing splice")
+	require.Less(t, sized, n, "and some have none")
 }
 
 // TestCatalogueCheckEqualsVerify: Check, Entry and Load give Verify's verdict, utilisation,
