@@ -69,6 +69,24 @@
 // min_piece_length, max_piece_length, the vehicles' length) or the stretch of beam without an
 // admissible position, with the job-file location.
 //
+// # Identical splices
+//
+// Outcome.Uniform finds, for each splice count (by the same counting rule), the best layout in
+// which every splice is the same design of the job's design space: exactly the least
+// k·cost(D) + transport + erection over every design D and every layout of the positions
+// where all of D's checks pass — not only those where D is the cheapest — with D's mass on
+// the pieces. D's feasible positions are those of its flange part and its web part, found once
+// per part with the checks monotone in the actions (splice.Catalogue); the designs are listed
+// in cost order from the least that could hold k splices at all, cut by a lower bound on the
+// cost of any layout of the rest, by dominance (an earlier design that passes wherever
+// another does, no heavier, takes its place) of parts and of whole designs, and the layouts
+// of each remaining design are found by the dynamic programme above over its own positions.
+// Ties go to fewer splices, then the design first in the splice package's order (cost, fewer
+// bolts, lighter plates, design-space order), then the smaller sum of its utilisation at the
+// splices, then splices further left, compared from the right end. With the same number of
+// splices a uniform layout costs at least as much as the mixed one unless a dearer, lighter
+// splice eases a mass limit.
+//
 // Batch optimises several jobs on a bounded pool of goroutines and reports progress through a
 // callback; the command decides whether to draw a bar.
 package optimise

@@ -217,11 +217,18 @@ func (d *SpliceDesigner) boltMass(r splice.Result) float64 {
 	if err != nil {
 		return 0
 	}
-	fl := g.Flange
-	flangeGrip := d.Tf + fl.Outer.Thickness + fl.Inner.Thickness + fl.Packing
-	webGrip := d.Tw + 2*g.Web.Thickness + 2*g.Web.Packing
 	q := r.Quantities
-	return float64(q.FlangeBolts)*boltAssemblyMass(size, flangeGrip) + float64(q.WebBolts)*boltAssemblyMass(size, webGrip)
+	return d.flangeBoltMass(size, g.Flange, q.FlangeBolts) + d.webBoltMass(size, g.Web, q.WebBolts)
+}
+
+// flangeBoltMass is the mass of a flange splice's bolt assemblies [kg], both flanges.
+func (d *SpliceDesigner) flangeBoltMass(size splice.BoltSize, fl splice.FlangeSplice, bolts int) float64 {
+	return float64(bolts) * boltAssemblyMass(size, d.Tf+fl.Outer.Thickness+fl.Inner.Thickness+fl.Packing)
+}
+
+// webBoltMass is the mass of a web splice's bolt assemblies [kg].
+func (d *SpliceDesigner) webBoltMass(size splice.BoltSize, w splice.WebSplice, bolts int) float64 {
+	return float64(bolts) * boltAssemblyMass(size, d.Tw+2*w.Thickness+2*w.Packing)
 }
 
 // boltAssemblyMass is the estimated mass of one bolt, nut and two washers for a grip [kg].

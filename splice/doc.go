@@ -68,6 +68,16 @@
 // exactly as SizeExhaustive, or the best attempt with Status NoFeasible. Costs use Rates;
 // DefaultRates are invented indicative rates for ranking only.
 //
+// # One design at many positions
+//
+// A Catalogue lists the whole splices of a design space for a problem without forces — each
+// a bolt, a flange part and a web part, in the order Size ranks them (Designs) — and checks
+// any of them at a Loading (the design actions of one set of forces) for numbers only, with
+// Verify's verdict and utilisation. The flange and web parts pass or fail independently, and
+// a part that passes at a loading passes at every loading below it, action by action; a
+// search for one design that passes at many positions (identical splices along a beam) is
+// built on these two facts.
+//
 // # Errors
 //
 // Anything a user can cause (an unknown bolt size, a plate thickness the steel table does not

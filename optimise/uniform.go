@@ -1,0 +1,945 @@
+package optimise
+
+import (
+	"cmp"
+	"fmt"
+	"math"
+	"math/bits"
+	"slices"
+	"sort"
+
+	"spanbreak/splice"
+)
+
+// UniformLayout is the best layout of one splice count in which every splice is the same
+// design. Its Layout is as the mixed search reports one (positions, pieces, vehicle, trips,
+// cost); Sites index the outcome's feasible candidates in order, as the mixed layouts' do, and
+// Tie is the sum of the design's utilisation at its splices in millionths.
+type UniformLayout struct {
+	Layout
+	// Design is the one splice design: its cost, bolts, holes, masses, summary and geometry;
+	// Utilisation and Governing are those of the splice that works hardest. Zero for the
+	// unspliced beam.
+	Design SpliceDesign
+	// Designs describes each splice at its position, left to right.
+	Designs []PlacedSplice
+	// Choice is the design's place in the splice package's catalogue of the job's design space.
+	Choice splice.Choice
+
+	order splice.Order
+}
+
+// PlacedSplice is one splice of a layout at its position.
+type PlacedSplice struct {
+	X           float64 // [mm]
+	Splice      string  // one-line summary of the design
+	Cost        float64 // [currency]
+	Bolts       int
+	Utilisation float64 // governing utilisation at this position
+	Governing   string  // id of the governing check there
+}
+
+// UniformResult is the outcome of the search for layouts of identical splices.
+type UniformResult struct {
+	// ByCount is the best uniform layout for each splice count, by the counting rule of the
+	// mixed search (LayoutResult.ByCount) applied to uniform layouts; empty when no layout of
+	// identical splices satisfies the limits.
+	ByCount []UniformLayout
+	// Recommended indexes the best of ByCount (UniformLayout.Compare); −1 when it is empty.
+	Recommended int
+	Stats       UniformStats
+}
+
+// UniformStats count the work of the uniform search.
+type UniformStats struct {
+	Designs     int // whole splices in the design space
+	Listed      int // splices listed in cost order before the bounds stopped each count
+	Dominated   int // listed splices skipped because an earlier one passes wherever they do, as light
+	Searched    int // splices whose layouts were searched
+	Parts       int // flange and web parts whose passing positions were found
+	Evaluations int // part checks at one set of forces
+	Settled     int // counts settled by trying the strongest parts after a long listing without a layout
+}
+
+// Compare orders uniform layouts: cheaper first, then fewer splices, then the design first in
+// the splice package's order (cost, fewer bolts, lighter plates, design-space order), then the
+// smaller sum of utilisations, then by positions compared from the right end (the layout
+// whose last splice is further left first), as the mixed search orders positions.
+func (l UniformLayout) Compare(o UniformLayout) int {
+	a, b := l.key, o.key
+	if c := cmp.Or(cmp.Compare(a.total, b.total), cmp.Compare(a.count, b.count)); c != 0 || a.count == 0 {
+		return c
+	}
+	if c := l.order.Compare(o.order); c != 0 {
+		return c
+	}
+	return cmp.Or(cmp.Compare(a.tie, b.tie), compareRevLex(a.nodes, b.nodes))
+}
+
+// Uniform finds, for each splice count, the best layout in which every splice is the same
+// design of the job's design space, exactly: the least k·cost(D) + transport + erection over
+// every design D and every layout of D's feasible positions (those where all of D's checks
+// pass, not only those where D is the cheapest), under every piece limit with D's mass on the
+// pieces. See uniformSearch for the method. The outcome must come from Run or Optimise with
+// the splice package's designer.
+func (o *Outcome) Uniform() (UniformResult, error) {
+	u, err := newUniformSearch(o)
+	if err != nil {
+		return UniformResult{}, err
+	}
+	res := UniformResult{Recommended: -1}
+	res.ByCount, res.Recommended = u.byCount()
+	for i := range res.ByCount {
+		u.describe(&res.ByCount[i])
+	}
+	res.Stats = u.stats
+	return res, nil
+}
+
+// PlacedSplices describes each splice of a mixed layout of the outcome at its position.
+func (o *Outcome) PlacedSplices(l Layout) []PlacedSplice {
+	p := o.layoutProblem()
+	out := make([]PlacedSplice, len(l.Sites))
+	for i, s := range l.Sites {
+		c := o.Candidates[p.Sites[s].Candidate]
+		d := c.Design
+		out[i] = PlacedSplice{X: c.X, Splice: d.Summary, Cost: d.Cost, Bolts: d.Bolts, Utilisation: d.Utilisation, Governing: d.Governing}
+	}
+	return out
+}
+
+// uniformSearch finds the best layouts of identical splices.
+//
+// The positions are the feasible candidates of the scan (where no splice passes, none of the
+// design space does). A design D = (bolt, flange part, web part) passes at a position exactly
+// when its flange part passes with the flange actions there and its web part with the web
+// actions (splice.Catalogue), so D's feasible set is S(D) = S(flange) ∩ S(web), and each
+// part's set is found once, with one check per distinct set of forces, none at all when the
+// part fails below every position's actions or passes above all of them (a part's checks are
+// monotone in the actions).
+//
+// For each splice count k the designs are listed in the sizing's order, that is by cost, from
+// the first that could hold a k-splice layout at all: D passes only where it is at least the
+// cheapest splice, so D must not be below the least design d for which the positions whose
+// cheapest splice is at most d admit k splices. For each listed D:
+//
+//   - stop when k·cost(D) + the least transport and erection of any k-splice layout (a lower
+//     bound from the beam's mass and the vehicles able to carry k+1 pieces) cannot beat the
+//     best layout found, since every later design costs no less;
+//   - drop every design with D's flange part, or with its web part, when that part's feasible
+//     set admits no k-splice layout, or when an earlier part of the same bolt passes wherever
+//     it does and is no heavier (dominance of parts);
+//   - skip D when an earlier design passes wherever D does and is no heavier (dominance:
+//     every layout of D is a layout of that design, no dearer, and it wins ties);
+//   - otherwise search D's layouts exactly with the mixed search's dynamic programme, its
+//     positions being S(D), each splice at D's cost and mass, tied by D's utilisation there.
+//
+// Masses only lower a layout's transport when trips are exact (at most MaxExactPacking
+// pieces); for more pieces with vehicles, dominance asks for equal masses.
+//
+// Work: with n positions, u distinct force sets, P parts and k splices, finding the parts'
+// sets takes at most P·u checks, and each listed design O(n/64) for its set plus O(m·n/64)
+// against the m designs kept for dominance; each searched design costs a layout search,
+// O(tiers·k·n) plus the trips enumeration. The bounds usually stop after a handful of designs.
+type uniformSearch struct {
+	cat      *splice.Catalogue
+	designer *SpliceDesigner
+	prob     splice.Problem   // the job's splice problem without forces
+	p        LayoutProblem    // the mixed layout problem: its sites are the positions
+	forces   []PositionForces // per position
+	loads    []splice.Loading // distinct sets of forces
+	loadOf   []int            // per position: its loading
+	lo, hi   splice.Loading   // below and above every loading
+	posets   [2]poset         // of the loadings by flange and by web actions
+	best     []splice.Order   // per position: the cheapest splice there
+	byBest   []int            // positions in the order of their cheapest splice
+	minCost  int64            // the cheapest splice anywhere [micro-units]
+	n        int
+	global   *search // every position, splices without cost or mass
+	widest   int     // the tier admitting every layout of massless splices that any tier does, or −1
+
+	flanges, webs [][]*partInfo    // per bolt and part, nil until needed
+	computed      [2][][]int       // per kind (0 flange, 1 web) and bolt: parts whose sets are known
+	witness       map[int][]bitset // per count: positions of layouts known to satisfy the limits
+	proofAfter    int              // designs listed without a layout before strongest settles the count
+	designs       map[splice.Choice]*designInfo
+	kept          []*designInfo // designs not dominated, for the dominance test
+	stats         UniformStats
+}
+
+// partInfo is what the search knows of one flange or web part of one bolt.
+type partInfo struct {
+	index          int
+	plate, boltsKg float64 // cover plate and bolt assembly masses [kg]
+	set            bitset  // positions where it passes; nil until found
+	admits         map[int]bool
+	dominated      [2]int8 // per mass rule (0 at most as heavy, 1 as heavy): 0 unknown, 1 yes, 2 no
+}
+
+// designInfo is a whole splice whose feasible positions are known.
+type designInfo struct {
+	ch     splice.Choice
+	order  splice.Order
+	cost   float64 // [currency]
+	mass   float64 // plates and bolts [kg], as SpliceDesign.Mass
+	set    bitset
+	kept   bool    // in uniformSearch.kept
+	untied *search // over its feasible positions without ties, built when first searched
+	tied   *search // with the utilisation ties, built when it may win
+}
+
+func newUniformSearch(o *Outcome) (*uniformSearch, error) {
+	s := o.Setup
+	cat, err := splice.NewCatalogue(s.Splice)
+	if err != nil {
+		return nil, err
+	}
+	u := &uniformSearch{cat: cat, designer: s.NewSpliceDesigner(o.Exhaustive), prob: s.Splice, p: o.layoutProblem(),
+		designs: map[splice.Choice]*designInfo{}, witness: map[int][]bitset{}, minCost: math.MaxInt64}
+	u.p.Alternatives = 0
+	u.n = len(u.p.Sites)
+	u.stats.Designs = cat.Len()
+	shared := map[PositionForces]int{}
+	found := map[splice.Geometry]splice.Order{}
+	for _, site := range u.p.Sites {
+		c := o.Candidates[site.Candidate]
+		f := c.Forces
+		l, ok := shared[f]
+		if !ok {
+			sls := splice.Forces(f.SLS)
+			ld, err := cat.Load(splice.Forces(f.ULS), &sls)
+			if err != nil {
+				return nil, err
+			}
+			l = len(u.loads)
+			shared[f] = l
+			u.loads = append(u.loads, ld)
+		}
+		ord, ok := found[c.Design.Geometry]
+		if !ok {
+			ch, ok := cat.Find(c.Design.Geometry)
+			if !ok {
+				return nil, fmt.Errorf("optimise: the splice at %s is not in the job's design space; the uniform search needs the candidates sized by the splice package", metres(c.X))
+			}
+			ord = cat.Order(ch)
+			found[c.Design.Geometry] = ord
+		}
+		u.forces, u.loadOf, u.best = append(u.forces, f), append(u.loadOf, l), append(u.best, ord)
+		u.minCost = min(u.minCost, micro(c.Design.Cost))
+	}
+	if u.n == 0 {
+		u.minCost = 0
+	} else {
+		u.lo, u.hi = splice.Envelope(u.loads)
+	}
+	u.posets[0], u.posets[1] = newPoset(u, 0), newPoset(u, 1)
+	u.byBest = make([]int, u.n)
+	for i := range u.byBest {
+		u.byBest[i] = i
+	}
+	slices.SortStableFunc(u.byBest, func(a, b int) int { return u.best[a].Compare(u.best[b]) })
+	u.global = u.searchOver(allOf(u.n), 0, 0, nil)
+	u.widest = widestTier(u.global)
+	for _, l := range append(slices.Clone(o.Layouts.ByCount), o.Layouts.Alternatives...) {
+		u.addWitness(l.Sites)
+	}
+	u.flanges, u.webs = make([][]*partInfo, cat.Bolts()), make([][]*partInfo, cat.Bolts())
+	for b := range u.flanges {
+		u.flanges[b], u.webs[b] = make([]*partInfo, cat.Flanges(b)), make([]*partInfo, cat.Webs(b))
+	}
+	u.computed[0], u.computed[1] = make([][]int, cat.Bolts()), make([][]int, cat.Bolts())
+	for b := range u.flanges {
+		u.proofAfter += len(u.flanges[b]) + len(u.webs[b])
+	}
+	return u, nil
+}
+
+// searchOver builds the layout search whose sites are the positions of a set, each splice
+// at one cost and mass, tied by tie(position) (nil: no tie).
+func (u *uniformSearch) searchOver(set bitset, cost, mass float64, tie func(int) int64) *search {
+	q := u.p
+	q.Sites = make([]Site, 0, set.count())
+	set.each(func(i int) {
+		s := Site{X: u.p.Sites[i].X, Cost: cost, Mass: mass, Candidate: i}
+		if tie != nil {
+			s.Tie = tie(i)
+		}
+		q.Sites = append(q.Sites, s)
+	})
+	return newSearch(&q)
+}
+
+// admitsCount reports whether a search admits a k-splice layout on some tier.
+func admitsCount(s *search, k int) bool {
+	for _, t := range s.tiers {
+		if admitsOn(s, t, k) {
+			return true
+		}
+	}
+	return false
+}
+
+func admitsOn(s *search, t *tier, k int) bool {
+	layers := s.unconstrained(t, k)
+	return (k == 0 || layers != nil) && s.final(layers, k, t).ok()
+}
+
+// widestTier returns the tier whose length and mass limits are each at least every other
+// tier's, −1 when there is none: with massless splices the pieces it admits include those of
+// every tier, so it alone decides whether a set of positions admits k splices.
+func widestTier(s *search) int {
+	for i, t := range s.tiers {
+		if !slices.ContainsFunc(s.tiers, func(o *tier) bool { return o.maxLen > t.maxLen || o.maxMass > t.maxMass }) {
+			return i
+		}
+	}
+	return -1
+}
+
+// admits reports whether the positions of a set hold a k-splice layout with massless splices
+// (so that no design whose feasible positions lie in the set has one).
+func (u *uniformSearch) admits(set bitset, k int) bool {
+	switch c := set.count(); {
+	case c < k:
+		return false
+	case c == u.n:
+		return admitsCount(u.global, k)
+	}
+	for _, w := range u.witness[k] {
+		if w.subsetOf(set) {
+			return true
+		}
+	}
+	s := u.searchOver(set, 0, 0, nil)
+	if u.widest < 0 {
+		return admitsCount(s, k)
+	}
+	return admitsOn(s, s.tiers[u.widest], k)
+}
+
+// witness keeps the positions of a k-splice layout found, which proves that any set holding
+// them admits k splices.
+func (u *uniformSearch) addWitness(sites []int) {
+	w := newBitset(u.n)
+	for _, i := range sites {
+		w.add(i)
+	}
+	u.witness[len(sites)] = append(u.witness[len(sites)], w)
+}
+
+// lowest returns the least design that may hold a k-splice layout: the least of the
+// positions' cheapest splices d for which the positions whose cheapest splice is at most d
+// admit k splices; false when not even every position does.
+func (u *uniformSearch) lowest(k int) (splice.Order, bool) {
+	if u.n == 0 || !admitsCount(u.global, k) {
+		return splice.Order{}, false
+	}
+	// the positions in the order of their cheapest splice, cut where that splice changes
+	var cuts []int
+	for j := 1; j <= u.n; j++ {
+		if j == u.n || u.best[u.byBest[j]].Compare(u.best[u.byBest[j-1]]) != 0 {
+			cuts = append(cuts, j)
+		}
+	}
+	c := sort.Search(len(cuts), func(c int) bool {
+		set := newBitset(u.n)
+		for _, i := range u.byBest[:cuts[c]] {
+			set.add(i)
+		}
+		return u.admits(set, k)
+	})
+	return u.best[u.byBest[cuts[c]-1]], true
+}
+
+// transportLB bounds the transport and erection of any k-splice layout whose splices weigh
+// mass each [micro-units]: k+1 lifts, and the fewest trips of the beam's mass on the cheapest
+// vehicle whose length and payload could carry k+1 pieces of it. MaxInt64 when none could.
+func (u *uniformSearch) transportLB(k int, mass float64) int64 {
+	p := &u.p
+	lift := micro(p.Lift) * int64(k+1)
+	if len(p.Vehicles) == 0 {
+		return lift
+	}
+	steel := p.Length - float64(k)*p.Gap
+	total := p.MassPerLength*steel + float64(k)*mass + float64(k+1)*p.Limits.Rigging
+	best := int64(math.MaxInt64)
+	for _, v := range p.Vehicles {
+		maxLen, maxMass := math.Min(p.Limits.MaxLength, v.MaxLength), math.Min(p.Limits.MaxMass, v.Payload)
+		if steel > float64(k+1)*(maxLen+lengthTol) || total > float64(k+1)*(maxMass+massTol) {
+			continue
+		}
+		trips := max(1, int(math.Ceil(total/v.Payload-1e-9)))
+		best = min(best, micro(v.Cost)*int64(trips))
+	}
+	if best == math.MaxInt64 {
+		return best
+	}
+	return lift + best
+}
+
+// beaten reports whether no k-splice layout of a design of this cost, mass and order can come
+// before the layout inc.
+func (u *uniformSearch) beaten(k int, cost int64, mass float64, ord splice.Order, inc *UniformLayout) bool {
+	t := u.transportLB(k, mass)
+	return t == math.MaxInt64 || u.beatenTotal(int64(k)*cost+t, k, ord, inc)
+}
+
+// beatenTotal reports whether a k-splice layout of the design ord whose total is at least lb
+// cannot come before inc.
+func (u *uniformSearch) beatenTotal(lb int64, k int, ord splice.Order, inc *UniformLayout) bool {
+	if lb != inc.key.total {
+		return lb > inc.key.total
+	}
+	if k != inc.key.count {
+		return k > inc.key.count
+	}
+	return ord.Compare(inc.order) > 0
+}
+
+// byCount applies the mixed search's counting rule: the fewest splices with a uniform layout,
+// the next Extra counts, and any larger count whose best is better still.
+func (u *uniformSearch) byCount() ([]UniformLayout, int) {
+	p := &u.p
+	var res []UniformLayout
+	rec, fewest := -1, -1
+	if !u.global.endReachable() {
+		return nil, -1
+	}
+	for k := p.MinSplices; p.MaxSplices < 0 || k <= p.MaxSplices; k++ {
+		if k > u.n || k > 0 && u.global.allDead(k) {
+			break
+		}
+		var cutoff *UniformLayout
+		if fewest >= 0 && k > fewest+p.Extra {
+			t := u.transportLB(k, 0)
+			if t == math.MaxInt64 {
+				continue
+			}
+			if int64(k)*u.minCost+t >= res[rec].key.total {
+				break
+			}
+			cutoff = &res[rec]
+		}
+		l, ok := u.bestFor(k, cutoff)
+		if !ok {
+			continue
+		}
+		if fewest < 0 {
+			fewest = k
+		}
+		res = append(res, l)
+		if rec < 0 || l.Compare(res[rec]) < 0 {
+			rec = len(res) - 1
+		}
+	}
+	return res, rec
+}
+
+// bestFor finds the best uniform layout with k splices that comes before cutoff (nil: any).
+func (u *uniformSearch) bestFor(k int, cutoff *UniformLayout) (UniformLayout, bool) {
+	if k == 0 {
+		l, ok := u.global.bestOverTiers(0, nil)
+		ul := UniformLayout{Layout: l}
+		return ul, ok && (cutoff == nil || ul.Compare(*cutoff) < 0)
+	}
+	from, ok := u.lowest(k)
+	if !ok {
+		return UniformLayout{}, false
+	}
+	rule := 0
+	if len(u.p.Vehicles) > 0 && k+1 > MaxExactPacking {
+		rule = 1
+	}
+	var inc *UniformLayout
+	if cutoff != nil {
+		c := *cutoff
+		inc = &c
+	}
+	found := false
+	it := u.cat.Designs(&from)
+	for listed := 0; ; listed++ {
+		if !found && listed == u.proofAfter {
+			// no layout yet: settle whether any design admits k splices at all
+			var any bool
+			inc, any = u.strongest(k, rule, inc)
+			if !any {
+				break
+			}
+			found = inc != nil && (cutoff == nil || inc.Compare(*cutoff) != 0)
+		}
+		ch, ord, ok := it.Next()
+		if !ok {
+			break
+		}
+		u.stats.Listed++
+		cost := micro(u.cat.Cost(ch))
+		if inc != nil && u.beaten(k, cost, 0, ord, inc) {
+			break // every later design costs no less and comes later
+		}
+		f, w := u.part(0, ch.Bolt, ch.Flange), u.part(1, ch.Bolt, ch.Web)
+		mass := (f.plate + w.plate) + (f.boltsKg + w.boltsKg)
+		if inc != nil && u.beaten(k, cost, mass, ord, inc) {
+			continue
+		}
+		if !u.useful(0, ch.Bolt, f, k, rule) {
+			it.DropFlange(ch.Bolt, ch.Flange)
+			continue
+		}
+		if !u.useful(1, ch.Bolt, w, k, rule) {
+			it.DropWeb(ch.Bolt, ch.Web)
+			continue
+		}
+		d := u.design(ch, ord, mass, f, w, rule)
+		if d == nil {
+			u.stats.Dominated++
+			continue
+		}
+		if l, ok := u.layout(d, k, inc); ok {
+			inc, found = &l, true
+		}
+	}
+	if !found {
+		return UniformLayout{}, false
+	}
+	return *inc, true
+}
+
+// strongest settles a count after a long listing without a layout: it finds every part's
+// feasible positions, keeps for each bolt the parts whose positions no other part's include,
+// and tries each pair of them. When no pair's positions admit k massless splices, no design
+// has a k-splice layout (any design's positions lie within such a pair's), and it returns
+// false; otherwise it searches the layouts of those pairs and returns the best that comes
+// before inc (inc itself when none does).
+func (u *uniformSearch) strongest(k, rule int, inc *UniformLayout) (*UniformLayout, bool) {
+	u.stats.Settled++
+	any := false
+	for b := 0; b < u.cat.Bolts(); b++ {
+		flanges, webs := u.maximal(0, b), u.maximal(1, b)
+		for _, f := range flanges {
+			for _, w := range webs {
+				fi, wi := u.flanges[b][f], u.webs[b][w]
+				if !u.admits(fi.set.and(wi.set), k) {
+					continue
+				}
+				any = true
+				ch := splice.Choice{Bolt: b, Flange: f, Web: w}
+				d := u.design(ch, u.cat.Order(ch), (fi.plate+wi.plate)+(fi.boltsKg+wi.boltsKg), fi, wi, rule)
+				if d == nil {
+					continue // an earlier design does as well, and is listed or bounded before it
+				}
+				if l, ok := u.layout(d, k, inc); ok {
+					inc = &l
+				}
+			}
+		}
+	}
+	return inc, any
+}
+
+// maximal returns the parts of one kind of a bolt whose feasible positions no other part's
+// include (one of each set), finding every part's positions.
+func (u *uniformSearch) maximal(kind, bolt int) []int {
+	n := u.cat.Flanges(bolt)
+	if kind == 1 {
+		n = u.cat.Webs(bolt)
+	}
+	parts := make([]*partInfo, n)
+	for i := range parts {
+		pi := u.part(kind, bolt, i)
+		if pi.set == nil {
+			pi.set = u.passSet(kind, bolt, i)
+			u.computed[kind][bolt] = append(u.computed[kind][bolt], i)
+		}
+		parts[i] = pi
+	}
+	slices.SortStableFunc(parts, func(a, b *partInfo) int { return cmp.Compare(b.set.count(), a.set.count()) })
+	var out []int
+	var kept []bitset
+	for _, pi := range parts {
+		if slices.ContainsFunc(kept, pi.set.subsetOf) {
+			continue
+		}
+		kept = append(kept, pi.set)
+		out = append(out, pi.index)
+	}
+	return out
+}
+
+// part returns a flange (kind 0) or web (kind 1) part of a bolt with its masses; its set of
+// positions is found by useful.
+func (u *uniformSearch) part(kind, bolt, i int) *partInfo {
+	parts := u.flanges
+	if kind == 1 {
+		parts = u.webs
+	}
+	if pi := parts[bolt][i]; pi != nil {
+		return pi
+	}
+	size, err := splice.LookupBoltSize(u.cat.Bolt(bolt).Size)
+	if err != nil {
+		panic("optimise: a catalogue bolt without a size: " + err.Error())
+	}
+	pi := &partInfo{index: i, admits: map[int]bool{}}
+	if kind == 0 {
+		fl, n, plate := u.cat.FlangePart(bolt, i)
+		pi.plate, pi.boltsKg = plate, u.designer.flangeBoltMass(size, fl, n)
+	} else {
+		wb, n, plate := u.cat.WebPart(bolt, i)
+		pi.plate, pi.boltsKg = plate, u.designer.webBoltMass(size, wb, n)
+	}
+	parts[bolt][i] = pi
+	return pi
+}
+
+// useful reports whether a part may still be in the best k-splice layout: its positions admit
+// k splices and no earlier part of the bolt dominates it under the mass rule.
+func (u *uniformSearch) useful(kind, bolt int, pi *partInfo, k, rule int) bool {
+	if pi.set == nil {
+		pi.set = u.passSet(kind, bolt, pi.index)
+		u.computed[kind][bolt] = append(u.computed[kind][bolt], pi.index)
+	}
+	if pi.dominated[rule] == 0 {
+		pi.dominated[rule] = 2
+		for _, j := range u.computed[kind][bolt] {
+			if j != pi.index && u.partDominates(kind, bolt, j, pi, rule) {
+				pi.dominated[rule] = 1
+				break
+			}
+		}
+	}
+	if pi.dominated[rule] == 1 {
+		return false
+	}
+	ok, known := pi.admits[k]
+	if !known {
+		ok = u.admits(pi.set, k)
+		pi.admits[k] = ok
+	}
+	return ok
+}
+
+// partDominates reports whether part j of a bolt comes first, passes wherever part pi does
+// and weighs no more (the same under mass rule 1), so that swapping it in improves any splice.
+func (u *uniformSearch) partDominates(kind, bolt, j int, pi *partInfo, rule int) bool {
+	var q *partInfo
+	var before bool
+	if kind == 0 {
+		q, before = u.flanges[bolt][j], u.cat.FlangeBefore(bolt, j, pi.index)
+	} else {
+		q, before = u.webs[bolt][j], u.cat.WebBefore(bolt, j, pi.index)
+	}
+	return before && lighter(q.plate, pi.plate, rule) && lighter(q.boltsKg, pi.boltsKg, rule) && pi.set.subsetOf(q.set)
+}
+
+// lighter compares masses under a mass rule: at most as heavy (0) or as heavy (1).
+func lighter(a, b float64, rule int) bool {
+	if rule == 1 {
+		return a == b
+	}
+	return a <= b
+}
+
+// passSet finds the positions where a part passes: nothing to check beyond the envelope when
+// it fails below every loading or passes above all of them; otherwise the loadings are
+// checked in an order that halves the unknown ones (the median of a linear extension of the
+// actions' partial order), each pass settling every loading below it and each failure every
+// loading above it — a binary search along each chain of loadings. When the settling stops
+// paying (loadings that bound none of the others), the rest are checked one by one.
+func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
+	passes := func(l *splice.Loading) bool {
+		u.stats.Evaluations++
+		if kind == 0 {
+			return u.cat.FlangePasses(bolt, i, l)
+		}
+		return u.cat.WebPasses(bolt, i, l)
+	}
+	u.stats.Parts++
+	set := newBitset(u.n)
+	if u.n == 0 || !passes(&u.lo) {
+		return set
+	}
+	if passes(&u.hi) {
+		return allOf(u.n)
+	}
+	po := &u.posets[kind]
+	nl := len(u.loads)
+	pass, known := newBitset(nl), newBitset(nl)
+	unknown := slices.Clone(po.order) // the unsettled loadings, in order
+	for idle := 0; len(unknown) > 0; {
+		if idle >= settleIdle {
+			for _, l := range unknown {
+				if passes(&u.loads[l]) {
+					pass.add(l)
+				}
+			}
+			break
+		}
+		mid := len(unknown) / 2
+		l := unknown[mid]
+		var settled int
+		if passes(&u.loads[l]) {
+			settled = known.union(po.below(u, kind, l), pass)
+		} else {
+			settled = known.union(po.above(u, kind, l), nil)
+		}
+		if settled > 1 {
+			unknown, idle = slices.DeleteFunc(unknown, known.has), 0
+		} else {
+			unknown, idle = slices.Delete(unknown, mid, mid+1), idle+1
+		}
+	}
+	for p, l := range u.loadOf {
+		if pass.has(l) {
+			set.add(p)
+		}
+	}
+	return set
+}
+
+// settleIdle is the number of checks in a row that settle no other loading after which
+// passSet checks the remaining loadings one by one.
+const settleIdle = 8
+
+// poset is the partial order of the loadings by the flange (kind 0) or web (kind 1) actions:
+// a part that passes at a loading passes at every loading below it.
+type poset struct {
+	order    []int    // the loadings in a linear extension of the order
+	down, up []bitset // per loading: those below it and above it (itself included), nil until needed
+	key      []float64
+}
+
+// newPoset orders the loadings by the sum of their actions, each relative to its largest
+// value, which never decreases from a loading to one above it.
+func newPoset(u *uniformSearch, kind int) poset {
+	nl := len(u.loads)
+	po := poset{order: make([]int, nl), down: make([]bitset, nl), up: make([]bitset, nl), key: make([]float64, nl)}
+	hi := u.hi.Actions()
+	for l := range u.loads {
+		a := u.loads[l].Actions()
+		var xs, hs []float64
+		if kind == 0 {
+			xs = []float64{a.Flange.Tension, a.Flange.Compression, a.Flange.Bolt, a.Flange.SlipBolt}
+			hs = []float64{hi.Flange.Tension, hi.Flange.Compression, hi.Flange.Bolt, hi.Flange.SlipBolt}
+		} else {
+			w, hw := a.Web, hi.Web
+			xs = []float64{w.Moment, w.Axial, w.Shear, w.SlipMoment, w.SlipAxial, w.SlipShear}
+			hs = []float64{hw.Moment, hw.Axial, hw.Shear, hw.SlipMoment, hw.SlipAxial, hw.SlipShear}
+		}
+		for j, x := range xs {
+			if hs[j] > 0 {
+				po.key[l] += x / hs[j]
+			}
+		}
+		po.order[l] = l
+	}
+	slices.SortStableFunc(po.order, func(a, b int) int { return cmp.Compare(po.key[a], po.key[b]) })
+	return po
+}
+
+func (po *poset) le(u *uniformSearch, kind, a, b int) bool {
+	if kind == 0 {
+		return u.loads[a].FlangeBelow(&u.loads[b])
+	}
+	return u.loads[a].WebBelow(&u.loads[b])
+}
+
+// below returns the loadings below l (l included).
+func (po *poset) below(u *uniformSearch, kind, l int) bitset {
+	if po.down[l] == nil {
+		b := newBitset(len(u.loads))
+		for m := range u.loads {
+			if po.le(u, kind, m, l) {
+				b.add(m)
+			}
+		}
+		po.down[l] = b
+	}
+	return po.down[l]
+}
+
+// above returns the loadings above l (l included).
+func (po *poset) above(u *uniformSearch, kind, l int) bitset {
+	if po.up[l] == nil {
+		b := newBitset(len(u.loads))
+		for m := range u.loads {
+			if po.le(u, kind, l, m) {
+				b.add(m)
+			}
+		}
+		po.up[l] = b
+	}
+	return po.up[l]
+}
+
+// design returns a whole splice with its feasible positions, or nil when an earlier design
+// dominates it under the mass rule.
+func (u *uniformSearch) design(ch splice.Choice, ord splice.Order, mass float64, f, w *partInfo, rule int) *designInfo {
+	d := u.designs[ch]
+	if d == nil {
+		d = &designInfo{ch: ch, order: ord, cost: u.cat.Cost(ch), mass: mass, set: f.set.and(w.set)}
+		u.designs[ch] = d
+	}
+	for _, e := range u.kept {
+		if e != d && e.order.Compare(d.order) < 0 && lighter(e.mass, d.mass, rule) && d.set.subsetOf(e.set) {
+			return nil
+		}
+	}
+	if !d.kept {
+		d.kept = true
+		u.kept = append(u.kept, d)
+	}
+	return d
+}
+
+// layout searches the best k-splice layout of one design over its feasible positions that
+// comes before inc (nil: any). The least total does not depend on the utilisation ties, so
+// the search without them decides whether the design can come first at all, and only then
+// is it searched again with them, for the layout that wins ties.
+func (u *uniformSearch) layout(d *designInfo, k int, inc *UniformLayout) (UniformLayout, bool) {
+	if d.set.count() < k {
+		return UniformLayout{}, false
+	}
+	if d.untied == nil {
+		u.stats.Searched++
+		d.untied = u.searchOver(d.set, d.cost, d.mass, nil)
+	}
+	l, ok := d.untied.bestOverTiers(k, nil)
+	if !ok {
+		return UniformLayout{}, false
+	}
+	u.addWitness(l.Sites)
+	if inc != nil && u.beatenTotal(l.key.total, k, d.order, inc) {
+		return UniformLayout{}, false
+	}
+	if d.tied == nil {
+		d.tied = u.searchOver(d.set, d.cost, d.mass, u.ties(d))
+	}
+	l, _ = d.tied.bestOverTiers(k, nil)
+	for i, s := range l.Sites {
+		l.Sites[i] = d.tied.p.Sites[s].Candidate
+	}
+	l.key.nodes = l.Sites
+	ul := UniformLayout{Layout: l, Choice: d.ch, order: d.order}
+	return ul, inc == nil || ul.Compare(*inc) < 0
+}
+
+// ties returns a design's utilisation at each position in millionths, the mixed search's
+// tie key (the design's bolts and plate mass, the other parts of that key, are the same at
+// every position).
+func (u *uniformSearch) ties(d *designInfo) func(int) int64 {
+	ties := make([]int64, len(u.loads))
+	for i := range ties {
+		ties[i] = -1
+	}
+	return func(i int) int64 {
+		l := u.loadOf[i]
+		if ties[l] < 0 {
+			pass, ut := u.cat.Check(d.ch, &u.loads[l])
+			if !pass {
+				panic(fmt.Sprintf("optimise: design %v fails at %s where its parts pass", d.ch, metres(u.p.Sites[i].X)))
+			}
+			ties[l] = int64(math.Round(math.Min(ut, 999) * 1e6))
+		}
+		return ties[l]
+	}
+}
+
+// describe fills in the design of a layout and each splice's utilisation and governing check,
+// from Verify at each position.
+func (u *uniformSearch) describe(l *UniformLayout) {
+	if len(l.Sites) == 0 {
+		return
+	}
+	e := u.cat.Entry(l.Choice)
+	g, q := e.Geometry, e.Quantities
+	d := SpliceDesign{Feasible: true, Cost: e.Cost.Total, Bolts: q.Bolts, Holes: q.Holes, PlateMass: q.PlateMass,
+		BoltMass: u.designer.boltMass(splice.Result{Geometry: g, Quantities: q}), FayingArea: q.FayingArea,
+		Summary: summary(g), Geometry: g}
+	for i, s := range l.Sites {
+		p := u.prob
+		f := u.forces[s]
+		p.ULS = splice.Forces(f.ULS)
+		sls := splice.Forces(f.SLS)
+		p.SLS = &sls
+		r, err := splice.Verify(p, g)
+		if err != nil || !r.Pass {
+			panic(fmt.Sprintf("optimise: the uniform design %q does not verify at %s: %v", d.Summary, metres(l.Splices[i]), err))
+		}
+		if r.Utilisation > d.Utilisation {
+			d.Utilisation, d.Governing = r.Utilisation, r.Governing.ID
+		}
+		l.Designs = append(l.Designs, PlacedSplice{X: l.Splices[i], Splice: d.Summary, Cost: d.Cost, Bolts: d.Bolts,
+			Utilisation: r.Utilisation, Governing: r.Governing.ID})
+	}
+	l.Design = d
+}
+
+// bitset is a set of positions.
+type bitset []uint64
+
+func newBitset(n int) bitset { return make(bitset, (n+63)/64) }
+
+func allOf(n int) bitset {
+	b := newBitset(n)
+	for i := range b {
+		b[i] = math.MaxUint64
+	}
+	if r := n % 64; r != 0 {
+		b[len(b)-1] = 1<<r - 1
+	}
+	return b
+}
+
+func (b bitset) add(i int) { b[i/64] |= 1 << (i % 64) }
+
+func (b bitset) has(i int) bool { return b[i/64]&(1<<(i%64)) != 0 }
+
+// union adds o to b, and to also (when not nil) the members of o that b did not hold; it
+// returns how many those were.
+func (b bitset) union(o, also bitset) int {
+	n := 0
+	for i := range b {
+		fresh := o[i] &^ b[i]
+		n += bits.OnesCount64(fresh)
+		if also != nil {
+			also[i] |= fresh
+		}
+		b[i] |= o[i]
+	}
+	return n
+}
+
+func (b bitset) and(o bitset) bitset {
+	out := make(bitset, len(b))
+	for i := range b {
+		out[i] = b[i] & o[i]
+	}
+	return out
+}
+
+func (b bitset) subsetOf(o bitset) bool {
+	for i := range b {
+		if b[i]&^o[i] != 0 {
+			return false
+		}
+	}
+	return true
+}
+
+func (b bitset) count() int {
+	n := 0
+	for _, w := range b {
+		n += bits.OnesCount64(w)
+	}
+	return n
+}
+
+// each visits the members in increasing order.
+func (b bitset) each(visit func(int)) {
+	for i, w := range b {
+		for w != 0 {
+			visit(i*64 + bits.TrailingZeros64(w))
+			w &= w - 1
+		}
+	}
+}
