@@ -20,10 +20,8 @@ func (momentPriced) Design(f optimise.PositionForces) (optimise.SpliceDesign, er
 		Governing: "moment"}, nil
 }
 
-// ExampleOptimise scans the embedded demo job every 0.25 m with a stand-in designer and
-// prints the recommended layout. The demo roof's imposed load (category H) is kept apart from
-// its snow and wind (EN 1990 A1.2.1(3), the default); with roof_imposed_separate: false the
-// splices would cost 554.96, the moments of "Q leading" then carrying snow at γQ ψ0.
+// ExampleOptimise scans the embedded demo job every 0.25 m with a stand-in designer (priced
+// by the moment it carries) and prints the recommended layout.
 func ExampleOptimise() {
 	s, err := optimise.Prepare(optimise.DemoJobName, optimise.DemoJob())
 	if err != nil {
@@ -47,12 +45,12 @@ func ExampleOptimise() {
 	fmt.Printf("cost: splices %.2f + transport %.2f + erection %.2f = %.2f\n",
 		best.Cost.Splices, best.Cost.Transport, best.Cost.Erection, best.Cost.Total)
 	// Output:
-	// 144 positions, 2 splices at 13.25 m 26.75 m
+	// 121 positions, 2 splices at 10.75 m 18.25 m
 	// semi-trailer, 1 trip(s)
-	// piece 0.000–13.245 m: 13.245 m, 1423 kg
-	// piece 13.255–26.745 m: 13.490 m, 1473 kg
-	// piece 26.755–36.200 m: 9.445 m, 1022 kg
-	// cost: splices 549.77 + transport 780.00 + erection 495.00 = 1824.77
+	// piece 0.000–10.745 m: 10.745 m, 859 kg
+	// piece 10.755–18.245 m: 7.490 m, 631 kg
+	// piece 18.255–30.300 m: 12.045 m, 959 kg
+	// cost: splices 561.91 + transport 780.00 + erection 495.00 = 1836.91
 }
 
 // ExampleLayouts: a 20 m beam of 100 kg/m with a splice possible every metre (300 each,

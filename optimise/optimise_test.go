@@ -111,10 +111,10 @@ func TestKeepOutReasons(t *testing.T) {
 		key  string
 		text string
 	}{
-		{"0.9 m right of the support at 10.5 m (keep-out 1 m)", 11400, "limits.keep_out.supports", "support at 10.5 m"},
-		{"exactly 1 m from the support: the zone is closed", 9500, "limits.keep_out.supports", "support at 10.5 m"},
-		{"0.35 m from the point load of G at 17.25 m (keep-out 0.4 m)", 17600, "limits.keep_out.point_loads", "point load of case G at 17.25 m"},
-		{"inside the user range [12, 12.6] m", 12300, "limits.keep_out.ranges[0]", "range 12 m to 12.6 m"},
+		{"0.9 m right of the support at 20.5 m (keep-out 1 m)", 21400, "limits.keep_out.supports", "support at 20.5 m"},
+		{"exactly 1 m from the support: the zone is closed", 19500, "limits.keep_out.supports", "support at 20.5 m"},
+		{"0.35 m from the point load of G at 14.25 m (keep-out 0.4 m)", 14600, "limits.keep_out.point_loads", "point load of case G at 14.25 m"},
+		{"inside the user range [9.2, 10.6] m", 9900, "limits.keep_out.ranges[0]", "range 9.2 m to 10.6 m"},
 		{"2.5 m from the left end, min piece 3 m", 2500, "limits.min_piece_length", "left end"},
 	}
 	for _, tc := range tests {
@@ -133,8 +133,8 @@ func TestKeepOutReasons(t *testing.T) {
 	assert.Positive(t, c.Rank)
 }
 
-// TestInfeasiblePositionNamesTheCheck: a moment of 1500 kNm on the demo's IPE 550 is above
-// its plastic resistance Wpl,y fy = 2787 cm³ × 355 N/mm² ≈ 989 kNm (EN 10365 Wpl,y, from
+// TestInfeasiblePositionNamesTheCheck: a moment of 1500 kNm on the demo's IPE 450 is above
+// its plastic resistance Wpl,y fy = 1702 cm³ × 355 N/mm² ≈ 604 kNm (EN 10365 Wpl,y, from
 // memory), so no cover-plate splice can pass; the reason names the failing check and by how
 // much it fails.
 func TestInfeasiblePositionNamesTheCheck(t *testing.T) {

@@ -50,6 +50,7 @@ type Settings struct {
 	Workers      int     // positions sized at once; 0: GOMAXPROCS; the exhaustive run uses 1
 	Alternatives int     // 0: the job's scan.alternatives, else DefaultAlternatives; < 0: none
 	Rigging      float64 // rigging allowance added to every piece's mass [kg]; 0: the job's
+	Uniform      bool    // recommend the best layout of identical splices (also the job's scan.uniform)
 }
 
 // ChartIntervals is the number of intervals the envelopes of an Outcome are sampled at for
@@ -72,21 +73,16 @@ type Outcome struct {
 	Envelopes beam.Envelopes // the analysis at every key point and ChartIntervals intervals, or the table
 	Member    MemberChecks   // the beam's own checks on those envelopes
 
-	Candidates []Candidate
-	Stats      ScanStats
-	Layouts    LayoutResult  // empty when Infeasible is set
-	Chosen     []SpliceSheet // the recommended layout's splices, checked in full, left to right
-	Infeasible *LimitError   // the limit no layout can meet, when none can
-	Diagnosis  Diagnosis     // why no layout fits, when Infeasible is set; empty otherwise
-	Notes      []string
-}
-
-// Recommended returns the cheapest layout; the zero Layout when no layout fits (Infeasible).
-func (o *Outcome) Recommended() Layout {
-	if len(o.Layouts.ByCount) == 0 {
-		return Layout{}
-	}
-	return o.Layouts.ByCount[o.Layouts.Recommended]
+	Candidates  []Candidate
+	Stats       ScanStats
+	Layouts     LayoutResult  // empty when Infeasible is set
+	Identical   UniformResult // the best layouts of identical splices for each count (Run only)
+	UniformRule bool          // the recommendation is the best layout of identical splices
+	Pick        LayoutRef     // the recommended layout (see pick)
+	Chosen      []SpliceSheet // the recommended layout's splices, checked in full, left to right
+	Infeasible  *LimitError   // the limit no layout can meet, when none can
+	Diagnosis   Diagnosis     // why no layout fits, when Infeasible is set; empty otherwise
+	Notes       []string
 }
 
 // Gap is the gap between the beam ends at a splice [mm].
@@ -114,6 +110,11 @@ func Run(s *Setup, set Settings) (*Outcome, error) {
 	if o == nil || o.Infeasible != nil {
 		return o, err
 	}
+	if o.Identical, err = o.Uniform(); err != nil {
+		return nil, err
+	}
+	o.UniformRule = set.Uniform || s.Uniform
+	o.Pick = o.pick(o.UniformRule)
 	o.Chosen, err = o.Sheets(o.Recommended().Splices)
 	if err != nil {
 		return nil, err
@@ -179,6 +180,7 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 		return nil, err
 	}
 	o.Layouts = lr
+	o.Pick = o.pick(false)
 	return o, nil
 }
 

@@ -70,6 +70,7 @@ type Setup struct {
 
 	Step         float64 // candidate spacing [mm]
 	Alternatives int     // near-best alternative layouts
+	Uniform      bool    // recommend the best layout of identical splices (scan.uniform)
 
 	// Defaults lists the key paths the file leaves out, which took their default, sorted.
 	Defaults []string
@@ -216,6 +217,9 @@ func (s *Setup) transport() {
 		if sc.Alternatives != nil {
 			s.Alternatives = *sc.Alternatives
 		}
+		if sc.Uniform != nil {
+			s.Uniform = *sc.Uniform
+		}
 	}
 }
 
@@ -264,6 +268,7 @@ func defaultsOf(job *jobfile.Job) []string {
 	sc := job.Scan
 	given(sc != nil && sc.Step != nil, "scan.step")
 	given(sc != nil && sc.Alternatives != nil, "scan.alternatives")
+	given(sc != nil && sc.Uniform != nil, "scan.uniform")
 	slices.Sort(out)
 	return slices.Compact(out)
 }

@@ -58,10 +58,12 @@ func TestUniformNotCheaperThanMixed(t *testing.T) {
 	t.Logf("%d comparisons, %d dearer", held, dearer)
 }
 
-// TestUniformDemo: on the demo job at its default step every mixed layout uses one splice
-// design throughout, so the uniform layouts are the mixed ones — same positions, pieces,
-// vehicle, trips and cost — and the uniform design is that splice, with each splice verified
-// at its position (kind: regression against the mixed search).
+// TestUniformDemo: on the demo job at its default step the mixed layouts of one and two
+// splices use one splice design throughout, so their uniform layouts are the mixed ones —
+// same positions, pieces, vehicle, trips and cost — and the uniform design is that splice,
+// with each splice verified at its position; the three-splice mixed layout mixes designs
+// (a piece limit pushes one splice into the stronger region), so identical splices cost more
+// there (kind: regression against the mixed search).
 func TestUniformDemo(t *testing.T) {
 	o, err := Run(demoSetup(t), Settings{})
 	require.NoError(t, err)
@@ -70,12 +72,26 @@ func TestUniformDemo(t *testing.T) {
 	require.Len(t, u.ByCount, len(o.Layouts.ByCount))
 	require.Equal(t, o.Layouts.Recommended, u.Recommended)
 	p := o.layoutProblem()
+	same, mixedDesigns := 0, 0
 	for i, m := range o.Layouts.ByCount {
 		got := u.ByCount[i]
+		require.Len(t, got.Splices, len(m.Splices))
 		first := o.Candidates[p.Sites[m.Sites[0]].Candidate].Design
+		uniform := true
 		for _, s := range m.Sites {
-			require.True(t, sameDesign(first, o.Candidates[p.Sites[s].Candidate].Design), "the demo's mixed layouts are uniform")
+			uniform = uniform && sameDesign(first, o.Candidates[p.Sites[s].Candidate].Design)
 		}
+		if !uniform {
+			mixedDesigns++
+			require.Greater(t, got.Cost.Total, m.Cost.Total, "%d splices: identical splices cost more than mixed ones", len(m.Splices))
+			require.Len(t, got.Designs, len(got.Sites))
+			for _, ps := range got.Designs {
+				require.LessOrEqual(t, ps.Utilisation, 1.0)
+				require.Equal(t, got.Design.Summary, ps.Splice)
+			}
+			continue
+		}
+		same++
 		require.Equal(t, m.Sites, got.Sites)
 		require.Equal(t, m.Splices, got.Splices)
 		require.Equal(t, m.Pieces, got.Pieces)
@@ -100,7 +116,9 @@ func TestUniformDemo(t *testing.T) {
 			require.LessOrEqual(t, ps.Utilisation, d.Utilisation)
 		}
 	}
-	require.Less(t, u.Stats.Listed, 20, "the bounds stop after a few of the design space's splices")
+	require.Positive(t, same, "some counts are uniform already")
+	require.Positive(t, mixedDesigns, "the demo shows a count where identical splices cost more")
+	require.Less(t, u.Stats.Listed, 200, "the bounds stop after a few of the design space's splices")
 	require.Greater(t, u.Stats.Designs, 10000)
 }
 

@@ -39,7 +39,10 @@ func KeepOutRanges(res *optimise.Outcome) []Range {
 // LayoutsOf is the layout chart's input: the best layout for each splice count, with the
 // recommended one chosen.
 func LayoutsOf(res *optimise.Outcome, title, currency string) LayoutInput {
-	in := LayoutInput{Title: title, Chosen: res.Layouts.Recommended, Currency: currency}
+	in := LayoutInput{Title: title, Chosen: -1, Currency: currency}
+	if res.Pick.Kind == optimise.KindBest {
+		in.Chosen = res.Pick.Index
+	}
 	for _, l := range res.Layouts.ByCount {
 		in.Layouts = append(in.Layouts, layoutOf(l))
 	}

@@ -649,13 +649,7 @@ func (w *reportWriter) ranking() {
 	if n <= 0 {
 		n = 10
 	}
-	var best []optimise.Candidate
-	for _, c := range res.Candidates {
-		if c.Feasible && c.Rank > 0 && c.Rank <= n {
-			best = append(best, c)
-		}
-	}
-	slices.SortFunc(best, func(a, b optimise.Candidate) int { return a.Rank - b.Rank })
+	best := res.DistinctBest(n)
 	chosen := w.in.Outcome.Recommended().Splices
 	var rows [][]string
 	for _, c := range best {
@@ -667,7 +661,7 @@ func (w *reportWriter) ranking() {
 		d.para("None: no position admits a splice (see the reasons in scan.csv).")
 		return
 	}
-	d.heading(1, fmt.Sprintf("The %d best positions", len(rows)), 60)
+	d.heading(1, fmt.Sprintf("The %d best distinct positions (the best of each splice design over each stretch)", len(rows)), 60)
 	d.table(table{Columns: []column{{"rank", 0.6, true}, {"x [m]", 0.9, true}, {"cost", 0.8, true}, {"bolts", 0.7, true},
 		{"plates [kg]", 0.9, true}, {"util.", 0.7, true}, {"governing check", 2, false}, {"splice", 4.2, false}}, Rows: rows,
 		Highlight: func(i int) bool {
@@ -690,22 +684,47 @@ func (w *reportWriter) layouts() {
 		"mass limits, found by an exact search over the feasible candidates; transport takes the cheapest vehicle that " +
 		"carries the longest piece, with the fewest trips by mass.")
 	w.figure(w.findFigure("layouts"))
+	is := func(kind optimise.LayoutKind, i int) bool {
+		return res.IsRecommended(optimise.LayoutRef{Kind: kind, Index: i})
+	}
 	var rows [][]string
 	for i, l := range res.Layouts.ByCount {
-		rows = append(rows, layoutRow(l, i == res.Layouts.Recommended))
+		rows = append(rows, layoutRow(l, is(optimise.KindBest, i)))
 	}
 	cols := []column{{"splices", 0.8, true}, {"positions [m]", 2.6, false}, {"longest piece [m]", 1.1, true},
 		{"heaviest [kg]", 1, true}, {"vehicle × trips", 1.7, false}, {"splices", 0.9, true}, {"transport", 1.05, true},
 		{"erection", 0.95, true}, {"total [" + w.cur + "]", 1.1, true}}
 	d.heading(1, "Best layout for each number of splices", 60)
-	d.table(table{Columns: cols, Rows: rows, Highlight: func(i int) bool { return i == res.Layouts.Recommended }})
+	d.table(table{Columns: cols, Rows: rows, Highlight: func(i int) bool { return is(optimise.KindBest, i) }})
 	if len(res.Layouts.Alternatives) > 0 {
 		rows = nil
-		for _, l := range res.Layouts.Alternatives {
-			rows = append(rows, layoutRow(l, false))
+		for i, l := range res.Layouts.Alternatives {
+			rows = append(rows, layoutRow(l, is(optimise.KindAlternative, i)))
 		}
 		d.heading(1, "Near-best alternatives", 60)
-		d.table(table{Columns: cols, Rows: rows})
+		d.table(table{Columns: cols, Rows: rows, Highlight: func(i int) bool { return is(optimise.KindAlternative, i) }})
+	}
+	if len(res.Identical.ByCount) > 0 {
+		rows = nil
+		for i, u := range res.Identical.ByCount {
+			row := layoutRow(u.Layout, is(optimise.KindUniform, i))
+			extra, design := "–", "–"
+			for _, m := range res.Layouts.ByCount {
+				if len(m.Splices) == len(u.Splices) {
+					extra = fmt.Sprintf("%+.0f", u.Cost.Total-m.Cost.Total)
+				}
+			}
+			if len(u.Splices) > 0 {
+				design = u.Design.Summary
+			}
+			rows = append(rows, append(row, extra, design))
+		}
+		d.heading(1, "Identical splices: the best layout with one splice type", 60)
+		d.para("For each number of splices, the cheapest layout in which every splice is the same design: one drawing, one " +
+			"bolt list, no mix-ups on site. Found exactly over every design of the design space and every position where its " +
+			"checks pass; the last columns give the extra cost against the best mixed layout of the same count, and the design.")
+		ucols := append(append([]column{}, cols...), column{"against mixed", 0.9, true}, column{"splice", 3.5, false})
+		d.table(table{Columns: ucols, Rows: rows, Highlight: func(i int) bool { return is(optimise.KindUniform, i) }})
 	}
 	rec := res.Recommended()
 	d.heading(1, "Pieces of the recommended layout", 60)

@@ -212,8 +212,8 @@ func TestReportWithoutALayoutWritesTheDiagnosis(t *testing.T) {
 	assert.True(t, bytes.HasPrefix(pdf, []byte("%PDF-")))
 }
 
-// TestDesignInsideAKeepOutZone: the demo's support at 10.5 m with keep_out.supports 1.0 (job
-// data): at 10.2 m the sheet says so before the design forces, and the JSON names the zone.
+// TestDesignInsideAKeepOutZone: the demo's support at 20.5 m with keep_out.supports 1.0 (job
+// data): at 20.2 m the sheet says so before the design forces, and the JSON names the zone.
 func TestDesignInsideAKeepOutZone(t *testing.T) {
 	dir := t.TempDir()
 	job := filepath.Join(dir, "demo.yaml")
@@ -226,9 +226,9 @@ func TestDesignInsideAKeepOutZone(t *testing.T) {
 		}
 		return out.String()
 	}
-	text := run(10.2, "text")
-	note := strings.Index(text, "\nNOTE: x = 10.200 m is inside a keep-out zone, 9.500 to 11.500 m: "+
-		"keep-out: 1 m each side of the support at 10.5 m (limits.keep_out.supports)")
+	text := run(20.2, "text")
+	note := strings.Index(text, "\nNOTE: x = 20.200 m is inside a keep-out zone, 19.500 to 21.500 m: "+
+		"keep-out: 1 m each side of the support at 20.5 m (limits.keep_out.supports)")
 	forces := strings.Index(text, "\nDesign forces\n")
 	require.True(t, note > 0 && forces > note, "the note comes before the design forces:\n%s", text)
 	assert.Contains(t, text, "\nChecks\n", "the design still runs")
@@ -242,11 +242,11 @@ func TestDesignInsideAKeepOutZone(t *testing.T) {
 		} `json:"keep_out"`
 		Checks []json.RawMessage `json:"checks"`
 	}
-	require.NoError(t, json.Unmarshal([]byte(run(10.2, "json")), &doc))
+	require.NoError(t, json.Unmarshal([]byte(run(20.2, "json")), &doc))
 	require.NotNil(t, doc.KeepOut)
-	assert.Equal(t, "keep-out: 1 m each side of the support at 10.5 m", doc.KeepOut.Reason)
+	assert.Equal(t, "keep-out: 1 m each side of the support at 20.5 m", doc.KeepOut.Reason)
 	assert.Equal(t, "limits.keep_out.supports", doc.KeepOut.Key)
-	assert.Equal(t, [2]float64{9.5, 11.5}, [2]float64{doc.KeepOut.From, doc.KeepOut.To})
+	assert.Equal(t, [2]float64{19.5, 21.5}, [2]float64{doc.KeepOut.From, doc.KeepOut.To})
 	assert.NotEmpty(t, doc.Checks)
 
 	var raw map[string]json.RawMessage

@@ -30,6 +30,7 @@ type optimiseOptions struct {
 	Out        string   // folder to write the results into as files; "" for none
 	Force      bool     // replace files already in Out
 	Jobs       int      // jobs optimised at once in a batch; 0: one per CPU
+	Uniform    bool     // recommend the best layout of identical splices
 }
 
 func newOptimiseCommand(run func(optimiseOptions, streams) error, ios streams) *cobra.Command {
@@ -64,6 +65,7 @@ the limit that cannot be met with the figure that breaks it.`,
 	f.StringVar(&opts.Out, "out", "", "also write the results as files into this folder")
 	f.BoolVar(&opts.Force, "force", false, "replace files already in the --out folder")
 	f.IntVar(&opts.Jobs, "jobs", 0, "jobs optimised at once in a batch (default: one per CPU)")
+	f.BoolVar(&opts.Uniform, "uniform", false, "recommend the best layout of identical splices (one splice type)")
 	return cmd
 }
 
@@ -84,7 +86,7 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 	if opts.Jobs < 0 {
 		return usageError(fmt.Errorf("--jobs %d: want a positive number", opts.Jobs))
 	}
-	set := optimise.Settings{Step: opts.Step * 1e3, Rank: rank, Exhaustive: opts.Exhaustive}
+	set := optimise.Settings{Step: opts.Step * 1e3, Rank: rank, Exhaustive: opts.Exhaustive, Uniform: opts.Uniform}
 	if opts.Demo {
 		return optimiseOne(opts, set, "", stdout)
 	}

@@ -47,7 +47,7 @@ func TestOptimiseDemoText(t *testing.T) {
 	cautionAt := strings.Index(out, "CAUTION")
 	require.True(t, rec > 0 && table > rec && summary > table && cautionAt > summary,
 		"recommendation, then the layouts, then the candidate summary, then the caution:\n%s", out)
-	for _, want := range []string{"demo.yaml (embedded, invented data)", "IPE 550", "semi-trailer", "governing check",
+	for _, want := range []string{"demo.yaml (embedded, invented data)", "IPE 450", "semi-trailer", "governing check",
 		"<- recommended", "Near-best alternatives", "Best positions by cost", "keep-out zones"} {
 		assert.Contains(t, out, want)
 	}

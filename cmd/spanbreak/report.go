@@ -22,6 +22,7 @@ type reportOptions struct {
 	Out     string  // folder to write
 	Force   bool    // replace Out if it exists
 	Step    float64 // candidate spacing [m]; 0 takes the job's scan.step
+	Uniform bool    // recommend the best layout of identical splices
 }
 
 func newReportCommand(run func(reportOptions, streams) error, ios streams) *cobra.Command {
@@ -53,6 +54,7 @@ optimise document with its diagnosis; scan.csv as always; layouts.csv has its he
 	f.StringVar(&opts.Out, "out", "", "folder to write the report into (required; written complete or not at all)")
 	f.BoolVar(&opts.Force, "force", false, "replace the folder if it exists")
 	f.Float64Var(&opts.Step, "step", 0, "candidate spacing along the beam [m] (default: the job's scan.step)")
+	f.BoolVar(&opts.Uniform, "uniform", false, "recommend the best layout of identical splices (one splice type)")
 	return cmd
 }
 
@@ -81,7 +83,7 @@ func runReport(opts reportOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	res, runErr := optimise.Run(setup, optimise.Settings{Step: opts.Step * 1e3})
+	res, runErr := optimise.Run(setup, optimise.Settings{Step: opts.Step * 1e3, Uniform: opts.Uniform})
 	var inf *optimise.InfeasibleError
 	if runErr != nil && !errors.As(runErr, &inf) {
 		return runErr

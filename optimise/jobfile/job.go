@@ -534,4 +534,5 @@ type Scan struct {
 	Meta
 	Step         *Metres `yaml:"step"`         // spacing of candidate positions
 	Alternatives *int    `yaml:"alternatives"` // near-best layouts to report
+	Uniform      *bool   `yaml:"uniform"`      // recommend the best layout of identical splices
 }

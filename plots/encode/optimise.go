@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"sort"
 	"strconv"
 	"strings"
 
@@ -83,13 +82,33 @@ type CostDoc struct {
 
 // LayoutDoc is one layout: where the splices go, the pieces, the vehicle and the cost.
 type LayoutDoc struct {
-	Kind        string     `json:"kind"` // "best" for its splice count, or "alternative"
-	Recommended bool       `json:"recommended"`
-	Splices     []Num      `json:"splices"`
-	Pieces      []PieceDoc `json:"pieces"`
-	Vehicle     *string    `json:"vehicle"`
-	Trips       int        `json:"trips"`
-	Cost        CostDoc    `json:"cost"`
+	Kind        string      `json:"kind"` // "best" for its splice count, "alternative", or "uniform" (identical splices)
+	Recommended bool        `json:"recommended"`
+	Splices     []Num       `json:"splices"`
+	Pieces      []PieceDoc  `json:"pieces"`
+	Vehicle     *string     `json:"vehicle"`
+	Trips       int         `json:"trips"`
+	Cost        CostDoc     `json:"cost"`
+	Designs     []DesignRef `json:"designs"`
+}
+
+// DesignRef is one splice of a layout at its position: what it is and how hard it works.
+type DesignRef struct {
+	X           Num    `json:"x"`
+	Splice      string `json:"splice"`
+	Cost        Num    `json:"cost"`
+	Bolts       int    `json:"bolts"`
+	Utilisation Num    `json:"utilisation"`
+	Governing   string `json:"governing"`
+}
+
+func designRefs(ps []optimise.PlacedSplice) []DesignRef {
+	out := []DesignRef{}
+	for _, p := range ps {
+		out = append(out, DesignRef{X: Num(p.X * ToM), Splice: p.Splice, Cost: Num(p.Cost), Bolts: p.Bolts,
+			Utilisation: Num(p.Utilisation), Governing: p.Governing})
+	}
+	return out
 }
 
 // OptimiseDoc is the JSON document of optimise (DESIGN.md section 7).
@@ -197,11 +216,19 @@ func layoutDoc(l optimise.Layout, kind string, recommended bool) LayoutDoc {
 
 func layoutDocs(r *optimise.Outcome) []LayoutDoc {
 	out := []LayoutDoc{}
-	for i, l := range r.Layouts.ByCount {
-		out = append(out, layoutDoc(l, "best", i == r.Layouts.Recommended))
+	add := func(kind optimise.LayoutKind, i int, l optimise.Layout, ps []optimise.PlacedSplice) {
+		d := layoutDoc(l, string(kind), r.IsRecommended(optimise.LayoutRef{Kind: kind, Index: i}))
+		d.Designs = designRefs(ps)
+		out = append(out, d)
 	}
-	for _, l := range r.Layouts.Alternatives {
-		out = append(out, layoutDoc(l, "alternative", false))
+	for i, l := range r.Layouts.ByCount {
+		add(optimise.KindBest, i, l, r.PlacedSplices(l))
+	}
+	for i, l := range r.Layouts.Alternatives {
+		add(optimise.KindAlternative, i, l, r.PlacedSplices(l))
+	}
+	for i, u := range r.Identical.ByCount {
+		add(optimise.KindUniform, i, u.Layout, u.Designs)
 	}
 	return out
 }
@@ -257,7 +284,8 @@ func Batch(outcomes []optimise.BatchOutcome) BatchDoc {
 				j.Diagnosis = Diagnosis(o.Outcome.Diagnosis)
 			}
 		} else {
-			j.Best = ptr(layoutDoc(o.Outcome.Recommended(), "best", true))
+			j.Best = ptr(layoutDoc(o.Outcome.Recommended(), string(o.Outcome.Pick.Kind), true))
+			j.Best.Designs = designRefs(o.Outcome.PlacedSplices(o.Outcome.Recommended()))
 		}
 		jobs = append(jobs, j)
 	}
@@ -329,7 +357,7 @@ func WriteBatchCSV(w io.Writer, outcomes []optimise.BatchOutcome) error {
 			rows = append(rows, row)
 			continue
 		}
-		j := layoutDoc(o.Outcome.Recommended(), "best", true)
+		j := layoutDoc(o.Outcome.Recommended(), string(o.Outcome.Pick.Kind), true)
 		rows = append(rows, append(append([]string{o.File, o.Title}, layoutCSVRow(j)...), ""))
 	}
 	return WriteCSV(w, append(layoutCSVHeader("file", "title"), "error"), rows)
@@ -438,6 +466,12 @@ func writeRecommendation(w io.Writer, r *optimise.Outcome) {
 	fmt.Fprintf(w, ", %d piece(s), %s; total %s\n", len(best.Pieces), vehicleText(best), money(best.Cost.Total))
 	fmt.Fprintf(w, "  cost: splices %s + transport %s + erection %s = %s\n", money(best.Cost.Splices),
 		money(best.Cost.Transport), money(best.Cost.Erection), money(best.Cost.Total))
+	if why := recommendationRule(r); why != "" {
+		fmt.Fprintf(w, "  %s\n", why)
+	}
+	if cmp := uniformComparison(r); cmp != "" {
+		fmt.Fprintf(w, "  %s\n", cmp)
+	}
 	tw := Table(w)
 	fmt.Fprintln(tw, "  piece\tfrom [m]\tto [m]\tlength [m]\tmass [kg]\tof which splice [kg]")
 	for i, p := range best.Pieces {
@@ -487,24 +521,115 @@ func writeLayoutTable(w io.Writer, r *optimise.Outcome) {
 	fmt.Fprintln(w, "Best layout for each number of splices")
 	tw := Table(w)
 	fmt.Fprintln(tw, header)
-	for i, l := range r.Layouts.ByCount {
-		mark := ""
-		if i == r.Layouts.Recommended {
-			mark = "<- recommended"
+	mark := func(kind optimise.LayoutKind, i int) string {
+		if r.IsRecommended(optimise.LayoutRef{Kind: kind, Index: i}) {
+			return "<- recommended"
 		}
-		row(tw, l, mark)
+		return ""
+	}
+	for i, l := range r.Layouts.ByCount {
+		row(tw, l, mark(optimise.KindBest, i))
 	}
 	tw.Flush()
 	if len(r.Layouts.Alternatives) > 0 {
 		fmt.Fprintln(w, "\nNear-best alternatives (each moves a splice to another stretch or splice design)")
 		tw = Table(w)
 		fmt.Fprintln(tw, header)
-		for _, l := range r.Layouts.Alternatives {
-			row(tw, l, "")
+		for i, l := range r.Layouts.Alternatives {
+			row(tw, l, mark(optimise.KindAlternative, i))
+		}
+		tw.Flush()
+	}
+	if len(r.Identical.ByCount) > 0 {
+		fmt.Fprintln(w, "\nBest layout of identical splices for each number of splices (one splice type: one drawing, one bolt list)")
+		tw = Table(w)
+		fmt.Fprintln(tw, header+"against mixed\tsplice\t")
+		for i, u := range r.Identical.ByCount {
+			extra := "-"
+			if m, ok := mixedOfCount(r, len(u.Splices)); ok {
+				extra = signedMoney(u.Cost.Total - m.Cost.Total)
+			}
+			design := "-"
+			if len(u.Splices) > 0 {
+				design = u.Design.Summary
+			}
+			var ls []string
+			for _, p := range u.Pieces {
+				ls = append(ls, fmt.Sprintf("%.2f", p.Length*ToM))
+			}
+			vehicle := u.Vehicle
+			if vehicle == "" {
+				vehicle = "-"
+			}
+			fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", len(u.Splices), positions(u.Splices), strings.Join(ls, " / "),
+				vehicle, u.Trips, money(u.Cost.Splices), money(u.Cost.Transport), money(u.Cost.Erection), money(u.Cost.Total),
+				extra, design, mark(optimise.KindUniform, i))
 		}
 		tw.Flush()
 	}
 	fmt.Fprintln(w)
+}
+
+// mixedOfCount is the best mixed layout with n splices.
+func mixedOfCount(r *optimise.Outcome, n int) (optimise.Layout, bool) {
+	for _, l := range r.Layouts.ByCount {
+		if len(l.Splices) == n {
+			return l, true
+		}
+	}
+	return optimise.Layout{}, false
+}
+
+// signedMoney prints a cost difference with its sign.
+func signedMoney(v float64) string { return fmt.Sprintf("%+.2f", Clean(v)) }
+
+// uniformComparison compares the recommended layout with the best of identical splices of the
+// same count, e.g. "identical splices: +38.20, one splice type (M20 10.9; ...)".
+func uniformComparison(r *optimise.Outcome) string {
+	rec := r.Recommended()
+	if r.Pick.Kind == optimise.KindUniform {
+		if m, ok := mixedOfCount(r, len(rec.Splices)); ok && len(rec.Splices) > 0 {
+			return fmt.Sprintf("identical splices by the rule of the job or --uniform: %s against the best mixed layout of %d splice(s) (%s)",
+				signedMoney(rec.Cost.Total-m.Cost.Total), len(rec.Splices), money(m.Cost.Total))
+		}
+		return ""
+	}
+	for _, u := range r.Identical.ByCount {
+		if len(u.Splices) != len(rec.Splices) || len(u.Splices) == 0 {
+			continue
+		}
+		d := u.Cost.Total - rec.Cost.Total
+		if math.Abs(d) < 0.005 && sameSplices(u.Splices, rec.Splices) {
+			return "identical splices: the recommended layout already uses one splice type"
+		}
+		return fmt.Sprintf("identical splices: %s, one splice type (%s), at %s m", signedMoney(d), u.Design.Summary, positions(u.Splices))
+	}
+	return ""
+}
+
+func sameSplices(a, b []float64) bool {
+	if len(a) != len(b) {
+		return false
+	}
+	for i := range a {
+		if a[i] != b[i] {
+			return false
+		}
+	}
+	return true
+}
+
+// recommendationRule says why the recommended layout is not simply the cheapest.
+func recommendationRule(r *optimise.Outcome) string {
+	switch {
+	case r.Pick.Kind == optimise.KindUniform:
+		return "recommended: the cheapest layout of identical splices (scan.uniform or --uniform)"
+	case r.Rank != optimise.RankCost && r.Rank != "":
+		return fmt.Sprintf("recommended by %s (--rank): the listed layout with the %s, cost breaking ties", r.Rank,
+			map[optimise.Rank]string{optimise.RankBolts: "fewest bolts", optimise.RankMass: "least plate mass",
+				optimise.RankUtilisation: "lowest highest utilisation (most reserve)"}[r.Rank])
+	}
+	return ""
 }
 
 // writeCandidateSummary lists the admissible stretches with their cheapest position, and the
@@ -532,17 +657,8 @@ func writeCandidateSummary(w io.Writer, r *optimise.Outcome) {
 		i = j
 	}
 	tw.Flush()
-	var ranked []optimise.Candidate
-	for _, c := range cs {
-		if c.Feasible {
-			ranked = append(ranked, c)
-		}
-	}
-	sort.SliceStable(ranked, func(a, b int) bool { return ranked[a].Rank < ranked[b].Rank })
-	if len(ranked) > 5 {
-		ranked = ranked[:5]
-	}
-	fmt.Fprintf(w, "\nBest positions by %s\n", r.Rank)
+	ranked := r.DistinctBest(5)
+	fmt.Fprintf(w, "\nBest positions by %s (the best of each splice design over each stretch)\n", r.Rank)
 	tw = Table(w)
 	fmt.Fprintln(tw, "rank\tat [m]\tcost\tbolts\tplates [kg]\tutilisation\tsplice")
 	for _, c := range ranked {
