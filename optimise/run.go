@@ -9,6 +9,7 @@ import (
 
 	"spanbreak/beam"
 	"spanbreak/optimise/jobfile"
+	"spanbreak/splice"
 )
 
 // Rank is the measure candidates are ranked by, and the tie-break of equal-cost layouts.
@@ -51,6 +52,9 @@ type Settings struct {
 	Alternatives int     // 0: the job's scan.alternatives, else DefaultAlternatives; < 0: none
 	Rigging      float64 // rigging allowance added to every piece's mass [kg]; 0: the job's
 	Uniform      bool    // recommend the best layout of identical splices (also the job's scan.uniform)
+	// Fixed, when set, is the one splice checked at every position (optimise --splice): the
+	// layouts use only it, and a position is feasible where all its checks pass.
+	Fixed *splice.Geometry
 }
 
 // ChartIntervals is the number of intervals the envelopes of an Outcome are sampled at for
@@ -75,13 +79,14 @@ type Outcome struct {
 
 	Candidates  []Candidate
 	Stats       ScanStats
-	Layouts     LayoutResult  // empty when Infeasible is set
-	Identical   UniformResult // the best layouts of identical splices for each count (Run only)
-	UniformRule bool          // the recommendation is the best layout of identical splices
-	Pick        LayoutRef     // the recommended layout (see pick)
-	Chosen      []SpliceSheet // the recommended layout's splices, checked in full, left to right
-	Infeasible  *LimitError   // the limit no layout can meet, when none can
-	Diagnosis   Diagnosis     // why no layout fits, when Infeasible is set; empty otherwise
+	Layouts     LayoutResult     // empty when Infeasible is set
+	Identical   UniformResult    // the best layouts of identical splices for each count (Run only)
+	UniformRule bool             // the recommendation is the best layout of identical splices
+	Fixed       *splice.Geometry // the one splice checked along the beam (optimise --splice); nil when sized
+	Pick        LayoutRef        // the recommended layout (see pick)
+	Chosen      []SpliceSheet    // the recommended layout's splices, checked in full, left to right
+	Infeasible  *LimitError      // the limit no layout can meet, when none can
+	Diagnosis   Diagnosis        // why no layout fits, when Infeasible is set; empty otherwise
 	Notes       []string
 }
 
@@ -106,12 +111,17 @@ func (e *InfeasibleError) Unwrap() error { return e.Limit }
 // and checks the recommended layout's splices in full. When no layout satisfies the limits
 // it returns the outcome without layouts together with an *InfeasibleError.
 func Run(s *Setup, set Settings) (*Outcome, error) {
-	o, err := Optimise(s, s.NewSpliceDesigner(set.Exhaustive), set)
+	d := s.NewSpliceDesigner(set.Exhaustive)
+	d.Fixed = set.Fixed
+	o, err := Optimise(s, d, set)
 	if o == nil || o.Infeasible != nil {
 		return o, err
 	}
-	if o.Identical, err = o.Uniform(); err != nil {
-		return nil, err
+	o.Fixed = set.Fixed
+	if o.Fixed == nil { // with one fixed splice every layout is of identical splices already
+		if o.Identical, err = o.Uniform(); err != nil {
+			return nil, err
+		}
 	}
 	o.UniformRule = set.Uniform || s.Uniform
 	o.Pick = o.pick(o.UniformRule)

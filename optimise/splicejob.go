@@ -152,6 +152,9 @@ func deref(p *float64) float64 {
 type SpliceDesigner struct {
 	Problem    splice.Problem // without forces
 	Exhaustive bool
+	// Fixed, when set, is the one splice checked at every position instead of sizing one:
+	// a position is feasible where all its checks pass.
+	Fixed *splice.Geometry
 	// Tf, Tw are the beam's flange and web thicknesses [mm], for the bolt grip.
 	Tf, Tw float64
 }
@@ -169,22 +172,30 @@ func (d *SpliceDesigner) Design(f PositionForces) (SpliceDesign, error) {
 	p.SLS = &sls
 	var r splice.Result
 	var err error
-	if d.Exhaustive {
+	switch {
+	case d.Fixed != nil:
+		r, err = splice.Verify(p, *d.Fixed)
+	case d.Exhaustive:
 		r, err = splice.SizeExhaustive(p)
-	} else {
+	default:
 		r, err = splice.Size(p)
 	}
 	if err != nil {
 		return SpliceDesign{}, err
 	}
 	out := SpliceDesign{
-		Feasible:    r.Status == splice.Sized && r.Pass,
+		Feasible:    r.Pass && (d.Fixed != nil || r.Status == splice.Sized),
 		Utilisation: r.Utilisation,
 		Governing:   r.Governing.ID,
 		Summary:     summary(r.Geometry),
 		Geometry:    r.Geometry,
 	}
 	if !out.Feasible {
+		if d.Fixed != nil {
+			out.Reason = fmt.Sprintf("the fixed splice fails %s (%s) at utilisation %.3f, %.1f %% over",
+				r.Governing.ID, r.Governing.Clause, r.Utilisation, 100*(r.Utilisation-1))
+			return out, nil
+		}
 		out.Reason = fmt.Sprintf("no splice passes: the closest (%s) fails %s (%s) at utilisation %.3f, %.1f %% over",
 			out.Summary, r.Governing.ID, r.Governing.Clause, r.Utilisation, 100*(r.Utilisation-1))
 		return out, nil

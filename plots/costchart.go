@@ -36,6 +36,9 @@ type ScanInput struct {
 	Chosen   []float64   // splice positions of the chosen layout [mm]
 	Best     int         // how many of the best-ranked positions to mark; 0 means 5
 	Currency string      // cost unit shown on the axis, e.g. "EUR"; empty: "cost units"
+	// ShowFailing draws, on the utilisation chart, the positions where the splice was checked
+	// and fails (utilisation above 1) too: the utilisation of one fixed splice along the beam.
+	ShowFailing bool
 }
 
 // Gap is a run of candidate positions where no splice may go, as the charts shade it.
@@ -432,7 +435,7 @@ func UtilisationChart(in ScanInput) (*Chart, error) {
 	byFamily := map[string]*pointLabels{}
 	var us []float64
 	for _, p := range in.Points {
-		if !p.Feasible {
+		if !p.Feasible && !(in.ShowFailing && !p.KeepOut && p.Utilisation > 0) {
 			continue
 		}
 		f := checkFamily(p.Governing)

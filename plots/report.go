@@ -118,6 +118,9 @@ func (r *Report) build(in ReportInput) error {
 		return err
 	}
 	scan.Title = "Utilisation of the cheapest splice at each candidate position"
+	if res.Fixed != nil {
+		scan.Title, scan.ShowFailing = "Utilisation of the fixed splice along the beam", true
+	}
 	util, err := UtilisationChart(scan)
 	if err != nil {
 		return err

@@ -83,11 +83,7 @@ func runDesign(opts designOptions, ios streams) error {
 	}
 	var fixed *splice.Geometry
 	if opts.SpliceFile != "" {
-		data, err := readInput(opts.SpliceFile)
-		if err != nil {
-			return err
-		}
-		g, err := optimise.LoadSpliceFile(opts.SpliceFile, data)
+		g, err := loadSplice(opts.SpliceFile)
 		if err != nil {
 			return err
 		}

@@ -6,6 +6,7 @@ import (
 	"os"
 
 	"spanbreak/optimise"
+	"spanbreak/splice"
 )
 
 // maxInputBytes bounds every input file read (job and splice files are a few kB).
@@ -38,4 +39,13 @@ func loadSetup(path string, demo bool) (*optimise.Setup, error) {
 		return nil, err
 	}
 	return optimise.Prepare(path, data)
+}
+
+// loadSplice reads a splice file (--splice) into a splice geometry.
+func loadSplice(path string) (splice.Geometry, error) {
+	data, err := readInput(path)
+	if err != nil {
+		return splice.Geometry{}, err
+	}
+	return optimise.LoadSpliceFile(path, data)
 }

@@ -31,6 +31,7 @@ type optimiseOptions struct {
 	Force      bool     // replace files already in Out
 	Jobs       int      // jobs optimised at once in a batch; 0: one per CPU
 	Uniform    bool     // recommend the best layout of identical splices
+	SpliceFile string   // check this one splice at every position instead of sizing one
 }
 
 func newOptimiseCommand(run func(optimiseOptions, streams) error, ios streams) *cobra.Command {
@@ -66,6 +67,7 @@ the limit that cannot be met with the figure that breaks it.`,
 	f.BoolVar(&opts.Force, "force", false, "replace files already in the --out folder")
 	f.IntVar(&opts.Jobs, "jobs", 0, "jobs optimised at once in a batch (default: one per CPU)")
 	f.BoolVar(&opts.Uniform, "uniform", false, "recommend the best layout of identical splices (one splice type)")
+	f.StringVar(&opts.SpliceFile, "splice", "", "check this splice file at every position instead of sizing one")
 	return cmd
 }
 
@@ -87,6 +89,13 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 		return usageError(fmt.Errorf("--jobs %d: want a positive number", opts.Jobs))
 	}
 	set := optimise.Settings{Step: opts.Step * 1e3, Rank: rank, Exhaustive: opts.Exhaustive, Uniform: opts.Uniform}
+	if opts.SpliceFile != "" {
+		g, err := loadSplice(opts.SpliceFile)
+		if err != nil {
+			return err
+		}
+		set.Fixed = &g
+	}
 	if opts.Demo {
 		return optimiseOne(opts, set, "", stdout)
 	}

@@ -23,6 +23,7 @@ type reportOptions struct {
 	Force   bool    // replace Out if it exists
 	Step    float64 // candidate spacing [m]; 0 takes the job's scan.step
 	Uniform bool    // recommend the best layout of identical splices
+	Splice  string  // check this one splice at every position instead of sizing one
 }
 
 func newReportCommand(run func(reportOptions, streams) error, ios streams) *cobra.Command {
@@ -55,6 +56,7 @@ optimise document with its diagnosis; scan.csv as always; layouts.csv has its he
 	f.BoolVar(&opts.Force, "force", false, "replace the folder if it exists")
 	f.Float64Var(&opts.Step, "step", 0, "candidate spacing along the beam [m] (default: the job's scan.step)")
 	f.BoolVar(&opts.Uniform, "uniform", false, "recommend the best layout of identical splices (one splice type)")
+	f.StringVar(&opts.Splice, "splice", "", "check this splice file at every position instead of sizing one")
 	return cmd
 }
 
@@ -83,7 +85,15 @@ func runReport(opts reportOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	res, runErr := optimise.Run(setup, optimise.Settings{Step: opts.Step * 1e3, Uniform: opts.Uniform})
+	set := optimise.Settings{Step: opts.Step * 1e3, Uniform: opts.Uniform}
+	if opts.Splice != "" {
+		g, err := loadSplice(opts.Splice)
+		if err != nil {
+			return err
+		}
+		set.Fixed = &g
+	}
+	res, runErr := optimise.Run(setup, set)
 	var inf *optimise.InfeasibleError
 	if runErr != nil && !errors.As(runErr, &inf) {
 		return runErr

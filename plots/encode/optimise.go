@@ -423,6 +423,9 @@ func WriteOptimiseText(w io.Writer, r *optimise.Outcome) {
 			kept++
 		}
 	}
+	if r.Fixed != nil {
+		fmt.Fprintf(w, "Splice:   fixed, checked at every position (no sizing): %s\n", SpliceWords(*r.Fixed))
+	}
 	fmt.Fprintf(w, "Scan:     every %.3f m, %d positions: %d admissible, %d in keep-out zones, %d where no splice passes; lift %s per piece\n\n",
 		r.Step*ToM, len(r.Candidates), feasible, kept, len(r.Candidates)-feasible-kept, money(r.Setup.Lift))
 	for _, s := range r.Member.Warnings() {
