@@ -138,6 +138,7 @@ func Prepare(file string, data []byte) (*Setup, error) {
 	if err != nil {
 		return nil, err
 	}
+	sp.Minimum = s.minimumForces()
 	s.Splice = sp
 	s.PlateGrade, s.Rates = sp.PlateSteel.Name, sp.Rates
 	if job.Forces != nil {
@@ -254,7 +255,7 @@ func defaultsOf(job *jobfile.Job) []string {
 	}
 	o := job.Splice
 	for _, k := range []string{"category", "distribution", "gap", "bolts.sizes", "bolts.classes", "plates.grade",
-		"plates.thicknesses", "flange_plates"} {
+		"plates.thicknesses", "flange_plates", "minimum_forces"} {
 		given(o != nil && o.Has(k), "splice."+k)
 	}
 	if c := job.Costs; given(c != nil, "costs") {
@@ -298,4 +299,22 @@ func (s *Setup) readTable() (*forcetable.Table, error) {
 		opt.SLSReason = "splice.category B is checked for slip at SLS (EN 1993-1-8 Table 3.2, 3.9)"
 	}
 	return forcetable.ReadFile(path, opt)
+}
+
+// minimumForces resolves splice.minimum_forces against the beam's own resistances: Mc,Rd in
+// the class the section has in pure bending (EN 1993-1-1 6.2.5, Table 5.2), Vc,Rd (6.2.6)
+// and Npl,Rd (6.2.3, 6.2.4).
+func (s *Setup) minimumForces() splice.MinimumAction {
+	o := s.job.Splice
+	if o == nil || o.MinimumForces == nil {
+		return splice.MinimumAction{}
+	}
+	m := s.Member
+	mc := m.MplRd
+	if m.Classify(m.MplRd, 0).Class > beam.Class2 {
+		mc = m.MelRd
+	}
+	f := o.MinimumForces
+	return splice.MinimumAction{MomentFraction: deref(f.Moment), ShearFraction: deref(f.Shear), AxialFraction: deref(f.Axial),
+		McRd: mc, VcRd: m.VplRd, NplRd: m.NplRd}
 }

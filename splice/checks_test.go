@@ -255,7 +255,31 @@ func TestMinimumAction(t *testing.T) {
 	assert.InEpsilon(t, 0.25*2194e3*355, a.ULS.MMax, 1e-12)
 	assert.InEpsilon(t, -0.25*2194e3*355, a.ULS.MMin, 1e-12)
 	assert.InEpsilon(t, 0.2*5985.2*355/math.Sqrt(3), a.ULS.V, 1e-9)
-	assert.Contains(t, a.MinimumNote, "user policy")
+	assert.Contains(t, a.MinimumNote, "splice.minimum_forces")
+	assert.Contains(t, a.MinimumNote, "M_max raised to +194.7 kNm")
+}
+
+// TestMinimumForcesKeepTheSign: each extreme is raised in magnitude with its own sign — an
+// envelope that only hogs at the position (M_max = −19, M_min = −160 kNm) is raised to
+// −0.5·Mc,Rd for both (Mc,Rd given as 800 kNm), not turned into sagging; the axial force is
+// raised to 0.1·Npl,Rd = 0.1 × 4000 kN in tension (N_max = 0 counts as tension) and in
+// compression (N_min = 0 counts as compression); |V| is kept where it exceeds 0.2·Vc,Rd.
+func TestMinimumForcesKeepTheSign(t *testing.T) {
+	m := member(t, "IPE 500", steelS355())
+	rule := MinimumAction{MomentFraction: 0.5, ShearFraction: 0.2, AxialFraction: 0.1, McRd: knm(800), VcRd: kn(1000), NplRd: kn(4000)}
+	a := designActions(m, Forces{MMax: knm(-19), MMin: knm(-160), V: kn(250)}, nil, Proportional, rule, DefaultPartialFactors(), false)
+	assert.InEpsilon(t, knm(-400), a.ULS.MMax, 1e-12)
+	assert.InEpsilon(t, knm(-400), a.ULS.MMin, 1e-12)
+	assert.InEpsilon(t, kn(250), a.ULS.V, 1e-12, "above 0.2 × 1000 kN: kept")
+	assert.InEpsilon(t, kn(400), a.ULS.NMax, 1e-12)
+	assert.InEpsilon(t, kn(-400), a.ULS.NMin, 1e-12)
+	assert.Contains(t, a.MinimumNote, "M_max raised to -400.0 kNm")
+	assert.NotContains(t, a.MinimumNote, "|V|")
+	// an envelope above every minimum is left alone, and nothing is said
+	a = designActions(m, Forces{MMax: knm(500), MMin: knm(-450), V: kn(300), NMax: kn(500), NMin: kn(-500)}, nil, Proportional, rule,
+		DefaultPartialFactors(), false)
+	assert.Empty(t, a.MinimumNote)
+	assert.InEpsilon(t, knm(500), a.ULS.MMax, 1e-12)
 }
 
 // TestWebBoltGroup: the elastic distribution for 2 columns × 3 rows at 80 × 90 mm, e = 5 + 50 + 40.

@@ -457,6 +457,16 @@ type SpliceOptions struct {
 	FlangePlates  []string      `yaml:"flange_plates"` // FlangeOuter, FlangeOuterInner
 	Distribution  string        `yaml:"distribution"`  // DistributionProportional or DistributionFlangesOnly
 	Gap           *Millimetres  `yaml:"gap"`           // between the beam ends
+	MinimumForces *MinimumForces `yaml:"minimum_forces"` // design forces at least these fractions of the beam's resistances
+}
+
+// MinimumForces are fractions of the beam's own Mc,Rd, Vc,Rd and Npl,Rd that the design
+// forces of every splice must reach.
+type MinimumForces struct {
+	Meta
+	Moment *float64 `yaml:"moment"`
+	Shear  *float64 `yaml:"shear"`
+	Axial  *float64 `yaml:"axial"`
 }
 
 // BoltOptions lists the bolt sizes ("M20") and property classes ("8.8") to try.

@@ -475,6 +475,16 @@ func (c *checker) spliceOptions(s *SpliceOptions) {
 	c.enum(s.Meta, "friction_class", "friction class", s.FrictionClass, FrictionClasses())
 	c.enum(s.Meta, "distribution", "force distribution", s.Distribution,
 		[]string{DistributionProportional, DistributionFlangesOnly})
+	if m := s.MinimumForces; m != nil {
+		for _, f := range []struct {
+			key string
+			v   *float64
+		}{{"moment", m.Moment}, {"shear", m.Shear}, {"axial", m.Axial}} {
+			if f.v != nil && !(*f.v >= 0 && *f.v <= 1) {
+				c.add(m.Where(f.key), "minimum_forces.%s: %g is not a fraction of the resistance between 0 and 1", f.key, *f.v)
+			}
+		}
+	}
 	if b := s.Bolts; b != nil {
 		list(c, b.Meta, "sizes", "bolt sizes", b.Sizes, c.boltSize)
 		list(c, b.Meta, "classes", "bolt classes", b.Classes, func(at Loc, class string) {
