@@ -450,13 +450,13 @@ func PreloadableClass(class string) bool { return class == "8.8" || class == "10
 // SpliceOptions are the choices the splice sizing searches over.
 type SpliceOptions struct {
 	Meta
-	Category      string        `yaml:"category"`       // SpliceCategories
-	FrictionClass string        `yaml:"friction_class"` // FrictionClasses; categories B and C
-	Bolts         *BoltOptions  `yaml:"bolts"`
-	Plates        *PlateOptions `yaml:"plates"`
-	FlangePlates  []string      `yaml:"flange_plates"` // FlangeOuter, FlangeOuterInner
-	Distribution  string        `yaml:"distribution"`  // DistributionProportional or DistributionFlangesOnly
-	Gap           *Millimetres  `yaml:"gap"`           // between the beam ends
+	Category      string         `yaml:"category"`       // SpliceCategories
+	FrictionClass string         `yaml:"friction_class"` // FrictionClasses; categories B and C
+	Bolts         *BoltOptions   `yaml:"bolts"`
+	Plates        *PlateOptions  `yaml:"plates"`
+	FlangePlates  []string       `yaml:"flange_plates"`  // FlangeOuter, FlangeOuterInner
+	Distribution  string         `yaml:"distribution"`   // DistributionProportional or DistributionFlangesOnly
+	Gap           *Millimetres   `yaml:"gap"`            // between the beam ends
 	MinimumForces *MinimumForces `yaml:"minimum_forces"` // design forces at least these fractions of the beam's resistances
 }
 
