@@ -4,6 +4,7 @@ import (
 	"fmt"
 
 	"spanbreak/optimise"
+	"spanbreak/plots/encode"
 )
 
 // whyTitle is the heading that takes the place of the layouts when no layout fits.
@@ -18,11 +19,18 @@ func (w *reportWriter) resultRows() [][2]string {
 	res := w.in.Outcome
 	if res.Infeasible == nil {
 		rec := res.Recommended()
-		return [][2]string{
+		rows := [][2]string{
 			{"Recommended layout", layoutWords(rec)},
 			{"Cost", fmt.Sprintf("%s %s: splices %s, transport %s, erection %s", money(rec.Cost.Total), w.cur,
 				money(rec.Cost.Splices), money(rec.Cost.Transport), money(rec.Cost.Erection))},
 		}
+		if why := encode.RecommendationRule(res); why != "" {
+			rows = append(rows, [2]string{"Rule", why})
+		}
+		if cmp := encode.UniformComparison(res); cmp != "" {
+			rows = append(rows, [2]string{"Identical splices", cmp})
+		}
+		return append(rows, [2]string{"The beam itself", encode.MemberLine(&res.Member)})
 	}
 	rows := [][2]string{{"Recommended layout", "none: no layout satisfies the limits (see “" + whyTitle + "”)"}}
 	d := res.Diagnosis

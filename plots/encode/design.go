@@ -454,7 +454,7 @@ func writeBeamAtSplice(w io.Writer, c optimise.SectionCheck, m *optimise.MemberC
 		for _, s := range m.Warnings() {
 			fmt.Fprintf(w, "  WARNING: %s\n", s)
 		}
-		fmt.Fprintf(w, "  whole beam: %s\n", memberLine(m))
+		fmt.Fprintf(w, "  whole beam: %s\n", MemberLine(m))
 		fmt.Fprintf(w, "  Note: %s\n", optimise.LTBCaution)
 	}
 }

@@ -106,8 +106,8 @@ func writeMemberText(w io.Writer, m *optimise.MemberChecks) {
 	fmt.Fprintf(w, "  Note: %s.\n", optimise.LTBCaution)
 }
 
-// memberLine is the one-line summary of the member checks.
-func memberLine(m *optimise.MemberChecks) string {
+// MemberLine is the one-line summary of the member checks.
+func MemberLine(m *optimise.MemberChecks) string {
 	r := m.Member
 	if m.Scope != nil {
 		return "outside scope: " + m.Scope.Error()

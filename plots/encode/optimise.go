@@ -469,10 +469,10 @@ func writeRecommendation(w io.Writer, r *optimise.Outcome) {
 	fmt.Fprintf(w, ", %d piece(s), %s; total %s\n", len(best.Pieces), vehicleText(best), money(best.Cost.Total))
 	fmt.Fprintf(w, "  cost: splices %s + transport %s + erection %s = %s\n", money(best.Cost.Splices),
 		money(best.Cost.Transport), money(best.Cost.Erection), money(best.Cost.Total))
-	if why := recommendationRule(r); why != "" {
+	if why := RecommendationRule(r); why != "" {
 		fmt.Fprintf(w, "  %s\n", why)
 	}
-	if cmp := uniformComparison(r); cmp != "" {
+	if cmp := UniformComparison(r); cmp != "" {
 		fmt.Fprintf(w, "  %s\n", cmp)
 	}
 	tw := Table(w)
@@ -586,9 +586,9 @@ func mixedOfCount(r *optimise.Outcome, n int) (optimise.Layout, bool) {
 // signedMoney prints a cost difference with its sign.
 func signedMoney(v float64) string { return fmt.Sprintf("%+.2f", Clean(v)) }
 
-// uniformComparison compares the recommended layout with the best of identical splices of the
+// UniformComparison compares the recommended layout with the best of identical splices of the
 // same count, e.g. "identical splices: +38.20, one splice type (M20 10.9; ...)".
-func uniformComparison(r *optimise.Outcome) string {
+func UniformComparison(r *optimise.Outcome) string {
 	rec := r.Recommended()
 	if r.Pick.Kind == optimise.KindUniform {
 		if m, ok := mixedOfCount(r, len(rec.Splices)); ok && len(rec.Splices) > 0 {
@@ -622,8 +622,8 @@ func sameSplices(a, b []float64) bool {
 	return true
 }
 
-// recommendationRule says why the recommended layout is not simply the cheapest.
-func recommendationRule(r *optimise.Outcome) string {
+// RecommendationRule says why the recommended layout is not simply the cheapest.
+func RecommendationRule(r *optimise.Outcome) string {
 	switch {
 	case r.Pick.Kind == optimise.KindUniform:
 		return "recommended: the cheapest layout of identical splices (scan.uniform or --uniform)"
