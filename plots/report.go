@@ -710,7 +710,7 @@ func (w *reportWriter) layouts() {
 	if len(res.Identical.ByCount) > 0 {
 		rows = nil
 		for i, u := range res.Identical.ByCount {
-			row := layoutRow(u.Layout, is(optimise.KindUniform, i))
+			full := layoutRow(u.Layout, is(optimise.KindUniform, i))
 			extra, design := "–", "–"
 			for _, m := range res.Layouts.ByCount {
 				if len(m.Splices) == len(u.Splices) {
@@ -720,13 +720,15 @@ func (w *reportWriter) layouts() {
 			if len(u.Splices) > 0 {
 				design = u.Design.Summary
 			}
-			rows = append(rows, append(row, extra, design))
+			// splices, positions, vehicle × trips, total, against mixed, design
+			rows = append(rows, []string{full[0], full[1], full[4], full[8], extra, design})
 		}
 		d.heading(1, "Identical splices: the best layout with one splice type", 60)
 		d.para("For each number of splices, the cheapest layout in which every splice is the same design: one drawing, one " +
 			"bolt list, no mix-ups on site. Found exactly over every design of the design space and every position where its " +
-			"checks pass; the last columns give the extra cost against the best mixed layout of the same count, and the design.")
-		ucols := append(append([]column{}, cols...), column{"against mixed", 0.9, true}, column{"splice", 3.5, false})
+			"checks pass; the extra cost is against the best mixed layout of the same count.")
+		ucols := []column{{"splices", 0.8, true}, {"positions [m]", 2.4, false}, {"vehicle × trips", 1.7, false},
+			{"total [" + w.cur + "]", 1.1, true}, {"against mixed", 1.1, true}, {"the one splice design", 4.5, false}}
 		d.table(table{Columns: ucols, Rows: rows, Highlight: func(i int) bool { return is(optimise.KindUniform, i) }})
 	}
 	rec := res.Recommended()
