@@ -7,6 +7,7 @@ import (
 	"slices"
 	"strings"
 
+	"spanbreak/beam"
 	"spanbreak/splice"
 )
 
@@ -215,16 +216,16 @@ func (o *Outcome) stretchFinding(run []Candidate) Finding {
 	return f
 }
 
-// plasticResistances are the beam's Mpl,Rd = Wpl,y·fy/γM0 (EN 1993-1-1 6.2.5(2), class 1
-// and 2) and Vpl,Rd = Av·fy/(√3·γM0) (6.2.6(2)) [N·mm, N], with fy of the flange for both.
-func (o *Outcome) plasticResistances() (mpl, vpl float64) {
-	p := o.Setup.Splice
-	g0 := p.Factors.GammaM0
-	if g0 == 0 {
-		g0 = splice.DefaultPartialFactors().GammaM0
+// plasticResistances are the beam's own Mc,Rd in pure bending (EN 1993-1-1 6.2.5: Wpl,y·fy/γM0
+// for a class 1 or 2 section, Wel,y·fy/γM0 for class 3) and Vc,Rd = Av·fy/(√3·γM0) (6.2.6)
+// [N·mm, N], from the member checks' beam (fy of the thicker plate).
+func (o *Outcome) plasticResistances() (mc, vc float64) {
+	m := o.Setup.Member
+	mc = m.MplRd
+	if m.Classify(m.MplRd, 0).Class > beam.Class2 {
+		mc = m.MelRd
 	}
-	sec, fy := p.Member.Section, p.Member.FyFlange
-	return sec.WplY * fy / g0, sec.Avz * fy / (math.Sqrt(3) * g0)
+	return mc, m.VplRd
 }
 
 // stretchMessage says a stretch finding in words; the beam's resistances are exceeded from
@@ -248,13 +249,13 @@ func (o *Outcome) stretchMessage(f Finding, g splice.Geometry, overFrom, overTo 
 	fmt.Fprintf(&b, "; there |M_Ed| is up to %.1f kNm and |V_Ed| up to %.1f kN", f.MEd/1e6, f.VEd/1e3)
 	var over []string
 	if f.McRd > 0 {
-		over = append(over, fmt.Sprintf("|M_Ed| exceeds the beam's own Mpl,Rd = %.1f kNm", f.McRd/1e6))
+		over = append(over, fmt.Sprintf("|M_Ed| exceeds the beam's own Mc,Rd = %.1f kNm", f.McRd/1e6))
 	}
 	if f.VcRd > 0 {
-		over = append(over, fmt.Sprintf("|V_Ed| exceeds the beam's own Vpl,Rd = %.1f kN", f.VcRd/1e3))
+		over = append(over, fmt.Sprintf("|V_Ed| exceeds the beam's own Vc,Rd = %.1f kN", f.VcRd/1e3))
 	}
 	if len(over) > 0 {
-		fmt.Fprintf(&b, "; %s (plastic, fy of the flange) %s: the beam itself is overstressed there, whatever the splice",
+		fmt.Fprintf(&b, "; %s (EN 1993-1-1 6.2.5, 6.2.6) %s: the beam itself is overstressed there, whatever the splice",
 			strings.Join(over, " and "), span(overFrom, overTo))
 	}
 	return b.String()
