@@ -69,11 +69,11 @@ func (w *reportWriter) whyNoLayout() {
 		d.heading(1, "Stretches where no splice passes", 60)
 		d.table(table{Columns: []column{{"from [m]", 0.8, true}, {"to [m]", 0.8, true}, {"positions", 1, true},
 			{"closest at [m]", 0.9, true}, {"its governing check", 1.8, false}, {"util.", 0.6, true}, {"|M_Ed| max [kNm]", 1, true},
-			{"Mpl,Rd [kNm]", 0.9, true}, {"|V_Ed| max [kN]", 0.9, true}, {"Vpl,Rd [kN]", 0.9, true}}, Rows: rows})
+			{"Mc,Rd [kNm]", 0.9, true}, {"|V_Ed| max [kN]", 0.9, true}, {"Vc,Rd [kN]", 0.9, true}}, Rows: rows})
 		d.small("The closest attempt is the position of the stretch whose cheapest configuration comes nearest to passing " +
-			"(lowest governing utilisation). Mpl,Rd = Wpl,y·fy/γM0 (EN 1993-1-1 6.2.5) and Vpl,Rd = Av·fy/(√3·γM0) " +
-			"(6.2.6) are the beam's own plastic resistances with fy of the flange, without classification or interaction, " +
-			"given only where the design force exceeds them (– otherwise).")
+			"(lowest governing utilisation). Mc,Rd (EN 1993-1-1 6.2.5, in the class of the section in bending) and " +
+			"Vc,Rd = Av·fy/(√3·γM0) (6.2.6) are the beam's own resistances, given only where the design force exceeds them " +
+			"(– otherwise); the full member checks are in \"The beam itself\".")
 	}
 	d.small("There is no layout, so there are no calculation sheets and layouts.csv has its header only; every " +
 		"candidate position with its reason is in scan.csv and result.json.")
