@@ -118,7 +118,8 @@ func Run(s *Setup, set Settings) (*Outcome, error) {
 // from the left end, keep-out zones, design forces from the envelopes, the cheapest splice at
 // each position, then the exact layout search. No layout within the limits gives the outcome
 // so far (candidates, no layouts) with an *InfeasibleError; anything the job file causes is a
-// jobfile.Problems and no outcome. The outcome's Chosen is left empty (Run fills it).
+// jobfile.Problems and no outcome, and a step of the settings that cannot be used (too many
+// positions) a *SettingError naming "step". The outcome's Chosen is left empty (Run fills it).
 func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	rank, err := ParseRank(string(set.Rank))
 	if err != nil {
@@ -128,6 +129,15 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	if err != nil {
 		return nil, err
 	}
+	xs, err := Grid(s.Model.Length, o.Step)
+	switch {
+	case err != nil && set.Step != 0:
+		return nil, &SettingError{"step", err} // the settings' step, not the job's
+	case err != nil:
+		var probs jobfile.Problems
+		probs.Add(s.Where("scan.step"), "%v", err)
+		return nil, probs.Err()
+	}
 	if o.Analysis, err = s.Analyse(); err != nil {
 		return nil, err
 	}
@@ -136,12 +146,6 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	}
 	if o.Member, err = s.CheckMember(o.Analysis, &o.Envelopes); err != nil {
 		return nil, err
-	}
-	xs, err := Grid(s.Model.Length, o.Step)
-	if err != nil {
-		var probs jobfile.Problems
-		probs.Add(s.Where("scan.step"), "%v", err)
-		return nil, probs.Err()
 	}
 	workers := set.Workers
 	if set.Exhaustive {

@@ -76,7 +76,7 @@ func TestDesignDirectTextSheet(t *testing.T) {
 func TestDesignJSONContract(t *testing.T) {
 	opts := directOptions()
 	opts.Format = "json"
-	opts.At, opts.AtSet = 12.5, true
+	opts.At, opts.AtSet = 12500, true // [mm]
 	var out bytes.Buffer
 	require.NoError(t, runDesign(opts, outTo(&out)))
 	var doc map[string]any

@@ -6,7 +6,6 @@ import (
 	"fmt"
 	"io"
 	"io/fs"
-	"math"
 	"os"
 	"path/filepath"
 	"sort"
@@ -24,7 +23,7 @@ type optimiseOptions struct {
 	Paths      []string // job files, or folders of job files (*.yaml, *.yml)
 	Demo       bool     // optimise the embedded demo job instead of files
 	Format     string   // text | json | csv
-	Step       float64  // candidate spacing [m]; 0: the job's scan.step (default 0.05 m)
+	Step       float64  // candidate spacing [mm]; 0: the job's scan.step (default 0.05 m)
 	Rank       string   // cost | bolts | mass | utilisation
 	Exhaustive bool     // reference run without pruning or sharing; prints the same results
 	Out        string   // folder to write the results into as files; "" for none
@@ -55,7 +54,7 @@ Exit status 3 means the run worked but no layout satisfies the limits.`,
 	}
 	f := cmd.Flags()
 	f.StringVar(&opts.Format, "format", "text", "output format: text, json or csv")
-	f.Float64Var(&opts.Step, "step", 0, "candidate spacing along the beam [m] (default: the job's scan.step, else 0.05)")
+	lengthVar(f, &opts.Step, "step", spacing, 0, `candidate spacing along the beam [m, or with a unit: "50 mm"] (default: the job's scan.step, else 0.05)`)
 	f.StringVar(&opts.Rank, "rank", "cost", "rank positions by cost, bolts, mass or utilisation")
 	f.BoolVar(&opts.Exhaustive, "exhaustive", false, "reference run: no pruning or sharing (slow; same results)")
 	f.StringVar(&opts.Out, "out", "", "also write the results as files into this folder")
@@ -75,13 +74,13 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 	if err != nil {
 		return usageError(fmt.Errorf("--rank: %w", err))
 	}
-	if opts.Step < 0 || math.IsNaN(opts.Step) || math.IsInf(opts.Step, 0) {
-		return usageError(fmt.Errorf("--step %g: want a positive spacing in m", opts.Step))
+	if err := checkStepOption(opts.Step); err != nil {
+		return err
 	}
 	if opts.Jobs < 0 {
 		return usageError(fmt.Errorf("--jobs %d: want a positive number", opts.Jobs))
 	}
-	set := optimise.Settings{Step: opts.Step * 1e3, Rank: rank, Exhaustive: opts.Exhaustive}
+	set := optimise.Settings{Step: opts.Step, Rank: rank, Exhaustive: opts.Exhaustive}
 	if opts.Demo {
 		return optimiseOne(opts, set, "", stdout)
 	}
@@ -141,7 +140,7 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 		if errors.As(err, &inf) {
 			return infeasibleError(err)
 		}
-		return err
+		return settingError(err)
 	}
 	var buf bytes.Buffer
 	if err := encode.WriteOptimise(&buf, opts.Format, res); err != nil {
@@ -194,21 +193,31 @@ func progressReporter(ios streams, total int) (func(done, total int), func()) {
 	return func(done, _ int) { _ = bar.Set(done) }, func() { _ = bar.Finish() }
 }
 
-// batchStatus is the exit status of a batch: a failed job (bad input) is exit 1, otherwise a
-// job without a feasible layout is exit 3.
+// batchStatus is the exit status of a batch: a job that refuses a setting of the command line
+// (a --step too fine for its beam) is exit 2, naming the flag; otherwise a failed job (bad
+// input) is exit 1, and a job without a feasible layout exit 3.
 func batchStatus(outcomes []optimise.BatchOutcome) error {
 	failed, infeasible := 0, 0
+	var setting error // the first job that refuses a setting of the command line
 	for _, o := range outcomes {
 		var inf *optimise.InfeasibleError
+		var se *optimise.SettingError
 		switch {
 		case o.Err == nil:
 		case errors.As(o.Err, &inf):
 			infeasible++
+		case errors.As(o.Err, &se):
+			failed++
+			if setting == nil {
+				setting = usageError(fmt.Errorf("--%s: %s: %w", se.Setting, o.File, se.Err))
+			}
 		default:
 			failed++
 		}
 	}
 	switch {
+	case setting != nil:
+		return setting
 	case failed > 0:
 		return fmt.Errorf("%d of %d job(s) failed (see the summary)", failed, len(outcomes))
 	case infeasible > 0:

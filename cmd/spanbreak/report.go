@@ -21,7 +21,7 @@ type reportOptions struct {
 	Demo    bool    // report on the embedded demo job instead of a file
 	Out     string  // folder to write
 	Force   bool    // replace Out if it exists
-	Step    float64 // candidate spacing [m]; 0 takes the job's scan.step
+	Step    float64 // candidate spacing [mm]; 0 takes the job's scan.step
 }
 
 func newReportCommand(run func(reportOptions, streams) error, ios streams) *cobra.Command {
@@ -46,7 +46,7 @@ which is renamed to DIR at the end. An existing DIR is replaced only with --forc
 	f := cmd.Flags()
 	f.StringVar(&opts.Out, "out", "", "folder to write the report into (required; written complete or not at all)")
 	f.BoolVar(&opts.Force, "force", false, "replace the folder if it exists")
-	f.Float64Var(&opts.Step, "step", 0, "candidate spacing along the beam [m] (default: the job's scan.step)")
+	lengthVar(f, &opts.Step, "step", spacing, 0, `candidate spacing along the beam [m, or with a unit: "50 mm"] (default: the job's scan.step)`)
 	return cmd
 }
 
@@ -63,8 +63,8 @@ func runReport(opts reportOptions, ios streams) error {
 	if opts.Out == "" {
 		return usageError(errors.New("--out: give the folder to write the report into"))
 	}
-	if opts.Step < 0 {
-		return usageError(fmt.Errorf("--step: %g m must be positive", opts.Step))
+	if err := checkStepOption(opts.Step); err != nil {
+		return err
 	}
 	if _, err := os.Lstat(opts.Out); err == nil && !opts.Force {
 		return usageError(fmt.Errorf("--out %s: the folder exists; pass --force to replace it", opts.Out))
@@ -75,13 +75,13 @@ func runReport(opts reportOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	res, err := optimise.Run(setup, optimise.Settings{Step: opts.Step * 1e3})
+	res, err := optimise.Run(setup, optimise.Settings{Step: opts.Step})
 	if err != nil {
 		var inf *optimise.InfeasibleError
 		if errors.As(err, &inf) {
 			return infeasibleError(err)
 		}
-		return err
+		return settingError(err)
 	}
 	date := ios.now().Format("2006-01-02")
 	files, err := reportFiles(setup, res, date)

@@ -129,7 +129,7 @@ func TestRunReportErrors(t *testing.T) {
 		exit int
 	}{
 		{"no folder", reportOptions{Demo: true}, "--out", exitUsage},
-		{"negative step", reportOptions{Demo: true, Out: filepath.Join(dir, "a"), Step: -0.1}, "--step", exitUsage},
+		{"negative step", reportOptions{Demo: true, Out: filepath.Join(dir, "a"), Step: -100}, "--step", exitUsage},
 		{"missing job file", reportOptions{JobFile: filepath.Join(dir, "none.yaml"), Out: filepath.Join(dir, "b")}, "none.yaml", exitFailure},
 		{"no layout meets the limits", reportOptions{JobFile: job, Out: filepath.Join(dir, "c")}, "max_piece_mass", exitInfeasible},
 	}
