@@ -4,8 +4,6 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
-	"io"
-	"io/fs"
 	"os"
 	"path/filepath"
 	"sort"
@@ -66,7 +64,6 @@ Exit status 3 means the run worked but no layout satisfies the limits.`,
 // runOptimise optimises one job or a batch and writes the result; for one job nothing is
 // written on error.
 func runOptimise(opts optimiseOptions, ios streams) error {
-	stdout := ios.Out
 	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
@@ -82,14 +79,14 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 	}
 	set := optimise.Settings{Step: opts.Step, Rank: rank, Exhaustive: opts.Exhaustive}
 	if opts.Demo {
-		return optimiseOne(opts, set, "", stdout)
+		return optimiseOne(opts, set, "", ios)
 	}
 	files, batch, err := jobFiles(opts.Paths)
 	if err != nil {
 		return err
 	}
 	if !batch {
-		return optimiseOne(opts, set, files[0], stdout)
+		return optimiseOne(opts, set, files[0], ios)
 	}
 	return optimiseBatch(opts, set, files, ios)
 }
@@ -129,7 +126,7 @@ func jobFiles(paths []string) (files []string, batch bool, err error) {
 }
 
 // optimiseOne runs one job (file "" with opts.Demo) and prints it.
-func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.Writer) error {
+func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, ios streams) error {
 	setup, err := loadSetup(file, opts.Demo)
 	if err != nil {
 		return err
@@ -147,11 +144,11 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 		return err
 	}
 	if opts.Out != "" {
-		if err := writeResultFiles(opts.Out, opts.Force, res); err != nil {
+		if err := writeResultFiles(opts.Out, opts.Force, res, ios.Interrupts); err != nil {
 			return err
 		}
 	}
-	_, err = w.Write(buf.Bytes())
+	_, err = ios.Out.Write(buf.Bytes())
 	return err
 }
 
@@ -172,7 +169,7 @@ func optimiseBatch(opts optimiseOptions, set optimise.Settings, files []string, 
 		return err
 	}
 	if opts.Out != "" {
-		if err := writeBatchFiles(opts.Out, opts.Force, outcomes, opts.Format, buf.Bytes()); err != nil {
+		if err := writeBatchFiles(opts.Out, opts.Force, outcomes, opts.Format, buf.Bytes(), ios.Interrupts); err != nil {
 			return err
 		}
 	}
@@ -253,16 +250,16 @@ func resultFiles(r *optimise.Outcome) ([]outFile, error) {
 		{base + ".candidates.csv", cand.Bytes()}, {base + ".layouts.csv", lay.Bytes()}}, nil
 }
 
-func writeResultFiles(dir string, force bool, r *optimise.Outcome) error {
+func writeResultFiles(dir string, force bool, r *optimise.Outcome, g *interrupts) error {
 	files, err := resultFiles(r)
 	if err != nil {
 		return err
 	}
-	return writeOutFiles(dir, force, files)
+	return writeOutFiles(dir, force, files, g)
 }
 
 // writeBatchFiles writes every job's files and the summary (summary.txt, .json or .csv).
-func writeBatchFiles(dir string, force bool, outcomes []optimise.BatchOutcome, format string, summary []byte) error {
+func writeBatchFiles(dir string, force bool, outcomes []optimise.BatchOutcome, format string, summary []byte, g *interrupts) error {
 	var files []outFile
 	for _, o := range outcomes {
 		if o.Outcome != nil {
@@ -275,34 +272,7 @@ func writeBatchFiles(dir string, force bool, outcomes []optimise.BatchOutcome, f
 	}
 	ext := map[string]string{"text": "txt", "json": "json", "csv": "csv"}[format]
 	files = append(files, outFile{"summary." + ext, summary})
-	return writeOutFiles(dir, force, files)
-}
-
-// writeOutFiles writes the files into dir, each whole or not at all. Without force it first
-// makes sure that none exists, so that a refusal leaves the folder untouched.
-func writeOutFiles(dir string, force bool, files []outFile) error {
-	if err := os.MkdirAll(dir, 0o755); err != nil {
-		return err
-	}
-	seen := map[string]bool{}
-	for _, f := range files {
-		if seen[f.name] {
-			return fmt.Errorf("--out: two jobs would both write %s; give the job files distinct names", f.name)
-		}
-		seen[f.name] = true
-		if _, err := os.Lstat(filepath.Join(dir, f.name)); err == nil && !force {
-			return fmt.Errorf("%s already exists; it was left unchanged (pass --force to replace the files)", filepath.Join(dir, f.name))
-		}
-	}
-	for _, f := range files {
-		if err := writeFileAtomic(filepath.Join(dir, f.name), f.data, force); err != nil {
-			if errors.Is(err, fs.ErrExist) {
-				return fmt.Errorf("%w (pass --force to replace the files)", err)
-			}
-			return err
-		}
-	}
-	return nil
+	return writeOutFiles(dir, force, files, g)
 }
 
 // jobBase is the file name of a job without folder and extension ("demo" for the demo).

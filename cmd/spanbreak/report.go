@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"os"
-	"path/filepath"
 	"sort"
 
 	"github.com/spf13/cobra"
@@ -50,12 +49,6 @@ which is renamed to DIR at the end. An existing DIR is replaced only with --forc
 	return cmd
 }
 
-// reportFile is one file of the report folder.
-type reportFile struct {
-	name string
-	data []byte
-}
-
 // runReport optimises the job, builds the report in memory and writes the folder; nothing is
 // left behind on error.
 func runReport(opts reportOptions, ios streams) error {
@@ -67,7 +60,7 @@ func runReport(opts reportOptions, ios streams) error {
 		return err
 	}
 	if _, err := os.Lstat(opts.Out); err == nil && !opts.Force {
-		return usageError(fmt.Errorf("--out %s: the folder exists; pass --force to replace it", opts.Out))
+		return &existsError{path: opts.Out, hint: "pass --force to replace the folder"}
 	} else if err != nil && !errors.Is(err, os.ErrNotExist) {
 		return fmt.Errorf("--out %s: %w", opts.Out, err)
 	}
@@ -88,7 +81,8 @@ func runReport(opts reportOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	if err := writeFolder(opts.Out, files, opts.Force); err != nil {
+	ph := ios.Interrupts.begin()
+	if err := ph.end(writeFolder(opts.Out, files, opts.Force, ph)); err != nil {
 		return err
 	}
 	rec := res.Recommended()
@@ -135,54 +129,4 @@ func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]r
 		reportFile{"result.json", result.Bytes()})
 	sort.SliceStable(files, func(i, j int) bool { return files[i].name < files[j].name })
 	return files, nil
-}
-
-// writeFolder writes the files into a temporary folder beside dir and renames it to dir, so
-// that dir is either the complete new report or untouched. With replace, an existing dir is
-// moved aside first and removed once the new one is in place (restored if the rename fails).
-func writeFolder(dir string, files []reportFile, replace bool) (err error) {
-	parent, base := filepath.Split(filepath.Clean(dir))
-	if parent == "" {
-		parent = "."
-	}
-	tmp, err := os.MkdirTemp(parent, "."+base+".tmp-")
-	if err != nil {
-		return fmt.Errorf("--out %s: %w", dir, err)
-	}
-	defer func() {
-		if err != nil {
-			os.RemoveAll(tmp)
-		}
-	}()
-	for _, f := range files {
-		if err := writeFileAtomic(filepath.Join(tmp, f.name), f.data, false); err != nil {
-			return err
-		}
-	}
-	if err := os.Chmod(tmp, 0o755); err != nil {
-		return err
-	}
-	var old string
-	if _, statErr := os.Lstat(dir); statErr == nil {
-		if !replace {
-			return usageError(fmt.Errorf("--out %s: the folder exists; pass --force to replace it", dir))
-		}
-		old = tmp + ".old"
-		if err := os.Rename(dir, old); err != nil {
-			return fmt.Errorf("--out %s: moving the old folder aside: %w", dir, err)
-		}
-	}
-	if err := os.Rename(tmp, dir); err != nil {
-		if old != "" {
-			_ = os.Rename(old, dir)
-		}
-		return fmt.Errorf("--out %s: %w", dir, err)
-	}
-	syncDir(parent)
-	if old != "" {
-		if err := os.RemoveAll(old); err != nil {
-			return fmt.Errorf("--out %s: the new report is in place, but the old folder %s could not be removed: %w", dir, old, err)
-		}
-	}
-	return nil
 }

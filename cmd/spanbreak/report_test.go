@@ -104,7 +104,7 @@ func TestRunReportReplacesOnlyWithForce(t *testing.T) {
 	err := runReport(reportOptions{Demo: true, Out: out}, outTo(&stdout))
 	require.Error(t, err)
 	assert.Contains(t, err.Error(), "--force")
-	assert.Equal(t, exitUsage, exitCode(err))
+	assert.Equal(t, exitFailure, exitCode(err), "an existing folder is a state of the file system, exit 1")
 	assert.FileExists(t, marker, "the existing folder is untouched")
 	assert.Equal(t, []string{"report"}, folderNames(t, parent))
 	assert.Zero(t, stdout.Len())
@@ -175,7 +175,7 @@ func TestReportCommandParsesArgsAndFlags(t *testing.T) {
 	cmd.SetArgs([]string{job, "--out", out}) // exists now, no --force
 	err = cmd.Execute()
 	require.Error(t, err)
-	assert.Equal(t, exitUsage, exitCode(err))
+	assert.Equal(t, exitFailure, exitCode(err))
 
 	cmd = newReportCommand(runReport, streams{})
 	cmd.SetOut(&bytes.Buffer{})
