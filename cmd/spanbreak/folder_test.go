@@ -78,7 +78,9 @@ func TestReplaceFolderExchanges(t *testing.T) {
 }
 
 // unsupported is an exchange the platform does not have.
-func unsupported(a, b string) error { return fmt.Errorf("exchanging %s and %s: %w", a, b, errors.ErrUnsupported) }
+func unsupported(a, b string) error {
+	return fmt.Errorf("exchanging %s and %s: %w", a, b, errors.ErrUnsupported)
+}
 
 // TestReplaceFolderFallback: without an exchange the old folder is moved aside and the new
 // one in; if the new one cannot go in, the old one is moved back.

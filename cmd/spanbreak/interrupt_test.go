@@ -42,13 +42,17 @@ func TestSignalInTheWritePhaseLeavesNothing(t *testing.T) {
 		{"report, new folder, SIGINT", syscall.SIGINT, 130,
 			func(dir, job string) []string { return []string{"report", job, "--out", filepath.Join(dir, "out")} }, nil},
 		{"report --force over an old folder, SIGTERM", syscall.SIGTERM, 143,
-			func(dir, job string) []string { return []string{"report", job, "--out", filepath.Join(dir, "out"), "--force"} }, oldFolder},
+			func(dir, job string) []string {
+				return []string{"report", job, "--out", filepath.Join(dir, "out"), "--force"}
+			}, oldFolder},
 		{"optimise --out, new folder, SIGINT", syscall.SIGINT, 130,
 			func(dir, job string) []string {
 				return []string{"optimise", job, "--out", filepath.Join(dir, "out"), "--format", "json"}
 			}, nil},
 		{"optimise --out --force into a folder with earlier files, SIGTERM", syscall.SIGTERM, 143,
-			func(dir, job string) []string { return []string{"optimise", job, "--out", filepath.Join(dir, "out"), "--force"} }, oldFolder},
+			func(dir, job string) []string {
+				return []string{"optimise", job, "--out", filepath.Join(dir, "out"), "--force"}
+			}, oldFolder},
 		{"optimise batch --out, SIGINT", syscall.SIGINT, 130,
 			func(dir, job string) []string {
 				second := filepath.Join(dir, "second.yaml")
@@ -61,7 +65,9 @@ func TestSignalInTheWritePhaseLeavesNothing(t *testing.T) {
 		{"init --force over a file, SIGTERM", syscall.SIGTERM, 143,
 			func(dir, _ string) []string { return []string{"init", filepath.Join(dir, "out"), "--force"} }, oldFile},
 		{"demo's report, SIGINT", syscall.SIGINT, 130,
-			func(dir, _ string) []string { return []string{"demo", "--out", filepath.Join(dir, "out"), "--format", "json"} }, nil},
+			func(dir, _ string) []string {
+				return []string{"demo", "--out", filepath.Join(dir, "out"), "--format", "json"}
+			}, nil},
 	}
 	for _, r := range rows {
 		t.Run(r.name, func(t *testing.T) {
