@@ -49,10 +49,10 @@ func TestSignalInTheWritePhaseLeavesNothing(t *testing.T) {
 			func(dir, job string) []string {
 				return []string{"optimise", job, "--out", filepath.Join(dir, "out"), "--format", "json"}
 			}, nil},
-		{"optimise --out --force into a folder with earlier files, SIGTERM", syscall.SIGTERM, 143,
+		{"optimise --out --force over an earlier run's files, SIGTERM", syscall.SIGTERM, 143,
 			func(dir, job string) []string {
 				return []string{"optimise", job, "--out", filepath.Join(dir, "out"), "--force"}
-			}, oldFolder},
+			}, oldResults},
 		{"optimise batch --out, SIGINT", syscall.SIGINT, 130,
 			func(dir, job string) []string {
 				second := filepath.Join(dir, "second.yaml")
@@ -91,6 +91,14 @@ func TestSignalInTheWritePhaseLeavesNothing(t *testing.T) {
 func oldFolder(t *testing.T, dir string) {
 	require.NoError(t, os.Mkdir(filepath.Join(dir, "out"), 0o755))
 	require.NoError(t, os.WriteFile(filepath.Join(dir, "out", "earlier.txt"), []byte("earlier work"), 0o644))
+}
+
+// oldResults is an --out folder holding an earlier run's files.
+func oldResults(t *testing.T, dir string) {
+	require.NoError(t, os.Mkdir(filepath.Join(dir, "out"), 0o755))
+	for _, f := range []string{"job.optimise.txt", "job.optimise.json", "job.candidates.csv", "job.layouts.csv", "notes.txt"} {
+		require.NoError(t, os.WriteFile(filepath.Join(dir, "out", f), []byte("earlier run"), 0o644))
+	}
 }
 
 // oldFile is an earlier output file.
