@@ -4,6 +4,8 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"io"
+	"io/fs"
 	"os"
 	"path/filepath"
 	"sort"
@@ -81,7 +83,7 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 	if opts.Demo {
 		return optimiseOne(opts, set, "", ios)
 	}
-	files, batch, err := jobFiles(opts.Paths)
+	files, batch, err := jobFiles(opts.Paths, ios.Err)
 	if err != nil {
 		return err
 	}
@@ -92,8 +94,11 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 }
 
 // jobFiles expands the arguments: files as given, folders to their *.yaml and *.yml files in
-// name order. A batch is more than one file or any folder.
-func jobFiles(paths []string) (files []string, batch bool, err error) {
+// name order. A batch is more than one file or any folder. In a folder, a *.yaml or *.yml
+// entry that is not a regular file (a named pipe, a device, a folder; a symbolic link counts
+// as what it points to) is skipped with a warning to warn, so that it cannot hang the batch;
+// a file given as an argument is left to readInput, which refuses it.
+func jobFiles(paths []string, warn io.Writer) (files []string, batch bool, err error) {
 	batch = len(paths) > 1
 	for _, p := range paths {
 		info, err := os.Stat(p)
@@ -112,9 +117,23 @@ func jobFiles(paths []string) (files []string, batch bool, err error) {
 		var found []string
 		for _, e := range entries {
 			ext := strings.ToLower(filepath.Ext(e.Name()))
-			if !e.IsDir() && (ext == ".yaml" || ext == ".yml") {
-				found = append(found, filepath.Join(p, e.Name()))
+			if ext != ".yaml" && ext != ".yml" {
+				continue
 			}
+			path := filepath.Join(p, e.Name())
+			if info, err := os.Stat(path); err != nil || !info.Mode().IsRegular() {
+				why := "it is not a regular file"
+				var pe *fs.PathError
+				switch {
+				case errors.As(err, &pe):
+					why = pe.Err.Error() // a dangling link, no permission
+				case err == nil:
+					why = "it is " + fileKind(info.Mode()) + ", not a regular file"
+				}
+				fmt.Fprintf(warn, "spanbreak: warning: skipping %s: %s\n", path, why)
+				continue
+			}
+			found = append(found, path)
 		}
 		if len(found) == 0 {
 			return nil, false, fmt.Errorf("%s: the folder has no job files (*.yaml, *.yml)", p)
