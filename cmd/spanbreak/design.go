@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"strconv"
 	"strings"
@@ -26,7 +27,7 @@ type designOptions struct {
 	ULS           string  // "M=..,V=..,N=.." [kNm, kN]
 	SLS           string  // same keys; "" when none
 	SpliceFile    string  // check this fixed splice instead of sizing
-	Format        string  // text | json
+	Format        string  // text | json | csv (the checks)
 	Category      string  // A | B | C (sizing, direct mode)
 	FrictionClass string  // A..D (sizing, categories B and C)
 	Distribution  string  // proportional | flanges-only
@@ -66,7 +67,7 @@ always checked.
 	f.StringVar(&opts.ULS, "uls", "", "ULS design forces, e.g. M=400,V=300,N=-150 (kNm, kN)")
 	f.StringVar(&opts.SLS, "sls", "", "SLS design forces, same keys (for slip at SLS, category B)")
 	f.StringVar(&opts.SpliceFile, "splice", "", "check this splice file instead of sizing one")
-	f.StringVar(&opts.Format, "format", "text", "output format: text or json")
+	f.StringVar(&opts.Format, "format", "text", "output format: text, json or csv (csv: one row per check)")
 	f.StringVar(&opts.Category, "category", "A", "sizing: A bearing, B slip-resistant at SLS, C slip-resistant at ULS")
 	f.StringVar(&opts.FrictionClass, "friction-class", "A", "sizing: friction class of the faying surfaces, A to D (categories B and C)")
 	f.StringVar(&opts.Distribution, "distribution", "proportional", "sharing of M and N: proportional or flanges-only")
@@ -77,7 +78,7 @@ always checked.
 // runDesign sizes or checks the splice and writes the sheet; nothing is written on error.
 func runDesign(opts designOptions, ios streams) error {
 	w := ios.Out
-	if err := checkFormat(opts.Format, "text", "json"); err != nil {
+	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
 	var fixed *splice.Geometry
@@ -103,7 +104,11 @@ func runDesign(opts designOptions, ios streams) error {
 		return settingError(err)
 	}
 	var buf bytes.Buffer
-	if err := encode.WriteDesign(&buf, opts.Format, o); err != nil {
+	write := encode.WriteDesign
+	if opts.Format == "csv" {
+		write = func(w io.Writer, _ string, o *optimise.DesignOutcome) error { return encode.WriteDesignCSV(w, o) }
+	}
+	if err := write(&buf, opts.Format, o); err != nil {
 		return err
 	}
 	if _, err := w.Write(buf.Bytes()); err != nil {
