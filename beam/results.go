@@ -6,6 +6,11 @@ import (
 	"sort"
 )
 
+// MaxStations bounds the stations of one call to Stations, so that a tiny step fails with a
+// message instead of exhausting memory (a million stations hold the envelopes of a 1 km beam
+// every millimetre).
+const MaxStations = 1_000_000
+
 // Stations returns evaluation points every step [mm] from 0 to the beam length, plus every
 // node (supports, hinges, load starts and ends). Where a jump can occur (support, point
 // force, couple or axial force) the node appears twice: its left value, then its right value.
@@ -15,7 +20,7 @@ func (a *Analysis) Stations(step float64) ([]Station, error) {
 	}
 	l := a.s.model.Length
 	n := int(math.Floor(l/step + 1e-9))
-	if n > 1_000_000 {
+	if n > MaxStations {
 		return nil, fmt.Errorf("station step %g mm gives %d stations; use a larger step", step, n)
 	}
 	xs := make([]float64, 0, n+2+len(a.keys))

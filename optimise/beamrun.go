@@ -2,6 +2,7 @@ package optimise
 
 import (
 	"fmt"
+	"math"
 	"slices"
 
 	"spanbreak/beam"
@@ -30,7 +31,7 @@ type BeamOutcome struct {
 // SettingError is a run setting (not the job file) that cannot be used: a command line
 // reports it against its flag.
 type SettingError struct {
-	Setting string // "step", "at" or "case"
+	Setting string // "step", "at", "case", or a direct design's "section", "grade"...
 	Err     error
 }
 
@@ -50,6 +51,9 @@ func AnalyseBeam(s *Setup, set BeamSettings) (*BeamOutcome, error) {
 	}
 	an := src.Analysis()
 	o := &BeamOutcome{Setup: s, Analysis: an}
+	if err := s.checkStations(set); err != nil {
+		return nil, err
+	}
 	if len(set.At) > 0 {
 		if o.Stations, err = an.StationsAt(set.At); err != nil {
 			return nil, &SettingError{"at", err}
@@ -109,6 +113,28 @@ func importedBeam(s *Setup, src Forces, set BeamSettings) (*BeamOutcome, error) 
 		return nil, err
 	}
 	return &BeamOutcome{Setup: s, Stations: env.Stations, Envelopes: &env, Member: &m}, nil
+}
+
+// checkStations refuses, in metres, positions off the beam and a step that is not a positive
+// spacing or gives more than beam.MaxStations stations.
+func (s *Setup) checkStations(set BeamSettings) error {
+	l := s.Model.Length
+	if len(set.At) > 0 {
+		for _, x := range set.At {
+			if !(x >= 0 && x <= l) {
+				return &SettingError{"at", fmt.Errorf("%g m is off the beam (0 to %g m)", x/1e3, l/1e3)}
+			}
+		}
+		return nil
+	}
+	if !(set.Step > 0) || math.IsInf(set.Step, 0) {
+		return &SettingError{"step", fmt.Errorf("want a positive station spacing, got %.6g m", set.Step/1e3)}
+	}
+	if n := math.Floor(l/set.Step + 1e-9); n > beam.MaxStations {
+		return &SettingError{"step", fmt.Errorf("a station spacing of %.6g m gives %s stations on a %s beam; at most %d are allowed",
+			set.Step/1e3, count(n), metres(l), beam.MaxStations)}
+	}
+	return nil
 }
 
 // JobCheck is what a check of the job reports: the resolved job, its analysis (a mechanism or

@@ -135,8 +135,10 @@ func Run(s *Setup, set Settings) (*Outcome, error) {
 // Optimise scans the job's beam with a designer and finds the layouts: candidates every step
 // from the left end, keep-out zones, design forces from the envelopes, the cheapest splice at
 // each position, then the exact layout search. No layout within the limits gives the outcome
-// so far (candidates, no layouts, the Diagnosis) with an *InfeasibleError; anything the job file causes is a
-// jobfile.Problems and no outcome. The outcome's Chosen is left empty (Run fills it).
+// so far (candidates, no layouts, the Diagnosis) with an *InfeasibleError; anything the job
+// file causes is a jobfile.Problems and no outcome, and a step of the settings that cannot be
+// used (too many positions) a *SettingError naming "step". The outcome's Chosen is left empty
+// (Run fills it).
 func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	rank, err := ParseRank(string(set.Rank))
 	if err != nil {
@@ -145,6 +147,15 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	o, err := s.newOutcome(set, rank)
 	if err != nil {
 		return nil, err
+	}
+	xs, err := Grid(s.Model.Length, o.Step)
+	switch {
+	case err != nil && set.Step != 0:
+		return nil, &SettingError{"step", err} // the settings' step, not the job's
+	case err != nil:
+		var probs jobfile.Problems
+		probs.Add(s.Where("scan.step"), "%v", err)
+		return nil, probs.Err()
 	}
 	if o.Source, err = s.Forces(); err != nil {
 		return nil, err
@@ -155,12 +166,6 @@ func Optimise(s *Setup, d Designer, set Settings) (*Outcome, error) {
 	}
 	if o.Member, err = o.Source.Member(&o.Envelopes); err != nil {
 		return nil, err
-	}
-	xs, err := Grid(s.Model.Length, o.Step)
-	if err != nil {
-		var probs jobfile.Problems
-		probs.Add(s.Where("scan.step"), "%v", err)
-		return nil, probs.Err()
 	}
 	workers := set.Workers
 	if set.Exhaustive {

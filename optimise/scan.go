@@ -77,13 +77,14 @@ const MaxCandidates = 200_000
 // beam (a splice at an end is no splice).
 func Grid(length, step float64) ([]float64, error) {
 	if !(step > 0) || math.IsInf(step, 0) {
-		return nil, fmt.Errorf("the scan step must be positive, got %g mm", step)
+		return nil, fmt.Errorf("the scan step must be a positive spacing, got %.6g m", step/1e3)
+	}
+	// counted in floating point first: a step of 1e-300 m gives more positions than an int holds
+	if nf := math.Ceil(length/step-1e-9) - 1; nf > MaxCandidates {
+		return nil, fmt.Errorf("the scan step %.6g m gives %s positions on a %s beam; at most %d are allowed",
+			step/1e3, count(nf), metres(length), MaxCandidates)
 	}
 	n := int(math.Ceil(length/step-1e-9)) - 1
-	if n > MaxCandidates {
-		return nil, fmt.Errorf("the scan step %s gives %d positions on a %s beam; at most %d are allowed",
-			metres(step), n, metres(length), MaxCandidates)
-	}
 	xs := make([]float64, 0, max(n, 0))
 	for i := 1; i <= n; i++ {
 		if x := float64(i) * step; x < length-zoneTol {
@@ -91,6 +92,15 @@ func Grid(length, step float64) ([]float64, error) {
 		}
 	}
 	return xs, nil
+}
+
+// count prints a number of positions or stations for messages: in full up to a trillion,
+// then to three digits ("2.58e+301").
+func count(n float64) string {
+	if n < 1e12 {
+		return fmt.Sprintf("%.0f", n)
+	}
+	return fmt.Sprintf("%.3g", n)
 }
 
 // Scan evaluates every position xs [mm]: the keep-out zones first (the first zone that holds

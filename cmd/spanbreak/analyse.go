@@ -16,8 +16,8 @@ type analyseOptions struct {
 	JobFile string    // path of the job file; "" with Demo
 	Demo    bool      // analyse the embedded demo job instead of a file
 	Format  string    // text | json | csv
-	Step    float64   // station spacing [m]
-	At      []float64 // stations [m]; overrides Step when given
+	Step    float64   // station spacing [mm]
+	At      []float64 // stations [mm]; overrides Step when given
 	Case    string    // one load case, unfactored
 }
 
@@ -38,8 +38,8 @@ With --case it prints one load case, unfactored.`,
 	}
 	f := cmd.Flags()
 	f.StringVar(&opts.Format, "format", "text", "output format: text, json or csv")
-	f.Float64Var(&opts.Step, "step", 0.25, "station spacing along the beam [m]")
-	f.Float64SliceVar(&opts.At, "at", nil, "evaluate only at these positions [m], e.g. --at 1.5,3.0")
+	lengthVar(f, &opts.Step, "step", spacing, 250, `station spacing along the beam [m, or with a unit: "100 mm"]`)
+	lengthsVar(f, &opts.At, "at", position, `evaluate only at these positions [m, or with a unit], e.g. --at 1.5,3.0 or --at "9000 mm"`)
 	f.StringVar(&opts.Case, "case", "", "print one load case, unfactored")
 	return cmd
 }
@@ -54,10 +54,7 @@ func runAnalyse(opts analyseOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	set := optimise.BeamSettings{Step: opts.Step * 1e3, Case: opts.Case}
-	for _, x := range opts.At {
-		set.At = append(set.At, x*1e3)
-	}
+	set := optimise.BeamSettings{Step: opts.Step, At: opts.At, Case: opts.Case}
 	o, err := optimise.AnalyseBeam(setup, set)
 	if err != nil {
 		return settingError(err)

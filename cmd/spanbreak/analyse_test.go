@@ -118,9 +118,10 @@ func TestDemoRuns(t *testing.T) {
 		assert.FileExists(t, filepath.Join(dir, f))
 	}
 	// a second run into a folder an earlier demo wrote needs no --force only for the default
-	// folder; an explicit --out is protected
-	_, _, code = run(t, "demo", "--out", dir)
-	assert.Equal(t, 2, code)
+	// folder; an explicit --out is protected: the folder exists, exit 1
+	_, stderr, code = run(t, "demo", "--out", dir)
+	assert.Equal(t, exitFailure, code)
+	assert.Contains(t, stderr, "already exists")
 }
 
 // TestBadJobs: bad input exits 1 with a message naming the field and its line.

@@ -43,7 +43,7 @@ func parseArgs(t *testing.T, args ...string) (recorded, int, string) {
 func TestArgvToOptions(t *testing.T) {
 	got, code, stderr := parseArgs(t, "analyse", "job.yaml", "--format", "csv", "--step", "0.5", "--at", "1.5,3", "--case", "G")
 	require.Equal(t, exitOK, code, stderr)
-	assert.Equal(t, analyseOptions{JobFile: "job.yaml", Format: "csv", Step: 0.5, At: []float64{1.5, 3}, Case: "G"}, *got.analyse)
+	assert.Equal(t, analyseOptions{JobFile: "job.yaml", Format: "csv", Step: 500, At: []float64{1500, 3000}, Case: "G"}, *got.analyse)
 
 	got, code, stderr = parseArgs(t, "check", "job.yaml", "--format", "json")
 	require.Equal(t, exitOK, code, stderr)
@@ -57,7 +57,7 @@ func TestArgvToOptions(t *testing.T) {
 	require.Equal(t, exitOK, code, stderr)
 	d := *got.design
 	assert.Equal(t, "job.yaml", d.JobFile)
-	assert.Equal(t, 4.5, d.At)
+	assert.Equal(t, 4500.0, d.At, "mm")
 	assert.True(t, d.AtSet)
 	assert.Equal(t, "s.yaml", d.SpliceFile)
 	assert.Equal(t, "json", d.Format)
@@ -77,12 +77,12 @@ func TestArgvToOptions(t *testing.T) {
 	got, code, stderr = parseArgs(t, "optimise", "a.yaml", "b.yaml", "--step", "0.1", "--rank", "bolts", "--exhaustive",
 		"--out", "o", "--force", "--jobs", "3", "--format", "csv")
 	require.Equal(t, exitOK, code, stderr)
-	assert.Equal(t, optimiseOptions{Paths: []string{"a.yaml", "b.yaml"}, Format: "csv", Step: 0.1, Rank: "bolts", Exhaustive: true,
+	assert.Equal(t, optimiseOptions{Paths: []string{"a.yaml", "b.yaml"}, Format: "csv", Step: 100, Rank: "bolts", Exhaustive: true,
 		Out: "o", Force: true, Jobs: 3}, *got.optimise)
 
 	got, code, stderr = parseArgs(t, "report", "job.yaml", "--out", "r", "--force", "--step", "0.2")
 	require.Equal(t, exitOK, code, stderr)
-	assert.Equal(t, reportOptions{JobFile: "job.yaml", Out: "r", Force: true, Step: 0.2}, *got.report)
+	assert.Equal(t, reportOptions{JobFile: "job.yaml", Out: "r", Force: true, Step: 200}, *got.report)
 
 	got, code, stderr = parseArgs(t, "sections", "HEB", "--format", "json")
 	require.Equal(t, exitOK, code, stderr)

@@ -135,7 +135,7 @@ func TestPlaceDoesNotClobber(t *testing.T) {
 }
 
 func TestExistsErrorMessage(t *testing.T) {
-	err := error(&existsError{"a/b.yaml"})
+	err := error(&existsError{path: "a/b.yaml"})
 	assert.True(t, errors.Is(err, fs.ErrExist))
 	assert.False(t, errors.Is(err, fs.ErrNotExist))
 	assert.True(t, strings.HasPrefix(err.Error(), "a/b.yaml already exists"))

@@ -2,16 +2,18 @@ package main
 
 import (
 	"bytes"
-	"spanbreak/optimise"
-	"spanbreak/plots/encode"
+	"io"
 
 	"github.com/spf13/cobra"
+
+	"spanbreak/optimise"
+	"spanbreak/plots/encode"
 )
 
 // checkOptions are the inputs of `spanbreak check`.
 type checkOptions struct {
 	JobFile string // path of the job file
-	Format  string // text | json
+	Format  string // text | json | csv
 }
 
 func newCheckCommand(run func(checkOptions, streams) error, ios streams) *cobra.Command {
@@ -33,7 +35,7 @@ options, costs and scan. Values the file leaves out are shown with their default
 			return run(opts, ios.of(cmd))
 		},
 	}
-	cmd.Flags().StringVar(&opts.Format, "format", "text", "output format: text or json")
+	cmd.Flags().StringVar(&opts.Format, "format", "text", "output format: text, json or csv (csv: key, value, unit, default)")
 	return cmd
 }
 
@@ -41,7 +43,7 @@ options, costs and scan. Values the file leaves out are shown with their default
 // error.
 func runCheck(opts checkOptions, ios streams) error {
 	stdout := ios.Out
-	if err := checkFormat(opts.Format, "text", "json"); err != nil {
+	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
 	setup, err := loadSetup(opts.JobFile, false)
@@ -53,7 +55,11 @@ func runCheck(opts checkOptions, ios streams) error {
 		return err
 	}
 	var buf bytes.Buffer
-	if err := encode.WriteCheck(&buf, opts.Format, jc); err != nil {
+	write := encode.WriteCheck
+	if opts.Format == "csv" {
+		write = func(w io.Writer, _ string, jc *optimise.JobCheck) error { return encode.WriteCheckCSV(w, jc) }
+	}
+	if err := write(&buf, opts.Format, jc); err != nil {
 		return err
 	}
 	_, err = stdout.Write(buf.Bytes())

@@ -331,7 +331,7 @@ func TestCheckBadJobs(t *testing.T) {
 
 func TestCheckUsage(t *testing.T) {
 	job := writeJob(t, simpleJob)
-	for _, args := range [][]string{{"check"}, {"check", job, job}, {"check", job, "--format", "csv"}, {"check", job, "--nonsense"}} {
+	for _, args := range [][]string{{"check"}, {"check", job, job}, {"check", job, "--format", "xml"}, {"check", job, "--nonsense"}} {
 		_, stderr, code := runMine(t, args...)
 		assert.Equal(t, exitUsage, code, "%v: %s", args, stderr)
 	}

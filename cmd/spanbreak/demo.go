@@ -52,16 +52,19 @@ func runDemo(opts demoOptions, ios streams) error {
 	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
+	out, force := opts.Out, opts.Force
+	if out == "" {
+		out = defaultDemoDir
+		force = force || earlierDemoReport(out)
+	}
+	if _, err := os.Lstat(out); err == nil && !force && !opts.NoReport {
+		return &existsError{path: out, hint: "pass --force to replace the folder"} // before anything is printed
+	}
 	if err := runOptimise(optimiseOptions{Demo: true, Format: opts.Format}, ios); err != nil {
 		return err
 	}
 	if opts.NoReport {
 		return nil
-	}
-	out, force := opts.Out, opts.Force
-	if out == "" {
-		out = defaultDemoDir
-		force = force || earlierDemoReport(out)
 	}
 	quiet := ios
 	quiet.Out = io.Discard

@@ -4,6 +4,7 @@ import (
 	"bytes"
 	"errors"
 	"fmt"
+	"io"
 	"math"
 	"strconv"
 	"strings"
@@ -18,7 +19,7 @@ import (
 // designOptions are the inputs of `spanbreak design`.
 type designOptions struct {
 	JobFile       string  // job file; "" for the direct mode
-	At            float64 // position along the beam [m]
+	At            float64 // position along the beam [mm]
 	AtSet         bool    // --at was given
 	Section       string  // catalogue name, or "welded HxBxTWxTF" [mm]
 	Grade         string  // beam steel grade
@@ -26,7 +27,7 @@ type designOptions struct {
 	ULS           string  // "M=..,V=..,N=.." [kNm, kN]
 	SLS           string  // same keys; "" when none
 	SpliceFile    string  // check this fixed splice instead of sizing
-	Format        string  // text | json
+	Format        string  // text | json | csv (the checks)
 	Category      string  // A | B | C (sizing, direct mode)
 	FrictionClass string  // A..D (sizing, categories B and C)
 	Distribution  string  // proportional | flanges-only
@@ -60,25 +61,25 @@ with a note naming the zone (its reason and job-file key) before the design forc
 		},
 	}
 	f := cmd.Flags()
-	f.Float64Var(&opts.At, "at", 0, "position along the beam [m] (job mode; with direct forces it only labels the sheet)")
+	lengthVar(f, &opts.At, "at", position, 0, "position along the beam [m, or with a unit: \"9000 mm\"] (job mode; with direct forces it only labels the sheet)")
 	f.StringVar(&opts.Section, "section", "", `beam section: catalogue name ("IPE 500") or "welded HxBxTWxTF" in mm`)
 	f.StringVar(&opts.Grade, "grade", "S355", "beam steel grade")
 	f.StringVar(&opts.PlateGrade, "plate-grade", "", "cover plate steel grade (default: the beam's)")
 	f.StringVar(&opts.ULS, "uls", "", "ULS design forces, e.g. M=400,V=300,N=-150 (kNm, kN)")
 	f.StringVar(&opts.SLS, "sls", "", "SLS design forces, same keys (for slip at SLS, category B)")
 	f.StringVar(&opts.SpliceFile, "splice", "", "check this splice file instead of sizing one")
-	f.StringVar(&opts.Format, "format", "text", "output format: text or json")
+	f.StringVar(&opts.Format, "format", "text", "output format: text, json or csv (csv: one row per check)")
 	f.StringVar(&opts.Category, "category", "A", "sizing: A bearing, B slip-resistant at SLS, C slip-resistant at ULS")
 	f.StringVar(&opts.FrictionClass, "friction-class", "A", "sizing: friction class of the faying surfaces, A to D (categories B and C)")
 	f.StringVar(&opts.Distribution, "distribution", "proportional", "sharing of M and N: proportional or flanges-only")
-	f.Float64Var(&opts.Gap, "gap", splice.DefaultGap, "sizing: gap between the beam ends [mm]")
+	lengthVar(f, &opts.Gap, "gap", size, splice.DefaultGap, "sizing: gap between the beam ends [mm, or with a unit]")
 	return cmd
 }
 
 // runDesign sizes or checks the splice and writes the sheet; nothing is written on error.
 func runDesign(opts designOptions, ios streams) error {
 	w := ios.Out
-	if err := checkFormat(opts.Format, "text", "json"); err != nil {
+	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
 	var fixed *splice.Geometry
@@ -100,7 +101,11 @@ func runDesign(opts designOptions, ios streams) error {
 		return settingError(err)
 	}
 	var buf bytes.Buffer
-	if err := encode.WriteDesign(&buf, opts.Format, o); err != nil {
+	write := encode.WriteDesign
+	if opts.Format == "csv" {
+		write = func(w io.Writer, _ string, o *optimise.DesignOutcome) error { return encode.WriteDesignCSV(w, o) }
+	}
+	if err := write(&buf, opts.Format, o); err != nil {
 		return err
 	}
 	if _, err := w.Write(buf.Bytes()); err != nil {
@@ -117,6 +122,14 @@ func runDesign(opts designOptions, ios streams) error {
 	return nil
 }
 
+// clipped shortens a value echoed in a message to 40 characters.
+func clipped(s string) string {
+	if r := []rune(s); len(r) > 40 {
+		return string(r[:40]) + "…"
+	}
+	return s
+}
+
 // designFromJob designs at --at with the job's envelopes and splice options.
 func designFromJob(opts designOptions, fixed *splice.Geometry) (*optimise.DesignOutcome, error) {
 	if !opts.AtSet {
@@ -131,7 +144,7 @@ func designFromJob(opts designOptions, fixed *splice.Geometry) (*optimise.Design
 	if err != nil {
 		return nil, err
 	}
-	return optimise.DesignAt(setup, opts.At*1e3, fixed, opts.SpliceFile)
+	return optimise.DesignAt(setup, opts.At, fixed, opts.SpliceFile)
 }
 
 // designDirect designs for --section, --grade, --uls and --sls.
@@ -156,7 +169,7 @@ func designDirect(opts designOptions, fixed *splice.Geometry) (*optimise.DesignO
 		spec.SLS = &f
 	}
 	if opts.AtSet {
-		x := opts.At
+		x := opts.At / 1e3 // the sheet's position is in m
 		spec.Position = &x
 	}
 	return optimise.DirectDesign(spec, fixed, opts.SpliceFile)
@@ -164,7 +177,8 @@ func designDirect(opts designOptions, fixed *splice.Geometry) (*optimise.DesignO
 
 // parseDesignForces reads "M=400,V=300,N=-150" (kNm, kN): M sets M_max and M_min, N sets
 // N_max and N_min; M_max, M_min, N_max, N_min set one extreme; an absent key is 0. A value may
-// carry its unit ("400kNm", "300 kN").
+// carry its unit ("400kNm", "300 kN"). A value must be a finite number within the plausible
+// magnitudes of the job file's loads (optimise.MaxDirectMoment, MaxDirectForce).
 func parseDesignForces(s string) (splice.Forces, error) {
 	var f splice.Forces
 	seen := map[string]bool{}
@@ -182,20 +196,31 @@ func parseDesignForces(s string) (splice.Forces, error) {
 		if strings.HasPrefix(k, "m") {
 			unit = "knm"
 		}
-		num := strings.TrimSpace(val)
-		if low := strings.ToLower(num); strings.HasSuffix(low, unit) {
-			num = strings.TrimSpace(num[:len(num)-len(unit)])
-		}
-		v, err := strconv.ParseFloat(num, 64)
-		if err != nil || math.IsNaN(v) || math.IsInf(v, 0) {
-			return f, fmt.Errorf("%s = %q is not a number in %s", strings.TrimSpace(key), strings.TrimSpace(val), map[string]string{"kn": "kN", "knm": "kNm"}[unit])
-		}
 		targets := map[string][]*float64{
 			"m": {&f.MMax, &f.MMin}, "mmax": {&f.MMax}, "mmin": {&f.MMin}, "v": {&f.V},
 			"n": {&f.NMax, &f.NMin}, "nmax": {&f.NMax}, "nmin": {&f.NMin},
 		}[k]
 		if targets == nil {
 			return f, fmt.Errorf("unknown key %q (keys: M, M_max, M_min, V, N, N_max, N_min)", strings.TrimSpace(key))
+		}
+		unitName, limit := "kN", optimise.MaxDirectForce/1e3 // [kN]
+		if unit == "knm" {
+			unitName, limit = "kNm", optimise.MaxDirectMoment/1e6 // [kNm]
+		}
+		num := strings.TrimSpace(val)
+		if low := strings.ToLower(num); strings.HasSuffix(low, unit) {
+			num = strings.TrimSpace(num[:len(num)-len(unit)])
+		}
+		v, err := strconv.ParseFloat(num, 64)
+		switch {
+		case (err != nil && !errors.Is(err, strconv.ErrRange)) || math.IsNaN(v):
+			return f, fmt.Errorf("%s = %q is not a number in %s", strings.TrimSpace(key), clipped(strings.TrimSpace(val)), unitName)
+		case err == nil && math.IsInf(v, 0):
+			return f, fmt.Errorf("%s = %q is not a finite number in %s", strings.TrimSpace(key), clipped(strings.TrimSpace(val)), unitName)
+		}
+		if !(math.Abs(v) <= limit) { // an infinity or a number too large for float64 included
+			return f, fmt.Errorf("%s = %s %s is outside the plausible range (magnitude at most %s %s); check the value and its unit",
+				strings.TrimSpace(key), clipped(num), unitName, short(limit), unitName)
 		}
 		for _, other := range map[string][]string{"m": {"mmax", "mmin"}, "mmax": {"m"}, "mmin": {"m"}, "n": {"nmax", "nmin"}, "nmax": {"n"}, "nmin": {"n"}}[k] {
 			if seen[other] {

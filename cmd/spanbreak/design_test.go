@@ -76,7 +76,7 @@ func TestDesignDirectTextSheet(t *testing.T) {
 func TestDesignJSONContract(t *testing.T) {
 	opts := directOptions()
 	opts.Format = "json"
-	opts.At, opts.AtSet = 12.5, true
+	opts.At, opts.AtSet = 12500, true // [mm]
 	var out bytes.Buffer
 	require.NoError(t, runDesign(opts, outTo(&out)))
 	var doc map[string]any
@@ -213,7 +213,7 @@ func TestDesignErrorsAndExitCodes(t *testing.T) {
 		{"unknown grade", func(o *designOptions) { o.Grade = "S999" }, exitUsage, "--grade"},
 		{"bad forces", func(o *designOptions) { o.ULS = "M=x" }, exitUsage, "--uls"},
 		{"bad category", func(o *designOptions) { o.Category = "E" }, exitUsage, "--category"},
-		{"bad format", func(o *designOptions) { o.Format = "csv" }, exitUsage, "--format"},
+		{"bad format", func(o *designOptions) { o.Format = "xml" }, exitUsage, "--format"},
 		{"job mode without --at", func(o *designOptions) { o.JobFile = "job.yaml"; o.Section, o.ULS, o.SLS = "", "", "" }, exitUsage, "--at"},
 		{"job mode with direct forces", func(o *designOptions) { o.JobFile = "job.yaml"; o.AtSet = true }, exitUsage, "direct mode"},
 		{"nothing passes", func(o *designOptions) { o.ULS = "M=3000,V=2000" }, exitInfeasible, "no splice in the design space passes"},

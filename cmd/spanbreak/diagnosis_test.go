@@ -220,7 +220,7 @@ func TestDesignInsideAKeepOutZone(t *testing.T) {
 	require.NoError(t, os.WriteFile(job, optimise.DemoJob(), 0o644))
 	run := func(at float64, format string) string {
 		var out bytes.Buffer
-		err := runDesign(designOptions{JobFile: job, At: at, AtSet: true, Format: format}, outTo(&out))
+		err := runDesign(designOptions{JobFile: job, At: at * 1e3, AtSet: true, Format: format}, outTo(&out))
 		if err != nil {
 			require.Equal(t, exitInfeasible, exitCode(err), "%v", err)
 		}

@@ -6,10 +6,13 @@ import (
 )
 
 // Exit statuses: scripts can tell bad input from bad usage and from a run that worked but
-// found no splice or layout within the limits.
+// found no splice or layout within the limits. An output that already exists (without
+// --force) is exit 1, a state of the file system rather than a mistake in the command line;
+// a run ended by a signal exits 128 + the signal's number (130 SIGINT, 143 SIGTERM, see
+// signalStatus).
 const (
 	exitOK         = 0 // success
-	exitFailure    = 1 // bad input or a failed run
+	exitFailure    = 1 // bad input, an output that already exists, or a failed run
 	exitUsage      = 2 // bad command line
 	exitInfeasible = 3 // the run worked, but no splice or layout satisfies the limits
 )
@@ -34,6 +37,10 @@ func exitCode(err error) int {
 	var e *exitError
 	if errors.As(err, &e) {
 		return e.code
+	}
+	var sig *signalError
+	if errors.As(err, &sig) {
+		return signalStatus(sig.sig)
 	}
 	// cobra's own parse errors for commands and arguments
 	msg := err.Error()

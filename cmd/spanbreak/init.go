@@ -48,9 +48,10 @@ func runInit(opts initOptions, ios streams) error {
 		_, err := stdout.Write(optimise.StarterJob())
 		return err
 	}
-	if err := writeFileAtomic(opts.File, optimise.StarterJob(), opts.Force); err != nil {
+	ph := ios.Interrupts.begin()
+	if err := ph.end(writeOutput(opts.File, optimise.StarterJob(), opts.Force, ph)); err != nil {
 		if errors.Is(err, fs.ErrExist) {
-			return fmt.Errorf("%w (pass --force to replace it)", err)
+			return &existsError{path: opts.File, hint: "pass --force to replace it"}
 		}
 		return err
 	}

@@ -9,10 +9,21 @@ import (
 	"fmt"
 	"io"
 	"os"
+	"syscall"
 )
 
 func main() {
-	os.Exit(executeWith(os.Args[1:], realRunners(), osStreams()))
+	ios := osStreams()
+	ios.Interrupts = newInterrupts(os.Exit, ios.Err)
+	os.Exit(executeListening(os.Args[1:], realRunners(), ios))
+}
+
+// executeListening is executeWith with SIGINT and SIGTERM going to ios.Interrupts for the
+// time of the run: a signal ends it with status 130 or 143 and leaves nothing half-written.
+func executeListening(args []string, r runners, ios streams) int {
+	stop := ios.Interrupts.listen(syscall.SIGINT, syscall.SIGTERM)
+	defer stop()
+	return executeWith(args, r, ios)
 }
 
 // execute runs one command line with the real commands and returns the process exit status.

@@ -6,7 +6,6 @@ import (
 	"fmt"
 	"io"
 	"io/fs"
-	"math"
 	"os"
 	"path/filepath"
 	"sort"
@@ -24,7 +23,7 @@ type optimiseOptions struct {
 	Paths      []string // job files, or folders of job files (*.yaml, *.yml)
 	Demo       bool     // optimise the embedded demo job instead of files
 	Format     string   // text | json | csv
-	Step       float64  // candidate spacing [m]; 0: the job's scan.step (default 0.05 m)
+	Step       float64  // candidate spacing [mm]; 0: the job's scan.step (default 0.05 m)
 	Rank       string   // cost | bolts | mass | utilisation
 	Exhaustive bool     // reference run without pruning or sharing; prints the same results
 	Out        string   // folder to write the results into as files; "" for none
@@ -60,7 +59,7 @@ the limit that cannot be met with the figure that breaks it.`,
 	}
 	f := cmd.Flags()
 	f.StringVar(&opts.Format, "format", "text", "output format: text, json or csv")
-	f.Float64Var(&opts.Step, "step", 0, "candidate spacing along the beam [m] (default: the job's scan.step, else 0.05)")
+	lengthVar(f, &opts.Step, "step", spacing, 0, `candidate spacing along the beam [m, or with a unit: "50 mm"] (default: the job's scan.step, else 0.05)`)
 	f.StringVar(&opts.Rank, "rank", "cost", "rank positions by cost, bolts, mass or utilisation")
 	f.BoolVar(&opts.Exhaustive, "exhaustive", false, "reference run: no pruning or sharing (slow; same results)")
 	f.StringVar(&opts.Out, "out", "", "also write the results as files into this folder")
@@ -74,7 +73,6 @@ the limit that cannot be met with the figure that breaks it.`,
 // runOptimise optimises one job or a batch and writes the result; for one job nothing is
 // written on error.
 func runOptimise(opts optimiseOptions, ios streams) error {
-	stdout := ios.Out
 	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
 		return err
 	}
@@ -82,13 +80,13 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 	if err != nil {
 		return usageError(fmt.Errorf("--rank: %w", err))
 	}
-	if opts.Step < 0 || math.IsNaN(opts.Step) || math.IsInf(opts.Step, 0) {
-		return usageError(fmt.Errorf("--step %g: want a positive spacing in m", opts.Step))
+	if err := checkStepOption(opts.Step); err != nil {
+		return err
 	}
 	if opts.Jobs < 0 {
 		return usageError(fmt.Errorf("--jobs %d: want a positive number", opts.Jobs))
 	}
-	set := optimise.Settings{Step: opts.Step * 1e3, Rank: rank, Exhaustive: opts.Exhaustive, Uniform: opts.Uniform}
+	set := optimise.Settings{Step: opts.Step, Rank: rank, Exhaustive: opts.Exhaustive, Uniform: opts.Uniform}
 	if opts.SpliceFile != "" {
 		g, err := loadSplice(opts.SpliceFile)
 		if err != nil {
@@ -97,21 +95,24 @@ func runOptimise(opts optimiseOptions, ios streams) error {
 		set.Fixed = &g
 	}
 	if opts.Demo {
-		return optimiseOne(opts, set, "", stdout)
+		return optimiseOne(opts, set, "", ios)
 	}
-	files, batch, err := jobFiles(opts.Paths)
+	files, batch, err := jobFiles(opts.Paths, ios.Err)
 	if err != nil {
 		return err
 	}
 	if !batch {
-		return optimiseOne(opts, set, files[0], stdout)
+		return optimiseOne(opts, set, files[0], ios)
 	}
 	return optimiseBatch(opts, set, files, ios)
 }
 
 // jobFiles expands the arguments: files as given, folders to their *.yaml and *.yml files in
-// name order. A batch is more than one file or any folder.
-func jobFiles(paths []string) (files []string, batch bool, err error) {
+// name order. A batch is more than one file or any folder. In a folder, a *.yaml or *.yml
+// entry that is not a regular file (a named pipe, a device, a folder; a symbolic link counts
+// as what it points to) is skipped with a warning to warn, so that it cannot hang the batch;
+// a file given as an argument is left to readInput, which refuses it.
+func jobFiles(paths []string, warn io.Writer) (files []string, batch bool, err error) {
 	batch = len(paths) > 1
 	for _, p := range paths {
 		info, err := os.Stat(p)
@@ -130,9 +131,23 @@ func jobFiles(paths []string) (files []string, batch bool, err error) {
 		var found []string
 		for _, e := range entries {
 			ext := strings.ToLower(filepath.Ext(e.Name()))
-			if !e.IsDir() && (ext == ".yaml" || ext == ".yml") {
-				found = append(found, filepath.Join(p, e.Name()))
+			if ext != ".yaml" && ext != ".yml" {
+				continue
 			}
+			path := filepath.Join(p, e.Name())
+			if info, err := os.Stat(path); err != nil || !info.Mode().IsRegular() {
+				why := "it is not a regular file"
+				var pe *fs.PathError
+				switch {
+				case errors.As(err, &pe):
+					why = pe.Err.Error() // a dangling link, no permission
+				case err == nil:
+					why = "it is " + fileKind(info.Mode()) + ", not a regular file"
+				}
+				fmt.Fprintf(warn, "spanbreak: warning: skipping %s: %s\n", path, why)
+				continue
+			}
+			found = append(found, path)
 		}
 		if len(found) == 0 {
 			return nil, false, fmt.Errorf("%s: the folder has no job files (*.yaml, *.yml)", p)
@@ -144,7 +159,7 @@ func jobFiles(paths []string) (files []string, batch bool, err error) {
 }
 
 // optimiseOne runs one job (file "" with opts.Demo) and prints it.
-func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.Writer) error {
+func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, ios streams) error {
 	setup, err := loadSetup(file, opts.Demo)
 	if err != nil {
 		return err
@@ -152,7 +167,7 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 	res, runErr := optimise.Run(setup, set)
 	var inf *optimise.InfeasibleError
 	if runErr != nil && !errors.As(runErr, &inf) {
-		return runErr
+		return settingError(runErr)
 	}
 	// a run without a layout within the limits is still a whole document: the candidates
 	// with their reasons and the diagnosis, printed before the exit-3 error
@@ -161,11 +176,11 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, w io.
 		return err
 	}
 	if opts.Out != "" {
-		if err := writeResultFiles(opts.Out, opts.Force, res); err != nil {
+		if err := writeResultFiles(opts.Out, opts.Force, res, ios.Interrupts); err != nil {
 			return err
 		}
 	}
-	if _, err := w.Write(buf.Bytes()); err != nil {
+	if _, err := ios.Out.Write(buf.Bytes()); err != nil {
 		return err
 	}
 	if inf != nil {
@@ -191,7 +206,7 @@ func optimiseBatch(opts optimiseOptions, set optimise.Settings, files []string, 
 		return err
 	}
 	if opts.Out != "" {
-		if err := writeBatchFiles(opts.Out, opts.Force, outcomes, opts.Format, buf.Bytes()); err != nil {
+		if err := writeBatchFiles(opts.Out, opts.Force, outcomes, opts.Format, buf.Bytes(), ios.Interrupts); err != nil {
 			return err
 		}
 	}
@@ -212,21 +227,31 @@ func progressReporter(ios streams, total int) (func(done, total int), func()) {
 	return func(done, _ int) { _ = bar.Set(done) }, func() { _ = bar.Finish() }
 }
 
-// batchStatus is the exit status of a batch: a failed job (bad input) is exit 1, otherwise a
-// job without a feasible layout is exit 3.
+// batchStatus is the exit status of a batch: a job that refuses a setting of the command line
+// (a --step too fine for its beam) is exit 2, naming the flag; otherwise a failed job (bad
+// input) is exit 1, and a job without a feasible layout exit 3.
 func batchStatus(outcomes []optimise.BatchOutcome) error {
 	failed, infeasible := 0, 0
+	var setting error // the first job that refuses a setting of the command line
 	for _, o := range outcomes {
 		var inf *optimise.InfeasibleError
+		var se *optimise.SettingError
 		switch {
 		case o.Err == nil:
 		case errors.As(o.Err, &inf):
 			infeasible++
+		case errors.As(o.Err, &se):
+			failed++
+			if setting == nil {
+				setting = usageError(fmt.Errorf("--%s: %s: %w", se.Setting, o.File, se.Err))
+			}
 		default:
 			failed++
 		}
 	}
 	switch {
+	case setting != nil:
+		return setting
 	case failed > 0:
 		return fmt.Errorf("%d of %d job(s) failed (see the summary)", failed, len(outcomes))
 	case infeasible > 0:
@@ -262,16 +287,16 @@ func resultFiles(r *optimise.Outcome) ([]outFile, error) {
 		{base + ".candidates.csv", cand.Bytes()}, {base + ".layouts.csv", lay.Bytes()}}, nil
 }
 
-func writeResultFiles(dir string, force bool, r *optimise.Outcome) error {
+func writeResultFiles(dir string, force bool, r *optimise.Outcome, g *interrupts) error {
 	files, err := resultFiles(r)
 	if err != nil {
 		return err
 	}
-	return writeOutFiles(dir, force, files)
+	return writeOutFiles(dir, force, files, g)
 }
 
 // writeBatchFiles writes every job's files and the summary (summary.txt, .json or .csv).
-func writeBatchFiles(dir string, force bool, outcomes []optimise.BatchOutcome, format string, summary []byte) error {
+func writeBatchFiles(dir string, force bool, outcomes []optimise.BatchOutcome, format string, summary []byte, g *interrupts) error {
 	var files []outFile
 	for _, o := range outcomes {
 		if o.Outcome != nil {
@@ -284,34 +309,7 @@ func writeBatchFiles(dir string, force bool, outcomes []optimise.BatchOutcome, f
 	}
 	ext := map[string]string{"text": "txt", "json": "json", "csv": "csv"}[format]
 	files = append(files, outFile{"summary." + ext, summary})
-	return writeOutFiles(dir, force, files)
-}
-
-// writeOutFiles writes the files into dir, each whole or not at all. Without force it first
-// makes sure that none exists, so that a refusal leaves the folder untouched.
-func writeOutFiles(dir string, force bool, files []outFile) error {
-	if err := os.MkdirAll(dir, 0o755); err != nil {
-		return err
-	}
-	seen := map[string]bool{}
-	for _, f := range files {
-		if seen[f.name] {
-			return fmt.Errorf("--out: two jobs would both write %s; give the job files distinct names", f.name)
-		}
-		seen[f.name] = true
-		if _, err := os.Lstat(filepath.Join(dir, f.name)); err == nil && !force {
-			return fmt.Errorf("%s already exists; it was left unchanged (pass --force to replace the files)", filepath.Join(dir, f.name))
-		}
-	}
-	for _, f := range files {
-		if err := writeFileAtomic(filepath.Join(dir, f.name), f.data, force); err != nil {
-			if errors.Is(err, fs.ErrExist) {
-				return fmt.Errorf("%w (pass --force to replace the files)", err)
-			}
-			return err
-		}
-	}
-	return nil
+	return writeOutFiles(dir, force, files, g)
 }
 
 // jobBase is the file name of a job without folder and extension ("demo" for the demo).

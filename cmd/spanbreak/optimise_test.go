@@ -116,7 +116,7 @@ func TestOptimiseExhaustivePrintsIdenticalResults(t *testing.T) {
 }
 
 func TestOptimiseCSV(t *testing.T) {
-	out, _, err := runOpt(t, optimiseOptions{Paths: []string{smallJob}, Format: "csv", Step: 0.5})
+	out, _, err := runOpt(t, optimiseOptions{Paths: []string{smallJob}, Format: "csv", Step: 500})
 	require.NoError(t, err)
 	rows, err := csv.NewReader(strings.NewReader(out)).ReadAll()
 	require.NoError(t, err)
@@ -148,7 +148,7 @@ func TestOptimiseUsageErrors(t *testing.T) {
 	}{
 		{"format", optimiseOptions{Demo: true, Format: "xml"}, "--format"},
 		{"rank", optimiseOptions{Demo: true, Format: "text", Rank: "price"}, "--rank"},
-		{"step", optimiseOptions{Demo: true, Format: "text", Step: -1}, "--step"},
+		{"step", optimiseOptions{Demo: true, Format: "text", Step: -1000}, "--step"},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
@@ -269,12 +269,12 @@ func TestOptimiseOutFolder(t *testing.T) {
 	}
 	before, err := os.ReadFile(filepath.Join(dir, "small-space.layouts.csv"))
 	require.NoError(t, err)
-	_, _, err = runOpt(t, optimiseOptions{Paths: []string{smallJob}, Format: "text", Out: dir, Step: 0.5})
+	_, _, err = runOpt(t, optimiseOptions{Paths: []string{smallJob}, Format: "text", Out: dir, Step: 500})
 	require.ErrorContains(t, err, "--force")
 	after, err := os.ReadFile(filepath.Join(dir, "small-space.layouts.csv"))
 	require.NoError(t, err)
 	assert.Equal(t, before, after, "left unchanged without --force")
-	_, _, err = runOpt(t, optimiseOptions{Paths: []string{smallJob}, Format: "text", Out: dir, Step: 0.5, Force: true})
+	_, _, err = runOpt(t, optimiseOptions{Paths: []string{smallJob}, Format: "text", Out: dir, Step: 500, Force: true})
 	require.NoError(t, err)
 	entries, err := os.ReadDir(dir)
 	require.NoError(t, err)

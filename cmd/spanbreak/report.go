@@ -5,7 +5,6 @@ import (
 	"errors"
 	"fmt"
 	"os"
-	"path/filepath"
 	"sort"
 
 	"github.com/spf13/cobra"
@@ -21,7 +20,7 @@ type reportOptions struct {
 	Demo    bool    // report on the embedded demo job instead of a file
 	Out     string  // folder to write
 	Force   bool    // replace Out if it exists
-	Step    float64 // candidate spacing [m]; 0 takes the job's scan.step
+	Step    float64 // candidate spacing [mm]; 0 takes the job's scan.step
 	Uniform bool    // recommend the best layout of identical splices
 	Splice  string  // check this one splice at every position instead of sizing one
 }
@@ -54,16 +53,10 @@ optimise document with its diagnosis; scan.csv as always; layouts.csv has its he
 	f := cmd.Flags()
 	f.StringVar(&opts.Out, "out", "", "folder to write the report into (required; written complete or not at all)")
 	f.BoolVar(&opts.Force, "force", false, "replace the folder if it exists")
-	f.Float64Var(&opts.Step, "step", 0, "candidate spacing along the beam [m] (default: the job's scan.step)")
+	lengthVar(f, &opts.Step, "step", spacing, 0, `candidate spacing along the beam [m, or with a unit: "50 mm"] (default: the job's scan.step)`)
 	f.BoolVar(&opts.Uniform, "uniform", false, "recommend the best layout of identical splices (one splice type)")
 	f.StringVar(&opts.Splice, "splice", "", "check this splice file at every position instead of sizing one")
 	return cmd
-}
-
-// reportFile is one file of the report folder.
-type reportFile struct {
-	name string
-	data []byte
 }
 
 // runReport optimises the job, builds the report in memory and writes the folder; nothing is
@@ -73,11 +66,11 @@ func runReport(opts reportOptions, ios streams) error {
 	if opts.Out == "" {
 		return usageError(errors.New("--out: give the folder to write the report into"))
 	}
-	if opts.Step < 0 {
-		return usageError(fmt.Errorf("--step: %g m must be positive", opts.Step))
+	if err := checkStepOption(opts.Step); err != nil {
+		return err
 	}
 	if _, err := os.Lstat(opts.Out); err == nil && !opts.Force {
-		return usageError(fmt.Errorf("--out %s: the folder exists; pass --force to replace it", opts.Out))
+		return &existsError{path: opts.Out, hint: "pass --force to replace the folder"}
 	} else if err != nil && !errors.Is(err, os.ErrNotExist) {
 		return fmt.Errorf("--out %s: %w", opts.Out, err)
 	}
@@ -85,7 +78,7 @@ func runReport(opts reportOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	set := optimise.Settings{Step: opts.Step * 1e3, Uniform: opts.Uniform}
+	set := optimise.Settings{Step: opts.Step, Uniform: opts.Uniform}
 	if opts.Splice != "" {
 		g, err := loadSplice(opts.Splice)
 		if err != nil {
@@ -96,7 +89,7 @@ func runReport(opts reportOptions, ios streams) error {
 	res, runErr := optimise.Run(setup, set)
 	var inf *optimise.InfeasibleError
 	if runErr != nil && !errors.As(runErr, &inf) {
-		return runErr
+		return settingError(runErr)
 	}
 	// without a layout the report still says everything up to the candidates, then why no
 	// layout fits; the exit status stays 3
@@ -105,7 +98,8 @@ func runReport(opts reportOptions, ios streams) error {
 	if err != nil {
 		return err
 	}
-	if err := writeFolder(opts.Out, files, opts.Force); err != nil {
+	ph := ios.Interrupts.begin()
+	if err := ph.end(writeFolder(opts.Out, files, opts.Force, ph)); err != nil {
 		return err
 	}
 	fmt.Fprintf(stdout, "spanbreak %s: report on %s\n", version(), setup.File)
@@ -162,54 +156,4 @@ func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]r
 		reportFile{"result.json", result.Bytes()})
 	sort.SliceStable(files, func(i, j int) bool { return files[i].name < files[j].name })
 	return files, nil
-}
-
-// writeFolder writes the files into a temporary folder beside dir and renames it to dir, so
-// that dir is either the complete new report or untouched. With replace, an existing dir is
-// moved aside first and removed once the new one is in place (restored if the rename fails).
-func writeFolder(dir string, files []reportFile, replace bool) (err error) {
-	parent, base := filepath.Split(filepath.Clean(dir))
-	if parent == "" {
-		parent = "."
-	}
-	tmp, err := os.MkdirTemp(parent, "."+base+".tmp-")
-	if err != nil {
-		return fmt.Errorf("--out %s: %w", dir, err)
-	}
-	defer func() {
-		if err != nil {
-			os.RemoveAll(tmp)
-		}
-	}()
-	for _, f := range files {
-		if err := writeFileAtomic(filepath.Join(tmp, f.name), f.data, false); err != nil {
-			return err
-		}
-	}
-	if err := os.Chmod(tmp, 0o755); err != nil {
-		return err
-	}
-	var old string
-	if _, statErr := os.Lstat(dir); statErr == nil {
-		if !replace {
-			return usageError(fmt.Errorf("--out %s: the folder exists; pass --force to replace it", dir))
-		}
-		old = tmp + ".old"
-		if err := os.Rename(dir, old); err != nil {
-			return fmt.Errorf("--out %s: moving the old folder aside: %w", dir, err)
-		}
-	}
-	if err := os.Rename(tmp, dir); err != nil {
-		if old != "" {
-			_ = os.Rename(old, dir)
-		}
-		return fmt.Errorf("--out %s: %w", dir, err)
-	}
-	syncDir(parent)
-	if old != "" {
-		if err := os.RemoveAll(old); err != nil {
-			return fmt.Errorf("--out %s: the new report is in place, but the old folder %s could not be removed: %w", dir, old, err)
-		}
-	}
-	return nil
 }

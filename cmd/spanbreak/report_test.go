@@ -103,7 +103,7 @@ func TestRunReportReplacesOnlyWithForce(t *testing.T) {
 	err := runReport(reportOptions{Demo: true, Out: out}, outTo(&stdout))
 	require.Error(t, err)
 	assert.Contains(t, err.Error(), "--force")
-	assert.Equal(t, exitUsage, exitCode(err))
+	assert.Equal(t, exitFailure, exitCode(err), "an existing folder is a state of the file system, exit 1")
 	assert.FileExists(t, marker, "the existing folder is untouched")
 	assert.Equal(t, []string{"report"}, folderNames(t, parent))
 	assert.Zero(t, stdout.Len())
@@ -125,7 +125,7 @@ func TestRunReportErrors(t *testing.T) {
 		exit int
 	}{
 		{"no folder", reportOptions{Demo: true}, "--out", exitUsage},
-		{"negative step", reportOptions{Demo: true, Out: filepath.Join(dir, "a"), Step: -0.1}, "--step", exitUsage},
+		{"negative step", reportOptions{Demo: true, Out: filepath.Join(dir, "a"), Step: -100}, "--step", exitUsage},
 		{"missing job file", reportOptions{JobFile: filepath.Join(dir, "none.yaml"), Out: filepath.Join(dir, "b")}, "none.yaml", exitFailure},
 		{"bad job file", reportOptions{JobFile: job, Out: filepath.Join(dir, "c")}, "bad.yaml", exitFailure},
 	}
@@ -171,7 +171,7 @@ func TestReportCommandParsesArgsAndFlags(t *testing.T) {
 	cmd.SetArgs([]string{job, "--out", out}) // exists now, no --force
 	err = cmd.Execute()
 	require.Error(t, err)
-	assert.Equal(t, exitUsage, exitCode(err))
+	assert.Equal(t, exitFailure, exitCode(err))
 
 	cmd = newReportCommand(runReport, streams{})
 	cmd.SetOut(&bytes.Buffer{})

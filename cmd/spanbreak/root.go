@@ -1,11 +1,14 @@
 package main
 
 import (
+	"errors"
 	"fmt"
 	"runtime/debug"
+	"strconv"
 	"strings"
 
 	"github.com/spf13/cobra"
+	"github.com/spf13/pflag"
 )
 
 // caution is printed with every engineering result.
@@ -36,7 +39,7 @@ splices to EN 1993-1-8 and finds where to break the beam for transport and erect
 		SilenceUsage:  true,
 		Version:       version(),
 	}
-	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return usageError(err) })
+	root.SetFlagErrorFunc(func(_ *cobra.Command, err error) error { return usageError(flagValueError(err)) })
 	root.SetOut(ios.Out)
 	root.SetErr(ios.Err)
 	root.AddCommand(
@@ -61,6 +64,31 @@ func checkFormat(format string, allowed ...string) error {
 		}
 	}
 	return usageError(fmt.Errorf("--format %q: want one of %s", format, strings.Join(allowed, ", ")))
+}
+
+// flagValueError words a flag value that cannot be used as `--name "value": why`, in place
+// of the parser's `invalid argument "value" for "--name" flag: strconv.ParseFloat: ...`.
+// Other flag errors (an unknown flag, a missing value) pass unchanged.
+func flagValueError(err error) error {
+	var iv *pflag.InvalidValueError
+	if !errors.As(err, &iv) {
+		return err
+	}
+	why := iv.Unwrap()
+	var ne *strconv.NumError
+	if errors.As(why, &ne) {
+		switch {
+		case ne.Func == "ParseBool":
+			why = errors.New("want true or false")
+		case errors.Is(ne.Err, strconv.ErrRange):
+			why = errors.New("the number is out of range")
+		case strings.HasPrefix(ne.Func, "ParseFloat"):
+			why = errors.New("want a number")
+		default:
+			why = errors.New("want a whole number")
+		}
+	}
+	return fmt.Errorf("--%s %q: %w", iv.GetFlag().Name, iv.GetValue(), why)
 }
 
 // argsUsage wraps a cobra argument validator so that its errors exit with status 2.

@@ -10,12 +10,15 @@ import (
 )
 
 // streams are what a command may use of its surroundings: standard output and error, whether
-// standard error is a terminal (a progress bar may be drawn only then) and the clock (the date
-// on a report). main builds them from the process; tests from buffers and a fixed clock.
+// standard error is a terminal (a progress bar may be drawn only then), the clock (the date
+// on a report) and the handler of SIGINT and SIGTERM that output is written under. main
+// builds them from the process; tests from buffers, a fixed clock and, where they deliver a
+// signal, their own handler.
 type streams struct {
 	Out, Err    io.Writer
 	ErrTerminal bool
 	Now         func() time.Time
+	Interrupts  *interrupts // nil: no signal is handled (tests)
 }
 
 // osStreams are the process's own streams.
