@@ -21,7 +21,9 @@
 // patterns without enumerating them.
 //
 // Errors: anything the input can cause (a mechanism, a load off the beam, an unknown section
-// or grade, NaN) is a returned error naming the item; mechanisms wrap ErrMechanism. The
+// or grade, NaN) is a returned error naming the item; mechanisms wrap ErrMechanism. An
+// unknown section's error lists the close catalogue names by Nearest, the suggestion rule the
+// job file's did-you-mean follows too. The
 // package never panics on user data and never prints. Every result is a complete value; an
 // Analysis is immutable and safe for concurrent use.
 package beam
