@@ -1,6 +1,7 @@
 package splice
 
 import (
+	"errors"
 	"fmt"
 )
 
@@ -179,7 +180,7 @@ func (p *Problem) validate() error {
 			errs = append(errs, err)
 		}
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 func unitRatesOf(r *Rates, b *boltData, cat Category) (unitRates, error) {
@@ -228,7 +229,7 @@ func Verify(p Problem, g Geometry) (Result, error) {
 		errs = append(errs, err)
 	}
 	if len(errs) > 0 {
-		return Result{}, joinErrors(errs)
+		return Result{}, errors.Join(errs...)
 	}
 	e, err := newEnv(&p, cat, fc, holes, g.Gap, p.Detailing)
 	if err != nil {

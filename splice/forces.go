@@ -1,6 +1,7 @@
 package splice
 
 import (
+	"errors"
 	"fmt"
 	"math"
 )
@@ -30,7 +31,7 @@ func (f Forces) validate(name string) error {
 	if f.NMax < f.NMin {
 		errs = append(errs, fmt.Errorf("%s: N_max = %.3f kN is less than N_min = %.3f kN", name, f.NMax*toKN, f.NMin*toKN))
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 // MinimumAction is an optional user policy raising the design forces to a fraction of the
@@ -49,7 +50,7 @@ func (m MinimumAction) validate() error {
 	if !(m.ShearFraction >= 0 && m.ShearFraction <= 1) {
 		errs = append(errs, fmt.Errorf("minimum.shear_fraction: %g is not between 0 and 1", m.ShearFraction))
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 // FlangeActions are the forces one flange splice transfers, the worse flange of the two

@@ -1,9 +1,11 @@
 package splice
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 )
 
 // Size finds the cheapest splice in p.Sizing.Space that passes every check at this position.
@@ -93,7 +95,7 @@ func newSearcher(p *Problem) (*searcher, error) {
 		errs = append(errs, err)
 	}
 	if len(errs) > 0 {
-		return nil, joinErrors(errs)
+		return nil, errors.Join(errs...)
 	}
 	if len(sp.sizes) == 0 || len(sp.classes) == 0 || len(sp.th) == 0 || len(sp.inner) == 0 {
 		return nil, errors.New("splice: the design space is empty")
@@ -131,7 +133,7 @@ func newSearcher(p *Problem) (*searcher, error) {
 		}
 	}
 	if len(errs) > 0 {
-		return nil, joinErrors(errs)
+		return nil, errors.Join(errs...)
 	}
 	s.groups = groupsFor(cat)
 	// The memo keys are what the groups do not depend on: the flange row-free checks are the
@@ -315,11 +317,7 @@ func (s *searcher) webFirstRows(b *boltData, ci int) int {
 	crLo, crHi := &s.cr[0], &s.cr[s.nth-1]
 	fbBeam := maxBearing(b, e.m.FuWeb, e.m.Section.Tw, e.f.GammaM2)
 	// 2.5·min(fub/fu, 1)·fu = 2.5·min(fub, fu) grows with fu: the strongest plate at the thickest
-	fuMax := s.sp.fu[0]
-	for _, fu := range s.sp.fu {
-		fuMax = max(fuMax, fu)
-	}
-	fbPlate := maxBearing(b, fuMax, s.sp.th[s.nth-1], e.f.GammaM2)
+	fbPlate := maxBearing(b, slices.Max(s.sp.fu), s.sp.th[s.nth-1], e.f.GammaM2)
 	c := float64(s.sp.wcols[ci])
 	ehLo := clamp(hr.e1T, hr.eMin, crLo.eMax)
 	phLo, phHi := 0.0, 0.0
@@ -632,18 +630,9 @@ func keyLess(abi int, afl *flangeLayout, awl *webLayout, bbi int, bfl *flangeLay
 		return abi < bbi
 	}
 	if afl.key != bfl.key {
-		return lessInts(afl.key[:], bfl.key[:])
+		return slices.Compare(afl.key[:], bfl.key[:]) < 0
 	}
-	return lessInts(awl.key[:], bwl.key[:])
-}
-
-func lessInts(a, b []int) bool {
-	for i := range a {
-		if a[i] != b[i] {
-			return a[i] < b[i]
-		}
-	}
-	return false
+	return slices.Compare(awl.key[:], bwl.key[:]) < 0
 }
 
 func (c *choice) better(o *choice) bool {
@@ -678,15 +667,7 @@ func (s *searcher) size() (Result, error) {
 			order = append(order, cand{bi: bi, lb: common.add(lf).add(lw), lf: lf, lw: lw})
 		}
 	}
-	for i := 1; i < len(order); i++ {
-		for j := i; j > 0; j-- {
-			a, b := &order[j-1], &order[j]
-			if k := a.lb.cmp(b.lb); k < 0 || (k == 0 && a.bi < b.bi) {
-				break
-			}
-			order[j-1], order[j] = order[j], order[j-1]
-		}
-	}
+	slices.SortFunc(order, func(a, b cand) int { return cmp.Or(a.lb.cmp(b.lb), cmp.Compare(a.bi, b.bi)) })
 	var best choice
 	for _, c := range order {
 		if best.found {
