@@ -144,9 +144,12 @@ func (d *checkDef) part() string {
 // applies reports whether the check is made in a splice of this category.
 func (d *checkDef) applies(preloaded bool) bool { return preloaded || !d.preloaded }
 
-// check starts a Check with the row's id, clause and limit state in e.
+// check starts a Check with the row's id, clause and limit state in e and its numbers:
+// demand and resistance are internal values, scale converts them to unit.
 func (d *checkDef) check(e *env, unit string, demand, resistance, scale float64) Check {
-	return newCheck(d.id, d.clause, e.states[d.state], unit, demand, resistance, scale)
+	u := utilisation(demand, resistance)
+	return Check{ID: d.id, Clause: d.clause, State: e.states[d.state], Unit: unit,
+		Demand: demand * scale, Resistance: resistance * scale, Utilisation: u, Pass: passes(u)}
 }
 
 // appendCheck makes the check for the splice v is set to and appends it to checks.

@@ -11,12 +11,6 @@ type webEval struct {
 	gs webGroup // slip state
 }
 
-func newWebEval(e *env, b *boltData, l *webLayout) webEval {
-	w := webEval{e: e, b: b, l: l}
-	w.analyse()
-	return w
-}
-
 // analyse distributes the web forces over the bolt group, at ULS and in the slip state.
 func (w *webEval) analyse() {
 	a := &w.e.act.Web
