@@ -50,6 +50,7 @@ type searcher struct {
 	crTf    capRules    // for the beam flange as the thinner outer part
 	bolts   []boltData  // index = size index × classes + class index
 	rates   []unitRates
+	fuMax   float64       // the largest plate fu of the design space [N/mm²]
 	groups  *sizingGroups // the checks of the category, by sizing step (table.go)
 	scan    evaluator     // the candidate being scanned, and the result
 	rowFree flangeSlot    // the row-free flange checks, which run inside a flange scan
@@ -104,7 +105,7 @@ func newSearcher(p *Problem) (*searcher, error) {
 	if err != nil {
 		return nil, err
 	}
-	s := &searcher{p: p, e: e, sp: sp, nth: len(sp.th), nfc: len(sp.fcols), nwc: len(sp.wcols), nwr: len(sp.wrows), nclass: len(sp.classes)}
+	s := &searcher{p: p, e: e, sp: sp, fuMax: slices.Max(sp.fu), nth: len(sp.th), nfc: len(sp.fcols), nwc: len(sp.wcols), nwr: len(sp.wrows), nclass: len(sp.classes)}
 	s.sr = newSectionRules(&e.m, &e.det, e.gap)
 	s.hr = make([]holeRules, len(sp.sizes))
 	for i, size := range sp.sizes {
@@ -317,7 +318,7 @@ func (s *searcher) webFirstRows(b *boltData, ci int) int {
 	crLo, crHi := &s.cr[0], &s.cr[s.nth-1]
 	fbBeam := maxBearing(b, e.m.FuWeb, e.m.Section.Tw, e.f.GammaM2)
 	// 2.5·min(fub/fu, 1)·fu = 2.5·min(fub, fu) grows with fu: the strongest plate at the thickest
-	fbPlate := maxBearing(b, slices.Max(s.sp.fu), s.sp.th[s.nth-1], e.f.GammaM2)
+	fbPlate := maxBearing(b, s.fuMax, s.sp.th[s.nth-1], e.f.GammaM2)
 	c := float64(s.sp.wcols[ci])
 	ehLo := clamp(hr.e1T, hr.eMin, crLo.eMax)
 	phLo, phHi := 0.0, 0.0
@@ -660,14 +661,19 @@ func (s *searcher) size() (Result, error) {
 		bi         int
 		lb, lf, lw score
 	}
-	order := make([]cand, 0, len(s.bolts))
+	cands := make([]cand, 0, len(s.bolts))
 	for bi := range s.bolts {
 		if lf, lw, ok := s.lowerBounds(bi); ok {
 			common := score{cost: s.rates[bi].splice}
-			order = append(order, cand{bi: bi, lb: common.add(lf).add(lw), lf: lf, lw: lw})
+			cands = append(cands, cand{bi: bi, lb: common.add(lf).add(lw), lf: lf, lw: lw})
 		}
 	}
-	slices.SortFunc(order, func(a, b cand) int { return cmp.Or(a.lb.cmp(b.lb), cmp.Compare(a.bi, b.bi)) })
+	// in order of the lower bound, then of the bolt; sorted by pointer, the candidates being large
+	order := make([]*cand, len(cands))
+	for i := range cands {
+		order[i] = &cands[i]
+	}
+	slices.SortFunc(order, func(a, b *cand) int { return cmp.Or(a.lb.cmp(b.lb), cmp.Compare(a.bi, b.bi)) })
 	var best choice
 	for _, c := range order {
 		if best.found {
