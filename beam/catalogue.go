@@ -1,6 +1,7 @@
 package beam
 
 import (
+	"cmp"
 	_ "embed"
 	"encoding/csv"
 	"errors"
@@ -190,52 +191,43 @@ func parseCatalogueRecord(rec, want []string) (catalogueRow, error) {
 	return catalogueRow{Section: s, PublishedMass: v[7], keys: sectionKeys(s)}, nil
 }
 
-// suggestNames returns up to n catalogue names close to the normalised key: smallest edit
-// distance first, then the nearest size number, then catalogue order. Names further than about
-// a third of the key's length are not suggested.
+// suggestNames returns up to n catalogue names close to the normalised key: the sections with
+// a spelling at the smallest edit distance (Nearest), the nearest size number first, then in
+// catalogue order.
 func suggestNames(key string, rows []catalogueRow, n int) []string {
 	if key == "" {
 		return nil
 	}
-	type candidate struct {
-		name     string
-		distance int
-		sizeGap  float64
-		order    int
+	var keys []string
+	var owner []int
+	for i, row := range rows {
+		for _, k := range row.keys {
+			keys, owner = append(keys, k), append(owner, i)
+		}
 	}
-	limit := max(2, len([]rune(key))/3)
+	type candidate struct {
+		row     int
+		sizeGap float64 // to the nearest size number among the row's spellings
+	}
 	size, hasSize := leadingNumber(key)
 	var cands []candidate
-	for i, row := range rows {
-		best := math.MaxInt
+	for _, j := range Nearest(key, keys) {
+		row := owner[j]
+		if len(cands) > 0 && cands[len(cands)-1].row == row {
+			continue // another spelling of the same section: a row's spellings are listed together
+		}
 		gap := math.Inf(1)
-		for _, k := range row.keys {
-			if d := editDistance(key, k); d < best {
-				best = d
-			}
+		for _, k := range rows[row].keys {
 			if other, ok := leadingNumber(k); ok && hasSize {
 				gap = math.Min(gap, math.Abs(other-size))
 			}
 		}
-		if best <= limit {
-			cands = append(cands, candidate{row.Section.Name, best, gap, i})
-		}
+		cands = append(cands, candidate{row, gap})
 	}
-	slices.SortFunc(cands, func(a, b candidate) int {
-		if a.distance != b.distance {
-			return a.distance - b.distance
-		}
-		if a.sizeGap != b.sizeGap {
-			if a.sizeGap < b.sizeGap {
-				return -1
-			}
-			return 1
-		}
-		return a.order - b.order
-	})
+	slices.SortStableFunc(cands, func(a, b candidate) int { return cmp.Compare(a.sizeGap, b.sizeGap) })
 	var out []string
 	for _, c := range cands[:min(n, len(cands))] {
-		out = append(out, c.name)
+		out = append(out, rows[c.row].Section.Name)
 	}
 	return out
 }
@@ -252,26 +244,4 @@ func leadingNumber(s string) (float64, bool) {
 	}
 	v, err := strconv.ParseFloat(s[start:end], 64)
 	return v, err == nil
-}
-
-// editDistance is the Levenshtein distance between a and b (in runes).
-func editDistance(a, b string) int {
-	ra, rb := []rune(a), []rune(b)
-	prev := make([]int, len(rb)+1)
-	cur := make([]int, len(rb)+1)
-	for j := range prev {
-		prev[j] = j
-	}
-	for i := 1; i <= len(ra); i++ {
-		cur[0] = i
-		for j := 1; j <= len(rb); j++ {
-			cost := 1
-			if ra[i-1] == rb[j-1] {
-				cost = 0
-			}
-			cur[j] = min(prev[j]+1, cur[j-1]+1, prev[j-1]+cost)
-		}
-		prev, cur = cur, prev
-	}
-	return prev[len(rb)]
 }

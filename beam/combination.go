@@ -10,6 +10,7 @@ import (
 	"cmp"
 	"errors"
 	"fmt"
+	"maps"
 	"math"
 	"slices"
 	"strings"
@@ -96,7 +97,7 @@ func NewRules(set, uls, sls string, overrides map[string]float64) (Rules, error)
 		Xi:        0.85,
 	}
 	var errs []error
-	for _, key := range sortedMapKeys(overrides) {
+	for _, key := range slices.Sorted(maps.Keys(overrides)) {
 		v := overrides[key]
 		p := r.factorField(key)
 		if p == nil {
@@ -403,7 +404,7 @@ func resolvePsi(cases []Case, overrides map[string][3]float64) ([][3]float64, er
 		}
 		psi[i] = p
 	}
-	for _, name := range sortedMapKeys(overrides) {
+	for _, name := range slices.Sorted(maps.Keys(overrides)) {
 		if !seen[name] {
 			errs = append(errs, fmt.Errorf("psi overrides: undefined case %q", name))
 		}
@@ -585,7 +586,7 @@ func UserCombination(name string, state LimitState, factors map[string]float64, 
 			errs = append(errs, fmt.Errorf("cases.%s.kind: unknown action kind %d", c.Name, int(c.Kind)))
 		}
 	}
-	for _, key := range sortedMapKeys(factors) {
+	for _, key := range slices.Sorted(maps.Keys(factors)) {
 		v := factors[key]
 		if !known[key] {
 			errs = append(errs, fmt.Errorf("%s: factors.%s: undefined case %q", field, key, key))
@@ -616,14 +617,4 @@ func UserCombination(name string, state LimitState, factors map[string]float64, 
 // isFactorValue reports whether v is a finite number ≥ 0.
 func isFactorValue(v float64) bool {
 	return !math.IsNaN(v) && !math.IsInf(v, 0) && v >= 0
-}
-
-// sortedMapKeys returns the keys of m in sorted order.
-func sortedMapKeys[V any](m map[string]V) []string {
-	keys := make([]string, 0, len(m))
-	for k := range m {
-		keys = append(keys, k)
-	}
-	slices.Sort(keys)
-	return keys
 }

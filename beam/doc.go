@@ -47,10 +47,11 @@
 // largest value over the stations given: pass a fine station grid.
 //
 // Errors: anything the input can cause (a mechanism, a load off the beam, an unknown section
-// or grade, NaN) is a returned error naming the item; mechanisms wrap ErrMechanism. Every
-// result is checked to be a finite number: loads so large that the analysis overflows
-// float64 give a *NonFiniteError naming the case and the load (NewAnalysis, CaseResult,
-// Envelopes), so no case ever drops out of a result silently. The package never panics on
-// user data and never prints. Every result is a complete value; an
+// or grade, NaN) is a returned error naming the item; mechanisms wrap ErrMechanism. An
+// unknown section's error lists the close catalogue names by Nearest, the suggestion rule the
+// job file's did-you-mean follows too. Every result is checked to be a finite number: loads
+// so large that the analysis overflows float64 give a *NonFiniteError naming the case and the
+// load (NewAnalysis, CaseResult, Envelopes), so no case ever drops out of a result silently.
+// The package never panics on user data and never prints. Every result is a complete value; an
 // Analysis is immutable and safe for concurrent use.
 package beam

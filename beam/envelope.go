@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 )
 
@@ -396,12 +397,9 @@ func (env *Envelopes) Governing(ex Extreme) string {
 }
 
 func combinationUses(c Combination, name string) bool {
-	for _, f := range c.Factors {
-		if f.Case == name && (f.Adverse != 0 || f.Relieving != 0) {
-			return true
-		}
-	}
-	return false
+	return slices.ContainsFunc(c.Factors, func(f Factor) bool {
+		return f.Case == name && (f.Adverse != 0 || f.Relieving != 0)
+	})
 }
 
 // regionList names the regions in a mask ("all spans" when every region is set).

@@ -4,7 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
-	"sort"
+	"slices"
 
 	"gonum.org/v1/gonum/mat"
 )
@@ -49,7 +49,7 @@ func (s *structure) nodeIndex(x float64) int { return keyIndex(s.nodes, x) }
 
 // mergePoints sorts xs and removes points closer than pointTol to their predecessor.
 func mergePoints(xs []float64) []float64 {
-	sort.Float64s(xs)
+	slices.Sort(xs)
 	out := xs[:0]
 	for _, x := range xs {
 		if len(out) == 0 || x-out[len(out)-1] > pointTol {

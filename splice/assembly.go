@@ -535,7 +535,7 @@ func resolveAssemblySpec(spec AssemblySpec) (resolvedSpec, error) {
 	default:
 		errs = append(errs, fmt.Errorf("washers: %q is not known (none, nut, head, both)", spec.Washers))
 	}
-	return r, joinErrors(errs)
+	return r, errors.Join(errs...)
 }
 
 // checkSystemClass enforces the classes each system is made in: HV 10.9 only (EN 14399-4),

@@ -283,15 +283,18 @@ func Envelope(ls []Loading) (lo, hi Loading) {
 // FlangePasses reports whether a flange part passes every flange check at a loading.
 func (c *Catalogue) FlangePasses(bolt, f int, l *Loading) bool {
 	x := flangeEval{e: &l.e, b: &c.s.bolts[bolt], l: &c.bolts[bolt].flanges[f]}
+	g := groupsFor(l.e.cat)
 	a := newAcc(true)
-	return x.fastA(&a) && x.fastB(&a)
+	return a.flange(&x, g.flangeRowFree()) && a.flange(&x, g.flangeRows())
 }
 
 // WebPasses reports whether a web part passes every web check at a loading.
 func (c *Catalogue) WebPasses(bolt, w int, l *Loading) bool {
-	x := newWebEval(&l.e, &c.s.bolts[bolt], &c.bolts[bolt].webs[w])
+	x := webEval{e: &l.e, b: &c.s.bolts[bolt], l: &c.bolts[bolt].webs[w]}
+	x.analyse()
+	g := groupsFor(l.e.cat)
 	a := newAcc(true)
-	return x.fastBolts(&a) && x.fastPlates(&a)
+	return a.web(&x, g.webClass()) && a.web(&x, g.webPlates())
 }
 
 // Check runs every check of a whole splice at a loading for numbers only: whether all pass and
@@ -299,12 +302,14 @@ func (c *Catalogue) WebPasses(bolt, w int, l *Loading) bool {
 func (c *Catalogue) Check(ch Choice, l *Loading) (pass bool, utilisation float64) {
 	cb, b := &c.bolts[ch.Bolt], &c.s.bolts[ch.Bolt]
 	fx := flangeEval{e: &l.e, b: b, l: &cb.flanges[ch.Flange]}
-	wx := newWebEval(&l.e, b, &cb.webs[ch.Web])
+	wx := webEval{e: &l.e, b: b, l: &cb.webs[ch.Web]}
+	wx.analyse()
+	g := groupsFor(l.e.cat)
 	a := newAcc(false)
-	fx.fastA(&a)
-	fx.fastB(&a)
-	wx.fastBolts(&a)
-	wx.fastPlates(&a)
+	a.flange(&fx, g.flangeRowFree())
+	a.flange(&fx, g.flangeRows())
+	a.web(&wx, g.webClass())
+	a.web(&wx, g.webPlates())
 	return a.pass, a.measure
 }
 

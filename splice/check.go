@@ -1,7 +1,5 @@
 package splice
 
-import "errors"
-
 // Limit states a check belongs to.
 const (
 	StateULS       = "ULS"
@@ -84,9 +82,6 @@ func utilisation(demand, resistance float64) float64 {
 }
 
 func passes(u float64) bool { return u <= 1+passTolerance }
-
-// joinErrors is errors.Join, named for the validation code.
-func joinErrors(errs []error) error { return errors.Join(errs...) }
 
 // Output scale factors from internal units.
 const (

@@ -1,9 +1,12 @@
 package splice
 
 import (
+	"cmp"
+	"errors"
 	"fmt"
+	"maps"
 	"math"
-	"sort"
+	"slices"
 	"strings"
 )
 
@@ -61,7 +64,7 @@ func (r Rates) validate() error {
 	neg("hole", r.Hole)
 	neg("faying_per_m2", r.FayingPerM2)
 	neg("splice", r.Splice)
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 // sortedKeys lists a map's keys in order, only when something in it is wrong (so that the
@@ -76,23 +79,14 @@ func sortedKeys(m map[string]float64) []string {
 	if ok {
 		return nil
 	}
-	out := make([]string, 0, len(m))
-	for k := range m {
-		out = append(out, k)
-	}
-	sort.Strings(out)
-	return out
+	return slices.Sorted(maps.Keys(m))
 }
 
 // boltRate is the rate of one assembly of a size and class.
 func (r Rates) boltRate(size, class string) (float64, error) {
 	v, ok := r.Bolt[size]
 	if !ok {
-		have := make([]string, 0, len(r.Bolt))
-		for k := range r.Bolt {
-			have = append(have, k)
-		}
-		sort.Strings(have)
+		have := slices.Sorted(maps.Keys(r.Bolt))
 		return 0, fmt.Errorf("costs.bolt: no rate for %s (rates given for %s)", size, strings.Join(have, ", "))
 	}
 	f, ok := r.BoltClassFactor[class]
@@ -180,25 +174,15 @@ func (s score) add(o score) score {
 	return score{cost: s.cost + o.cost, bolts: s.bolts + o.bolts, mass: s.mass + o.mass}
 }
 
+// cmp orders scores by cost, then bolts, then mass.
 func (s score) cmp(o score) int {
-	switch {
-	case s.cost != o.cost:
-		return cmpInt64(s.cost, o.cost)
-	case s.bolts != o.bolts:
-		return cmpInt64(int64(s.bolts), int64(o.bolts))
-	default:
-		return cmpInt64(s.mass, o.mass)
+	if c := cmp.Compare(s.cost, o.cost); c != 0 {
+		return c
 	}
-}
-
-func cmpInt64(a, b int64) int {
-	if a < b {
-		return -1
+	if c := cmp.Compare(s.bolts, o.bolts); c != 0 {
+		return c
 	}
-	if a > b {
-		return 1
-	}
-	return 0
+	return cmp.Compare(s.mass, o.mass)
 }
 
 func (u *unitRates) score(q partQty) score {

@@ -1,6 +1,7 @@
 package splice
 
 import (
+	"errors"
 	"fmt"
 )
 
@@ -94,75 +95,57 @@ func contribution(c *Check) float64 {
 	return c.Utilisation
 }
 
-// sheet visits every check of a splice in calculation-sheet order.
-func sheet(e *env, b *boltData, fl *flangeLayout, wl *webLayout, full bool, emit func(Check)) {
-	fx := flangeEval{e: e, b: b, l: fl}
-	wx := newWebEval(e, b, wl)
-	if e.cat.Preloaded() {
-		emit(preloadCheck(e, b, full))
+// sheet appends every check of the splice v is set to, in calculation-sheet order: the rows of
+// checkTable that apply to the splice's category.
+func sheet(v *evaluator, full bool, checks []Check) []Check {
+	pre := v.f.e.cat.Preloaded()
+	for i := range checkTable {
+		if d := &checkTable[i]; d.applies(pre) {
+			checks = d.appendCheck(checks, v, full)
+		}
 	}
-	emit(merge(fx.spacing(full), wx.spacing(full)))
-	emit(merge(fx.fit(full), wx.fit(full)))
-	emit(fx.shear(full))
-	emit(fx.bearingBeam(full))
-	emit(fx.bearingPlate(full))
-	if e.cat.Preloaded() {
-		emit(fx.slip(full))
-	}
-	emit(fx.tension(full))
-	emit(fx.block(full))
-	emit(fx.compression(full))
-	emit(fx.buckling(full))
-	emit(fx.beamNet(full))
-	emit(fx.beamBlock(full))
-	emit(wx.shear(full))
-	emit(wx.bearingBeam(full))
-	emit(wx.bearingPlate(full))
-	if e.cat.Preloaded() {
-		emit(wx.slip(full))
-	}
-	emit(wx.shearGross(full))
-	emit(wx.shearNet(full))
-	emit(wx.block(full))
-	emit(wx.combined(full))
-	emit(wx.beamNetShear(full))
+	return checks
 }
 
-// verdict runs every check for numbers only: whether all pass and the splice's utilisation.
-func verdict(e *env, b *boltData, fl *flangeLayout, wl *webLayout) (pass bool, measure float64) {
+// verdict runs every check of the splice v is set to for its utilisation alone (the numbers of
+// the sheet, TestCheckTableNumbers): whether all pass, and the splice's utilisation, in which
+// detailing checks count only when they fail (as contribution).
+func verdict(v *evaluator) (pass bool, measure float64) {
 	pass = true
-	sheet(e, b, fl, wl, false, func(c Check) {
-		if !c.Pass {
-			pass = false
+	pre := v.f.e.cat.Preloaded()
+	for i := range checkTable {
+		d := &checkTable[i]
+		if !d.applies(pre) {
+			continue
 		}
-		if m := contribution(&c); m > measure {
-			measure = m
+		u := d.utilisation(v)
+		ok := passes(u)
+		pass = pass && ok
+		if !(d.state == stDetailing && ok) {
+			measure = max(measure, u)
 		}
-	})
+	}
 	return pass, measure
 }
 
-// assemble builds the complete result of one splice.
-func assemble(e *env, b *boltData, fl *flangeLayout, wl *webLayout, u *unitRates, full bool) Result {
+// assemble builds the complete result of one splice, evaluated with v.
+func assemble(v *evaluator, e *env, b *boltData, fl *flangeLayout, wl *webLayout, u *unitRates, full bool) Result {
 	r := Result{Pass: true, Actions: e.act}
-	n := 19
-	if e.cat.Preloaded() {
-		n = 22
-	}
-	r.Checks = make([]Check, 0, n)
+	v.splice(e, b, fl, wl)
+	r.Checks = sheet(v, full, make([]Check, 0, sheetLen(e.cat.Preloaded())))
 	gov := -1
-	sheet(e, b, fl, wl, full, func(c Check) {
-		r.Checks = append(r.Checks, c)
+	for i := range r.Checks {
+		c := &r.Checks[i]
 		if !c.Pass {
 			r.Pass = false
 		}
-		if m := contribution(&c); gov < 0 || m > r.Utilisation {
-			r.Utilisation, gov = m, len(r.Checks)-1
+		if m := contribution(c); gov < 0 || m > r.Utilisation {
+			r.Utilisation, gov = m, i
 		}
-	})
+	}
 	r.Governing = r.Checks[gov]
 	r.Geometry = geometryOf(b, e.cat, e.fc, e.holes, e.gap, fl, wl)
-	wx := newWebEval(e, b, wl)
+	wx := &v.w
 	r.WebGroup = WebGroup{Eccentricity: wx.g.e, Moment: wx.g.mg, PolarMoment: wx.g.ip, SlipResultant: wx.gs.r}
 	r.WebGroup.Corner = BoltForce{Column: 1, Row: 1, X: -wx.g.xmax, Z: wx.g.zmax, H: wx.g.h, V: wx.g.v, R: wx.g.r}
 	if full {
@@ -197,7 +180,7 @@ func (p *Problem) validate() error {
 			errs = append(errs, err)
 		}
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 func unitRatesOf(r *Rates, b *boltData, cat Category) (unitRates, error) {
@@ -246,7 +229,7 @@ func Verify(p Problem, g Geometry) (Result, error) {
 		errs = append(errs, err)
 	}
 	if len(errs) > 0 {
-		return Result{}, joinErrors(errs)
+		return Result{}, errors.Join(errs...)
 	}
 	e, err := newEnv(&p, cat, fc, holes, g.Gap, p.Detailing)
 	if err != nil {
@@ -258,7 +241,7 @@ func Verify(p Problem, g Geometry) (Result, error) {
 	if err != nil {
 		return Result{}, err
 	}
-	r := assemble(e, &b, &fl, &wl, &u, !p.Brief)
+	r := assemble(new(evaluator), e, &b, &fl, &wl, &u, !p.Brief)
 	r.Status = Checked
 	return r, nil
 }

@@ -53,8 +53,8 @@ func (r *rules) atMost(name string, value, limit float64, limText string) {
 	r.take(name, value, limit, line)
 }
 
-func (r *rules) check(id, clause string) Check {
-	c := newCheck(id, clause, StateDetailing, "mm", r.dem, r.res, 1)
+func (r *rules) check(e *env, d *checkDef) Check {
+	c := d.check(e, "mm", r.dem, r.res, 1)
 	if r.full {
 		c.Substituted = strings.Join(r.lines, "; ")
 		c.Note = "worst rule: " + r.name
@@ -67,10 +67,12 @@ func (r *rules) check(id, clause string) Check {
 
 // flangeSpacing applies EN 1993-1-8 Table 3.3 to the flange splice; t is the thinner outer
 // connected part (outer plate and flange, or outer and inner plates).
-func (x *flangeEval) spacing(full bool) Check {
+func (x *flangeEval) spacing(d *checkDef, full bool) Check {
 	r := x.spacingR(full)
-	return r.check(IDSpacing, "EN 1993-1-8 Table 3.3")
+	return r.check(x.e, d)
 }
+
+func (x *flangeEval) spacingU() float64 { return x.spacingR(false).u }
 
 func (x *flangeEval) spacingR(full bool) rules {
 	e, l, b := x.e, x.l, x.b
@@ -109,10 +111,12 @@ func (x *flangeEval) spacingR(full bool) rules {
 
 // fit checks that the flange plates fit the section: outer plate no wider than the flange,
 // inner plates clear of the root fillets, washers under the flange clear of the fillets.
-func (x *flangeEval) fit(full bool) Check {
+func (x *flangeEval) fit(d *checkDef, full bool) Check {
 	r := x.fitR(full)
-	return r.check(IDFit, "fit of the plates to the section (common practice)")
+	return r.check(x.e, d)
 }
+
+func (x *flangeEval) fitU() float64 { return x.fitR(false).u }
 
 func (x *flangeEval) fitR(full bool) rules {
 	e, l, b := x.e, x.l, x.b
@@ -129,10 +133,12 @@ func (x *flangeEval) fitR(full bool) rules {
 
 // spacing applies EN 1993-1-8 Table 3.3 to the web splice; the outer connected parts are the
 // cover plates. The bolts carry load both ways, so both spacings use 2.4 d0.
-func (x *webEval) spacing(full bool) Check {
+func (x *webEval) spacing(d *checkDef, full bool) Check {
 	r := x.spacingR(full)
-	return r.check(IDSpacing, "EN 1993-1-8 Table 3.3")
+	return r.check(x.e, d)
 }
+
+func (x *webEval) spacingU() float64 { return x.spacingR(false).u }
 
 func (x *webEval) spacingR(full bool) rules {
 	e, l, b := x.e, x.l, x.b
@@ -155,10 +161,12 @@ func (x *webEval) spacingR(full bool) rules {
 	return r
 }
 
-func (x *webEval) fit(full bool) Check {
+func (x *webEval) fit(d *checkDef, full bool) Check {
 	r := x.fitR(full)
-	return r.check(IDFit, "fit of the plates to the section (common practice)")
+	return r.check(x.e, d)
 }
+
+func (x *webEval) fitU() float64 { return x.fitR(false).u }
 
 func (x *webEval) fitR(full bool) rules {
 	r := rules{full: full}
@@ -168,8 +176,10 @@ func (x *webEval) fitR(full bool) rules {
 
 // preload checks that a slip-resistant category uses a preloadable class (EN 1993-1-8 3.1.2(1):
 // 8.8 and 10.9, the only classes with fub ≥ 800 N/mm²).
-func preloadCheck(e *env, b *boltData, full bool) Check {
-	c := newCheck(IDPreload, "EN 1993-1-8 3.1.2(1)", StateDetailing, "N/mm²", 800, b.class.Fub, 1)
+func preloadU(e *env, b *boltData) float64 { return utilisation(800, b.class.Fub) }
+
+func preloadCheck(e *env, b *boltData, d *checkDef, full bool) Check {
+	c := d.check(e, "N/mm²", 800, b.class.Fub, 1)
 	if full {
 		c.Formula = "categories B and C: bolt class 8.8 or 10.9 (fub ≥ 800 N/mm²)"
 		c.Substituted = sprintf("class %s, fub = %s N/mm²", b.class.Name, fnum(b.class.Fub, 0))

@@ -1,6 +1,7 @@
 package splice
 
 import (
+	"errors"
 	"fmt"
 	"math"
 )
@@ -62,7 +63,7 @@ func (d Detailing) validate() error {
 	check("gauge_factor", r.GaugeFactor, 2.4, 10)
 	check("round", r.Round, 0.1, 50)
 	check("clearance", r.Clearance, 0, 50)
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 func (d Detailing) up(x float64) float64   { return math.Ceil(x/d.Round-1e-9) * d.Round }

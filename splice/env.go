@@ -29,10 +29,10 @@ type env struct {
 	mu      float64
 	holes   HoleType
 	gap     float64
-	gammaS  float64 // γM3,ser (B) or γM3 (C)
-	slipSt  string  // limit state of the slip checks
-	e       float64 // Young's modulus [N/mm²]
-	rFit    float64 // r + clearance [mm]
+	gammaS  float64   // γM3,ser (B) or γM3 (C)
+	states  [3]string // the limit state of each stateKind: StateULS, the slip state (SLS in category B), StateDetailing
+	e       float64   // Young's modulus [N/mm²]
+	rFit    float64   // r + clearance [mm]
 	minimum MinimumAction
 }
 
@@ -57,10 +57,10 @@ func newEnv(p *Problem, cat Category, fc FrictionClass, holes HoleType, gap floa
 		}
 	}
 	e.gammaS = e.f.GammaM3
-	e.slipSt = StateULS
+	e.states = [3]string{stULS: StateULS, stSlip: StateULS, stDetailing: StateDetailing}
 	if cat == CategoryB {
 		e.gammaS = e.f.GammaM3Ser
-		e.slipSt = StateSLS
+		e.states[stSlip] = StateSLS
 	}
 	e.act = designActions(p.Member, p.ULS, p.SLS, p.Distribution, p.Minimum, e.f, cat == CategoryB)
 	e.rFit = p.Member.Section.R + e.det.Clearance

@@ -1,6 +1,7 @@
 package splice
 
 import (
+	"errors"
 	"fmt"
 	"strings"
 )
@@ -53,7 +54,7 @@ func (f PartialFactors) validate() error {
 			errs = append(errs, fmt.Errorf("factors.%s: %g is not a partial factor (expected a value between 0 and 10)", x.name, x.v))
 		}
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 // Category is the bolted-connection category of EN 1993-1-8 Table 3.2 for shear.

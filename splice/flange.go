@@ -127,8 +127,9 @@ func (x *flangeEval) shearLength() float64 {
 	return lv
 }
 
-// Each check has a numeric core (…N) that the sizing search calls and a wrapper that adds the
-// text of the calculation sheet; both use the same numbers.
+// Each check has a numeric core (…N), its utilisation alone (…U), which the sizing search calls,
+// and the calculation-sheet form, which adds the text; all use the same numbers. The checks are
+// listed, with their ids, clauses and limit states, in checkTable (table.go).
 
 type tensionNums struct {
 	ao, ai, anetO, anetI, nplO, nuO, nplI, nuI, res float64
@@ -162,9 +163,11 @@ func (x *flangeEval) tensionN() (n tensionNums) {
 	return n
 }
 
-func (x *flangeEval) tension(full bool) Check {
+func (x *flangeEval) tensionU() float64 { return utilisation(x.e.act.Flange.Tension, x.tensionN().res) }
+
+func (x *flangeEval) tension(d *checkDef, full bool) Check {
 	e, l, n := x.e, x.l, x.tensionN()
-	c := newCheck(IDFlangeTension, "EN 1993-1-1 6.2.3", StateULS, "kN", e.act.Flange.Tension, n.res, toKN)
+	c := d.check(x.e, "kN", e.act.Flange.Tension, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -212,9 +215,13 @@ func (x *flangeEval) compressionN() (n compressionNums) {
 	return n
 }
 
-func (x *flangeEval) compression(full bool) Check {
+func (x *flangeEval) compressionU() float64 {
+	return utilisation(x.e.act.Flange.Compression, x.compressionN().res)
+}
+
+func (x *flangeEval) compression(d *checkDef, full bool) Check {
 	e, l, n := x.e, x.l, x.compressionN()
-	c := newCheck(IDFlangeCompression, "EN 1993-1-1 6.2.4", StateULS, "kN", e.act.Flange.Compression, n.res, toKN)
+	c := d.check(x.e, "kN", e.act.Flange.Compression, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -278,9 +285,13 @@ func (x *flangeEval) bucklingN() (n bucklingNums) {
 	return n
 }
 
-func (x *flangeEval) buckling(full bool) Check {
+func (x *flangeEval) bucklingU() float64 {
+	return utilisation(x.e.act.Flange.Compression, x.bucklingN().res)
+}
+
+func (x *flangeEval) buckling(d *checkDef, full bool) Check {
 	e, l, n := x.e, x.l, x.bucklingN()
-	c := newCheck(IDFlangeBuckling, "EN 1993-1-8 Table 3.3 note 2; EN 1993-1-1 6.3.1", StateULS, "kN", e.act.Flange.Compression, n.res, toKN)
+	c := d.check(x.e, "kN", e.act.Flange.Compression, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -323,10 +334,12 @@ func (x *flangeEval) beamNetN() (n beamNetNums) {
 	return n
 }
 
-func (x *flangeEval) beamNet(full bool) Check {
+func (x *flangeEval) beamNetU() float64 { return utilisation(x.e.act.Flange.Tension, x.beamNetN().res) }
+
+func (x *flangeEval) beamNet(d *checkDef, full bool) Check {
 	e, l, n := x.e, x.l, x.beamNetN()
 	s := e.m.Section
-	c := newCheck(IDFlangeBeamNet, "EN 1993-1-1 6.2.3, 6.2.5(4)", StateULS, "kN", e.act.Flange.Tension, n.res, toKN)
+	c := d.check(x.e, "kN", e.act.Flange.Tension, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -364,10 +377,12 @@ func (x *flangeEval) shearN() (n shearNums) {
 	return n
 }
 
-func (x *flangeEval) shear(full bool) Check {
+func (x *flangeEval) shearU() float64 { return utilisation(x.e.act.Flange.Bolt/x.nb(), x.shearN().res) }
+
+func (x *flangeEval) shear(d *checkDef, full bool) Check {
 	e, l, b, n := x.e, x.l, x.b, x.shearN()
 	demand := e.act.Flange.Bolt / x.nb()
-	c := newCheck(IDFlangeBoltShear, "EN 1993-1-8 Table 3.4, 3.8, 3.6.1(12)", StateULS, "kN", demand, n.res, toKN)
+	c := d.check(x.e, "kN", demand, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -411,11 +426,15 @@ func (x *flangeEval) bearingBeamN() (n bearingBeamNums) {
 	return n
 }
 
-func (x *flangeEval) bearingBeam(full bool) Check {
+func (x *flangeEval) bearingBeamU() float64 {
+	return utilisation(x.e.act.Flange.Bolt/x.nb(), x.bearingBeamN().res)
+}
+
+func (x *flangeEval) bearingBeam(d *checkDef, full bool) Check {
 	e, l, b, n := x.e, x.l, x.b, x.bearingBeamN()
 	s := e.m.Section
 	demand := e.act.Flange.Bolt / x.nb()
-	c := newCheck(IDFlangeBearingBeam, "EN 1993-1-8 Table 3.4, 3.7", StateULS, "kN", demand, n.res, toKN)
+	c := d.check(x.e, "kN", demand, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -460,10 +479,14 @@ func (x *flangeEval) bearingPlateN() (n bearingPlateNums) {
 	return n
 }
 
-func (x *flangeEval) bearingPlate(full bool) Check {
+func (x *flangeEval) bearingPlateU() float64 {
+	return utilisation(x.e.act.Flange.Bolt/x.nb(), x.bearingPlateN().res)
+}
+
+func (x *flangeEval) bearingPlate(d *checkDef, full bool) Check {
 	e, l, b, n := x.e, x.l, x.b, x.bearingPlateN()
 	demand := e.act.Flange.Bolt / x.nb()
-	c := newCheck(IDFlangeBearingPl, "EN 1993-1-8 Table 3.4, 3.7", StateULS, "kN", demand, n.res, toKN)
+	c := d.check(x.e, "kN", demand, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -486,12 +509,14 @@ func (x *flangeEval) bearingPlate(full bool) Check {
 // the share of the plate on its side, so the surface with the larger share slips first.
 func (x *flangeEval) slipN() float64 { return x.b.fsPerSur / x.maxShare() }
 
-func (x *flangeEval) slip(full bool) Check {
+func (x *flangeEval) slipU() float64 { return utilisation(x.e.act.Flange.SlipBolt/x.nb(), x.slipN()) }
+
+func (x *flangeEval) slip(d *checkDef, full bool) Check {
 	e, l, b := x.e, x.l, x.b
 	ns := x.planes()
 	res := x.slipN()
 	demand := e.act.Flange.SlipBolt / x.nb()
-	c := newCheck(IDFlangeSlip, "EN 1993-1-8 3.9.1", e.slipSt, "kN", demand, res, toKN)
+	c := d.check(x.e, "kN", demand, res, toKN)
 	if !full {
 		return c
 	}
@@ -530,9 +555,11 @@ func (x *flangeEval) blockN() (n blockNums) {
 	return n
 }
 
-func (x *flangeEval) block(full bool) Check {
+func (x *flangeEval) blockU() float64 { return utilisation(x.e.act.Flange.Tension, x.blockN().res) }
+
+func (x *flangeEval) block(d *checkDef, full bool) Check {
 	e, l, n := x.e, x.l, x.blockN()
-	c := newCheck(IDFlangeBlock, "EN 1993-1-8 3.10.2 (2005)", StateULS, "kN", e.act.Flange.Tension, n.res, toKN)
+	c := d.check(x.e, "kN", e.act.Flange.Tension, n.res, toKN)
 	if !full {
 		return c
 	}
@@ -571,10 +598,14 @@ func (x *flangeEval) beamBlockN() (n beamBlockNums) {
 	return n
 }
 
-func (x *flangeEval) beamBlock(full bool) Check {
+func (x *flangeEval) beamBlockU() float64 {
+	return utilisation(x.e.act.Flange.Tension, x.beamBlockN().res)
+}
+
+func (x *flangeEval) beamBlock(d *checkDef, full bool) Check {
 	e, n := x.e, x.beamBlockN()
 	s := e.m.Section
-	c := newCheck(IDFlangeBeamBlock, "EN 1993-1-8 3.10.2 (2005)", StateULS, "kN", e.act.Flange.Tension, n.res, toKN)
+	c := d.check(x.e, "kN", e.act.Flange.Tension, n.res, toKN)
 	if !full {
 		return c
 	}

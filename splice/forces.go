@@ -1,6 +1,7 @@
 package splice
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strings"
@@ -31,7 +32,7 @@ func (f Forces) validate(name string) error {
 	if f.NMax < f.NMin {
 		errs = append(errs, fmt.Errorf("%s: N_max = %.3f kN is less than N_min = %.3f kN", name, f.NMax*toKN, f.NMin*toKN))
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 // MinimumAction is an optional rule raising the design forces to fractions of the beam's own
@@ -64,7 +65,7 @@ func (m MinimumAction) validate() error {
 			errs = append(errs, fmt.Errorf("minimum_forces: resistance %g is not valid", r))
 		}
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 // active reports whether the rule raises anything.

@@ -1,6 +1,7 @@
 package splice
 
 import (
+	"errors"
 	"fmt"
 	"math"
 )
@@ -210,7 +211,7 @@ func (g Geometry) resolve(steel Steel) (flangeLayout, webLayout, error) {
 		wl.length = webLength(g.Gap, w.End, w.Spacing, w.Columns)
 	}
 	if len(errs) > 0 {
-		return fl, wl, joinErrors(errs)
+		return fl, wl, errors.Join(errs...)
 	}
 
 	var err error
@@ -225,7 +226,7 @@ func (g Geometry) resolve(steel Steel) (flangeLayout, webLayout, error) {
 	if wl.fy, wl.fu, err = steel.strength(wl.tp); err != nil {
 		errs = append(errs, fmt.Errorf("web.thickness: %w", err))
 	}
-	return fl, wl, joinErrors(errs)
+	return fl, wl, errors.Join(errs...)
 }
 
 // geometryOf writes resolved layouts back in splice-file terms.

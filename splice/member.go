@@ -85,7 +85,7 @@ func (m Member) validate() error {
 			errs = append(errs, fmt.Errorf("beam %s steel: fy = %g, fu = %g N/mm² are not valid strengths", x.n, x.fy, x.fu))
 		}
 	}
-	return joinErrors(errs)
+	return errors.Join(errs...)
 }
 
 // webDepthClear is the depth between the root fillets, h − 2tf − 2r [mm].

@@ -145,12 +145,4 @@ func f2(x float64) string { return fnum(x, 2) }
 
 func sprintf(format string, a ...any) string { return fmt.Sprintf(format, a...) }
 
-// newCheck fills the numeric part of a check; demand and resistance are internal values and
-// scale converts them to unit.
-func newCheck(id, clause, state, unit string, demand, resistance, scale float64) Check {
-	u := utilisation(demand, resistance)
-	return Check{ID: id, Clause: clause, State: state, Unit: unit,
-		Demand: demand * scale, Resistance: resistance * scale, Utilisation: u, Pass: passes(u)}
-}
-
 func in(name string, v float64, unit string) Input { return Input{Name: name, Value: v, Unit: unit} }

@@ -1,9 +1,11 @@
 package splice
 
 import (
+	"cmp"
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 )
 
 // Size finds the cheapest splice in p.Sizing.Space that passes every check at this position.
@@ -39,25 +41,31 @@ func SizeExhaustive(p Problem) (Result, error) {
 }
 
 type searcher struct {
-	p      *Problem
-	e      *env
-	sp     space
-	sr     sectionRules
-	hr     []holeRules // per bolt size
-	cr     []capRules  // per plate thickness
-	crTf   capRules    // for the beam flange as the thinner outer part
-	bolts  []boltData  // index = size index × classes + class index
-	rates  []unitRates
-	memoA  []int8 // flange row-free checks per size, arrangement, columns, thicknesses: 0 unknown, 1 pass, 2 fail
-	memoW  []int8 // web plate checks per size, columns, thickness, rows
-	r0F    []int  // flangeFirstRows per bolt, arrangement, columns
-	r0W    []int  // webFirstRows per bolt, columns
-	evals  int
-	nth    int
-	nfc    int
-	nwc    int
-	nwr    int
-	nclass int
+	p       *Problem
+	e       *env
+	sp      space
+	sr      sectionRules
+	hr      []holeRules // per bolt size
+	cr      []capRules  // per plate thickness
+	crTf    capRules    // for the beam flange as the thinner outer part
+	bolts   []boltData  // index = size index × classes + class index
+	rates   []unitRates
+	fuMax   float64       // the largest plate fu of the design space [N/mm²]
+	groups  *sizingGroups // the checks of the category, by sizing step (table.go)
+	scan    evaluator     // the candidate being scanned, and the result
+	rowFree flangeSlot    // the row-free flange checks, which run inside a flange scan
+	// Memos of the groups that do not depend on the bolt class, and the first admissible rows,
+	// each over a grid of design-space indices: 0 unknown, 1 pass, 2 fail.
+	gridA, gridW     grid
+	memoA, memoW     []int8 // groupFlangeRowFree on gridA, groupWebPlates on gridW
+	gridR0F, gridR0W grid
+	r0F, r0W         []int // flangeFirstRows on gridR0F, webFirstRows on gridR0W
+	evals            int
+	nth              int
+	nfc              int
+	nwc              int
+	nwr              int
+	nclass           int
 }
 
 func newSearcher(p *Problem) (*searcher, error) {
@@ -88,7 +96,7 @@ func newSearcher(p *Problem) (*searcher, error) {
 		errs = append(errs, err)
 	}
 	if len(errs) > 0 {
-		return nil, joinErrors(errs)
+		return nil, errors.Join(errs...)
 	}
 	if len(sp.sizes) == 0 || len(sp.classes) == 0 || len(sp.th) == 0 || len(sp.inner) == 0 {
 		return nil, errors.New("splice: the design space is empty")
@@ -97,7 +105,7 @@ func newSearcher(p *Problem) (*searcher, error) {
 	if err != nil {
 		return nil, err
 	}
-	s := &searcher{p: p, e: e, sp: sp, nth: len(sp.th), nfc: len(sp.fcols), nwc: len(sp.wcols), nwr: len(sp.wrows), nclass: len(sp.classes)}
+	s := &searcher{p: p, e: e, sp: sp, fuMax: slices.Max(sp.fu), nth: len(sp.th), nfc: len(sp.fcols), nwc: len(sp.wcols), nwr: len(sp.wrows), nclass: len(sp.classes)}
 	s.sr = newSectionRules(&e.m, &e.det, e.gap)
 	s.hr = make([]holeRules, len(sp.sizes))
 	for i, size := range sp.sizes {
@@ -126,27 +134,72 @@ func newSearcher(p *Problem) (*searcher, error) {
 		}
 	}
 	if len(errs) > 0 {
-		return nil, joinErrors(errs)
+		return nil, errors.Join(errs...)
 	}
-	na := len(sp.sizes) * len(sp.inner) * s.nfc * s.nth * s.nth
-	nw := len(sp.sizes) * s.nwc * s.nth * s.nwr
-	memo := make([]int8, na+nw)
-	s.memoA, s.memoW = memo[:na], memo[na:]
-	nf, nwc := len(s.bolts)*len(sp.inner)*s.nfc, len(s.bolts)*s.nwc
-	r0 := make([]int, nf+nwc)
-	s.r0F, s.r0W = r0[:nf], r0[nf:]
+	s.groups = groupsFor(cat)
+	// The memo keys are what the groups do not depend on: the flange row-free checks are the
+	// same for every class and every rows entry from two on, the web plate checks for every
+	// class (the inner thickness index is 0 without inner plates).
+	s.gridA = newGrid(len(sp.sizes), len(sp.inner), s.nfc, s.nth, s.nth)
+	s.gridW = newGrid(len(sp.sizes), s.nwc, s.nth, s.nwr)
+	memo := make([]int8, s.gridA.cells()+s.gridW.cells())
+	s.memoA, s.memoW = memo[:s.gridA.cells()], memo[s.gridA.cells():]
+	s.gridR0F = newGrid(len(s.bolts), len(sp.inner), s.nfc)
+	s.gridR0W = newGrid(len(s.bolts), s.nwc)
+	r0 := make([]int, s.gridR0F.cells()+s.gridR0W.cells())
+	s.r0F, s.r0W = r0[:s.gridR0F.cells()], r0[s.gridR0F.cells():]
 	for bi := range s.bolts {
 		b := &s.bolts[bi]
 		for ai, inner := range sp.inner {
 			for ci := range sp.fcols {
-				s.r0F[(bi*len(sp.inner)+ai)*s.nfc+ci] = s.flangeFirstRows(b, ci, inner)
+				s.r0F[s.gridR0F.at(bi, ai, ci)] = s.flangeFirstRows(b, ci, inner)
 			}
 		}
 		for ci := range sp.wcols {
-			s.r0W[bi*s.nwc+ci] = s.webFirstRows(b, ci)
+			s.r0W[s.gridR0W.at(bi, ci)] = s.webFirstRows(b, ci)
 		}
 	}
 	return s, nil
+}
+
+// grid numbers the cells of a box of design-space indices (one dimension per list, its length
+// the list's) in row-major order, so that a memo over several lists is one flat slice.
+type grid struct {
+	rank int
+	dims [5]int
+}
+
+func newGrid(dims ...int) grid {
+	var g grid
+	if len(dims) > len(g.dims) {
+		panic("splice: a grid of more dimensions than it holds")
+	}
+	g.rank = copy(g.dims[:], dims)
+	return g
+}
+
+// cells is the number of cells.
+func (g *grid) cells() int {
+	n := 1
+	for _, d := range g.dims[:g.rank] {
+		n *= d
+	}
+	return n
+}
+
+// at is the cell of one index per dimension. An index outside its list is a broken invariant.
+func (g *grid) at(ix ...int) int {
+	if len(ix) != g.rank {
+		panic("splice: grid index of the wrong rank")
+	}
+	c := 0
+	for k, v := range ix {
+		if uint(v) >= uint(g.dims[k]) {
+			panic("splice: grid index outside its list")
+		}
+		c = c*g.dims[k] + v
+	}
+	return c
 }
 
 // fastAcc collects utilisations the way contribution and Check.Pass do, without building checks.
@@ -170,51 +223,24 @@ func (a *fastAcc) util(u float64, detailing bool) bool {
 	return true
 }
 
-func (a *fastAcc) num(demand, resistance float64) bool {
-	return a.util(utilisation(demand, resistance), false)
-}
-
-func (a *fastAcc) rules(r rules) bool { return a.util(r.u, true) }
-
-// fastA are the flange checks that do not depend on the number of rows once there are two, nor
-// on the bolt class.
-func (x *flangeEval) fastA(a *fastAcc) bool {
-	f := &x.e.act.Flange
-	return a.num(f.Tension, x.tensionN().res) && a.num(f.Compression, x.compressionN().res) &&
-		a.num(f.Tension, x.beamNetN().res) && a.num(f.Compression, x.bucklingN().res) &&
-		a.rules(x.spacingR(false)) && a.rules(x.fitR(false))
-}
-
-func (x *flangeEval) fastB(a *fastAcc) bool {
-	f := &x.e.act.Flange
-	nb := x.nb()
-	ok := a.num(f.Bolt/nb, x.shearN().res)
-	if ok && x.e.cat.Preloaded() {
-		ok = a.num(f.SlipBolt/nb, x.slipN())
+// flange runs one group of flange checks; false when one fails and the accumulator stops.
+func (a *fastAcc) flange(x *flangeEval, g []flangeNum) bool {
+	for i := range g {
+		if !a.util(g[i].u(x), g[i].detailing) {
+			return false
+		}
 	}
-	return ok && a.num(f.Bolt/nb, x.bearingBeamN().res) && a.num(f.Bolt/nb, x.bearingPlateN().res) &&
-		a.num(f.Tension, x.blockN().res) && a.num(f.Tension, x.beamBlockN().res)
+	return true
 }
 
-// fastBolts are the web checks that depend on the bolt class.
-func (x *webEval) fastBolts(a *fastAcc) bool {
-	ok := a.num(x.g.r, x.shearN().res) && a.util(x.bearingBeamU(), false) && a.util(x.bearingPlateU(), false)
-	if ok && x.e.cat.Preloaded() {
-		ok = a.num(x.gs.r, 2*x.b.fsPerSur)
+// web runs one group of web checks; false when one fails and the accumulator stops.
+func (a *fastAcc) web(x *webEval, g []webNum) bool {
+	for i := range g {
+		if !a.util(g[i].u(x), g[i].detailing) {
+			return false
+		}
 	}
-	return ok
-}
-
-// fastPlates are the web checks that depend only on the bolt size and the plates.
-func (x *webEval) fastPlates(a *fastAcc) bool {
-	c := x.combinedN()
-	d, r := c.demandResistance()
-	_, net := x.shearNetN()
-	_, _, blk := x.blockN()
-	_, _, _, beam := x.beamNetShearN()
-	v := x.g.shear
-	return a.num(v, x.shearGrossN()) && a.num(d, r) && a.num(v, net) && a.num(v, blk) && a.num(v, beam) &&
-		a.rules(x.spacingR(false)) && a.rules(x.fitR(false))
+	return true
 }
 
 // flangeAt builds a flange layout of the design space with its plate strengths.
@@ -292,11 +318,7 @@ func (s *searcher) webFirstRows(b *boltData, ci int) int {
 	crLo, crHi := &s.cr[0], &s.cr[s.nth-1]
 	fbBeam := maxBearing(b, e.m.FuWeb, e.m.Section.Tw, e.f.GammaM2)
 	// 2.5·min(fub/fu, 1)·fu = 2.5·min(fub, fu) grows with fu: the strongest plate at the thickest
-	fuMax := s.sp.fu[0]
-	for _, fu := range s.sp.fu {
-		fuMax = max(fuMax, fu)
-	}
-	fbPlate := maxBearing(b, fuMax, s.sp.th[s.nth-1], e.f.GammaM2)
+	fbPlate := maxBearing(b, s.fuMax, s.sp.th[s.nth-1], e.f.GammaM2)
 	c := float64(s.sp.wcols[ci])
 	ehLo := clamp(hr.e1T, hr.eMin, crLo.eMax)
 	phLo, phHi := 0.0, 0.0
@@ -357,23 +379,17 @@ func prune(sc score, found bool, best score, haveLimit bool, limit score) bool {
 	return (found && sc.cmp(best) >= 0) || (haveLimit && sc.cmp(limit) > 0)
 }
 
-func (s *searcher) memoAIndex(b *boltData, ai, ci, toI, tiI int) int {
-	return (((b.key[0]*len(s.sp.inner)+ai)*s.nfc+ci)*s.nth+toI)*s.nth + tiI
-}
-
 // rowFreeFlange runs (once per bolt size) the flange checks that do not depend on the rows.
-func (s *searcher) rowFreeFlange(b *boltData, fl flangeLayout) bool {
-	k := s.memoAIndex(b, fl.key[0], fl.key[1], fl.key[2], fl.key[3])
+func (s *searcher) rowFreeFlange(b *boltData, fl *flangeLayout) bool {
+	k := s.gridA.at(b.key[0], fl.key[0], fl.key[1], fl.key[2], fl.key[3])
 	if m := s.memoA[k]; m != 0 {
 		return m == 1
 	}
-	if fl.rows < 2 {
-		fl.rows = 2
-	}
-	x := flangeEval{e: s.e, b: b, l: &fl}
+	x := s.rowFree.flange(s.e, b, fl)
+	x.l.rows = max(x.l.rows, 2)
 	a := newAcc(true)
 	s.evals++
-	ok := x.fastA(&a)
+	ok := a.flange(x, s.groups.flangeRowFree())
 	s.memoA[k] = 2
 	if ok {
 		s.memoA[k] = 1
@@ -414,7 +430,7 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 			nti = s.nth
 		}
 		for ci := range s.sp.fcols {
-			r0 := s.r0F[(bi*len(s.sp.inner)+ai)*s.nfc+ci]
+			r0 := s.r0F[s.gridR0F.at(bi, ai, ci)]
 			if r0 < 0 {
 				continue
 			}
@@ -431,7 +447,7 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 					if !ok {
 						continue
 					}
-					if f, ok := s.scanFlangeRows(b, u, fl, r0, &best, haveLimit, limit); ok {
+					if f, ok := s.scanFlangeRows(b, u, &fl, r0, &best, haveLimit, limit); ok {
 						best = f
 					}
 				}
@@ -442,25 +458,26 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 }
 
 // scanFlangeRows tries the rows from r0 up for one plate set and returns the first that passes.
-func (s *searcher) scanFlangeRows(b *boltData, u *unitRates, fl flangeLayout, r0 int, best *flangeBest, haveLimit bool, limit score) (flangeBest, bool) {
+func (s *searcher) scanFlangeRows(b *boltData, u *unitRates, start *flangeLayout, r0 int, best *flangeBest, haveLimit bool, limit score) (flangeBest, bool) {
 	e := s.e
+	x := s.scan.flange(e, b, start)
+	fl := x.l    // the evaluator's copy, which the scan changes row by row
 	rowFree := 0 // 0 not yet run, 1 passes, 2 fails
 	for ri := r0; ri < len(s.sp.frows); ri++ {
 		fl.rows = s.sp.frows[ri]
 		fl.length = flangeLength(e.gap, fl.e1, fl.p1, fl.rows)
 		fl.key[4] = ri
-		sc := u.score(flangeQty(&fl, e.gap))
+		sc := u.score(flangeQty(fl, e.gap))
 		if prune(sc, best.found, best.sc, haveLimit, limit) {
 			return flangeBest{}, false
 		}
-		x := flangeEval{e: e, b: b, l: &fl}
 		a := newAcc(true)
 		if fl.rows >= 2 {
 			if rowFree == 0 {
 				rowFree = 2
 				if s.rowFreeFlange(b, fl) {
 					rowFree = 1
-					next := s.rowsNeeded(b, fl, ri)
+					next := s.rowsNeeded(b, *fl, ri)
 					if next < 0 {
 						return flangeBest{}, false
 					}
@@ -473,13 +490,13 @@ func (s *searcher) scanFlangeRows(b *boltData, u *unitRates, fl flangeLayout, r0
 			if rowFree != 1 {
 				return flangeBest{}, false
 			}
-		} else if !x.fastA(&a) {
+		} else if !a.flange(x, s.groups.flangeRowFree()) {
 			s.evals++
 			continue
 		}
 		s.evals++
-		if x.fastB(&a) {
-			return flangeBest{found: true, sc: sc, fl: fl}, true
+		if a.flange(x, s.groups.flangeRows()) {
+			return flangeBest{found: true, sc: sc, fl: *fl}, true
 		}
 	}
 	return flangeBest{}, false
@@ -513,12 +530,12 @@ func (s *searcher) webRowFree(b *boltData, wl *webLayout) bool {
 }
 
 func (s *searcher) webPlates(b *boltData, x *webEval) bool {
-	k := ((b.key[0]*s.nwc+x.l.key[0])*s.nth+x.l.key[1])*s.nwr + x.l.key[2]
+	k := s.gridW.at(b.key[0], x.l.key[0], x.l.key[1], x.l.key[2])
 	if m := s.memoW[k]; m != 0 {
 		return m == 1
 	}
 	a := newAcc(true)
-	ok := x.fastPlates(&a)
+	ok := a.web(x, s.groups.webPlates())
 	s.memoW[k] = 2
 	if ok {
 		s.memoW[k] = 1
@@ -530,7 +547,7 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 	b, u, e := &s.bolts[bi], &s.rates[bi], s.e
 	var best webBest
 	for ci := range s.sp.wcols {
-		r0 := s.r0W[bi*s.nwc+ci]
+		r0 := s.r0W[s.gridR0W.at(bi, ci)]
 		if r0 < 0 {
 			continue
 		}
@@ -552,9 +569,9 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 					continue
 				}
 				s.evals++
-				x := newWebEval(e, b, &wl)
+				x := s.scan.web(e, b, &wl)
 				a := newAcc(true)
-				if x.fastBolts(&a) && s.webPlates(b, &x) {
+				if a.web(x, s.groups.webClass()) && s.webPlates(b, x) {
 					best = webBest{found: true, sc: sc, wl: wl}
 					break
 				}
@@ -571,7 +588,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 	var hf, hw bool
 	for ai := range s.sp.inner {
 		for ci := range s.sp.fcols {
-			r0 := s.r0F[(bi*len(s.sp.inner)+ai)*s.nfc+ci]
+			r0 := s.r0F[s.gridR0F.at(bi, ai, ci)]
 			if r0 < 0 {
 				continue
 			}
@@ -582,7 +599,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 		}
 	}
 	for ci := range s.sp.wcols {
-		r0 := s.r0W[bi*s.nwc+ci]
+		r0 := s.r0W[s.gridR0W.at(bi, ci)]
 		if r0 < 0 {
 			continue
 		}
@@ -614,18 +631,9 @@ func keyLess(abi int, afl *flangeLayout, awl *webLayout, bbi int, bfl *flangeLay
 		return abi < bbi
 	}
 	if afl.key != bfl.key {
-		return lessInts(afl.key[:], bfl.key[:])
+		return slices.Compare(afl.key[:], bfl.key[:]) < 0
 	}
-	return lessInts(awl.key[:], bwl.key[:])
-}
-
-func lessInts(a, b []int) bool {
-	for i := range a {
-		if a[i] != b[i] {
-			return a[i] < b[i]
-		}
-	}
-	return false
+	return slices.Compare(awl.key[:], bwl.key[:]) < 0
 }
 
 func (c *choice) better(o *choice) bool {
@@ -653,22 +661,19 @@ func (s *searcher) size() (Result, error) {
 		bi         int
 		lb, lf, lw score
 	}
-	order := make([]cand, 0, len(s.bolts))
+	cands := make([]cand, 0, len(s.bolts))
 	for bi := range s.bolts {
 		if lf, lw, ok := s.lowerBounds(bi); ok {
 			common := score{cost: s.rates[bi].splice}
-			order = append(order, cand{bi: bi, lb: common.add(lf).add(lw), lf: lf, lw: lw})
+			cands = append(cands, cand{bi: bi, lb: common.add(lf).add(lw), lf: lf, lw: lw})
 		}
 	}
-	for i := 1; i < len(order); i++ {
-		for j := i; j > 0; j-- {
-			a, b := &order[j-1], &order[j]
-			if k := a.lb.cmp(b.lb); k < 0 || (k == 0 && a.bi < b.bi) {
-				break
-			}
-			order[j-1], order[j] = order[j], order[j-1]
-		}
+	// in order of the lower bound, then of the bolt; sorted by pointer, the candidates being large
+	order := make([]*cand, len(cands))
+	for i := range cands {
+		order[i] = &cands[i]
 	}
+	slices.SortFunc(order, func(a, b *cand) int { return cmp.Or(a.lb.cmp(b.lb), cmp.Compare(a.bi, b.bi)) })
 	var best choice
 	for _, c := range order {
 		if best.found {
@@ -721,10 +726,10 @@ func (s *searcher) sizeInfeasible() (Result, error) {
 		fe := make([]partEval, len(fls))
 		minF := math.Inf(1)
 		for i := range fls {
-			x := flangeEval{e: e, b: b, l: &fls[i]}
+			x := s.scan.flange(e, b, &fls[i])
 			acc := newAcc(false)
-			x.fastA(&acc)
-			x.fastB(&acc)
+			acc.flange(x, s.groups.flangeRowFree())
+			acc.flange(x, s.groups.flangeRows())
 			s.evals++
 			fe[i] = partEval{measure: acc.measure, sc: u.score(flangeQty(&fls[i], e.gap)), idx: i}
 			minF = min(minF, acc.measure)
@@ -732,10 +737,10 @@ func (s *searcher) sizeInfeasible() (Result, error) {
 		we := make([]partEval, len(wls))
 		minW := math.Inf(1)
 		for i := range wls {
-			x := newWebEval(e, b, &wls[i])
+			x := s.scan.web(e, b, &wls[i])
 			acc := newAcc(false)
-			x.fastBolts(&acc)
-			x.fastPlates(&acc)
+			acc.web(x, s.groups.webClass())
+			acc.web(x, s.groups.webPlates())
 			s.evals++
 			we[i] = partEval{measure: acc.measure, sc: u.score(webQty(&wls[i], e.gap)), idx: i}
 			minW = min(minW, acc.measure)
@@ -814,7 +819,7 @@ func (s *searcher) exhaustive() (Result, error) {
 			fsc := u.score(flangeQty(fl, e.gap))
 			s.forEachWeb(b, func(wl *webLayout) {
 				s.evals++
-				pass, measure := verdict(e, b, fl, wl)
+				pass, measure := verdict(s.scan.splice(e, b, fl, wl))
 				o := choice{found: true, bi: bi, fl: *fl, wl: *wl, measure: measure,
 					sc: common.add(fsc).add(u.score(webQty(wl, e.gap)))}
 				if pass {
@@ -837,7 +842,7 @@ func (s *searcher) exhaustive() (Result, error) {
 }
 
 func (s *searcher) result(c *choice, st Status) Result {
-	r := assemble(s.e, &s.bolts[c.bi], &c.fl, &c.wl, &s.rates[c.bi], !s.p.Brief)
+	r := assemble(&s.scan, s.e, &s.bolts[c.bi], &c.fl, &c.wl, &s.rates[c.bi], !s.p.Brief)
 	r.Status = st
 	r.Evaluated = s.evals
 	return r

@@ -1,7 +1,10 @@
 package splice
 
 import (
+	"cmp"
+	"errors"
 	"fmt"
+	"slices"
 )
 
 // DesignSpace lists the choices Size searches. An empty list takes the default list
@@ -47,43 +50,25 @@ type space struct {
 
 const maxListLength = 100
 
+// sortedSet returns a sorted copy of v without repeats (one allocation).
+func sortedSet[T cmp.Ordered](v []T) []T {
+	out := slices.Clone(v)
+	slices.Sort(out)
+	return slices.Compact(out)
+}
+
+// sortedInts returns v sorted, without repeats, each entry checked against lo, hi and allowed.
 func sortedInts(field string, v []int, lo, hi int, allowed func(int) bool) ([]int, error) {
 	if len(v) > maxListLength {
 		return nil, fmt.Errorf("%s: %d entries is more than %d", field, len(v), maxListLength)
 	}
-	out := append([]int(nil), v...)
-	for i := 1; i < len(out); i++ {
-		for j := i; j > 0 && out[j] < out[j-1]; j-- {
-			out[j], out[j-1] = out[j-1], out[j]
-		}
-	}
-	out = dedupInts(out)
+	out := sortedSet(v)
 	for _, x := range out {
 		if x < lo || x > hi || (allowed != nil && !allowed(x)) {
 			return nil, fmt.Errorf("%s: %d is not allowed (%d to %d)", field, x, lo, hi)
 		}
 	}
 	return out, nil
-}
-
-func sortedFloats(v []float64) []float64 {
-	out := append([]float64(nil), v...)
-	for i := 1; i < len(out); i++ {
-		for j := i; j > 0 && out[j] < out[j-1]; j-- {
-			out[j], out[j-1] = out[j-1], out[j]
-		}
-	}
-	return out
-}
-
-func dedupInts(v []int) []int {
-	out := v[:0]
-	for i, x := range v {
-		if i == 0 || x != v[i-1] {
-			out = append(out, x)
-		}
-	}
-	return out
 }
 
 func (d DesignSpace) resolve(cat Category, steel Steel) (space, error) {
@@ -124,18 +109,11 @@ func (d DesignSpace) resolve(cat Category, steel Steel) (space, error) {
 			errs = append(errs, fmt.Errorf("bolts.sizes: %w", err))
 			continue
 		}
-		// insert in order of diameter, dropping repeats
-		i := 0
-		for i < len(s.sizes) && s.sizes[i].D < b.D {
-			i++
-		}
-		if i < len(s.sizes) && s.sizes[i].Name == b.Name {
-			continue
-		}
-		s.sizes = append(s.sizes, BoltSize{})
-		copy(s.sizes[i+1:], s.sizes[i:])
-		s.sizes[i] = b
+		s.sizes = append(s.sizes, b)
 	}
+	// in order of diameter (one size per diameter), without repeats
+	slices.SortStableFunc(s.sizes, func(a, b BoltSize) int { return cmp.Compare(a.D, b.D) })
+	s.sizes = slices.CompactFunc(s.sizes, func(a, b BoltSize) bool { return a.Name == b.Name })
 	s.classes = make([]BoltClass, 0, len(d.Classes))
 	for _, n := range d.Classes {
 		c, err := LookupBoltClass(n)
@@ -147,27 +125,19 @@ func (d DesignSpace) resolve(cat Category, steel Steel) (space, error) {
 			errs = append(errs, fmt.Errorf("bolts.classes: class %s cannot be preloaded; category %s needs 8.8 or 10.9 (EN 1993-1-8 3.1.2(1))", c.Name, cat))
 			continue
 		}
-		// insert in order of fub, then fyb, dropping repeats
-		i := 0
-		for i < len(s.classes) && (s.classes[i].Fub < c.Fub || (s.classes[i].Fub == c.Fub && s.classes[i].Fyb < c.Fyb)) {
-			i++
-		}
-		if i < len(s.classes) && s.classes[i].Name == c.Name {
-			continue
-		}
-		s.classes = append(s.classes, BoltClass{})
-		copy(s.classes[i+1:], s.classes[i:])
-		s.classes[i] = c
+		s.classes = append(s.classes, c)
 	}
+	// in order of fub, then fyb (one class for each pair), without repeats
+	slices.SortStableFunc(s.classes, func(a, b BoltClass) int {
+		return cmp.Or(cmp.Compare(a.Fub, b.Fub), cmp.Compare(a.Fyb, b.Fyb))
+	})
+	s.classes = slices.CompactFunc(s.classes, func(a, b BoltClass) bool { return a.Name == b.Name })
 	if len(d.Thicknesses) > maxListLength {
 		errs = append(errs, fmt.Errorf("plates.thicknesses: %d entries is more than %d", len(d.Thicknesses), maxListLength))
 	} else {
-		th := sortedFloats(d.Thicknesses)
+		th := sortedSet(d.Thicknesses)
 		s.th, s.fy, s.fu = make([]float64, 0, len(th)), make([]float64, 0, len(th)), make([]float64, 0, len(th))
-		for i, t := range th {
-			if i > 0 && t == th[i-1] {
-				continue
-			}
+		for _, t := range th {
 			if !(t > 0 && t <= 200) {
 				errs = append(errs, fmt.Errorf("plates.thicknesses: %g mm is not a plate thickness (0 to 200 mm)", t))
 				continue
@@ -210,5 +180,5 @@ func (d DesignSpace) resolve(cat Category, steel Steel) (space, error) {
 	if s.wrows, err = sortedInts("web.rows", d.WebRows, 2, 50, nil); err != nil {
 		errs = append(errs, err)
 	}
-	return s, joinErrors(errs)
+	return s, errors.Join(errs...)
 }

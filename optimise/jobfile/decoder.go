@@ -7,6 +7,7 @@ import (
 	"io"
 	"math"
 	"reflect"
+	"slices"
 	"strconv"
 	"strings"
 	"unicode/utf8"
@@ -402,10 +403,8 @@ func (d *Decoder) decodeStruct(n *yaml.Node, v reflect.Value) {
 }
 
 func (si *structInfo) field(name string) *fieldInfo {
-	for i := range si.fields {
-		if si.fields[i].name == name {
-			return &si.fields[i]
-		}
+	if i := slices.IndexFunc(si.fields, func(f fieldInfo) bool { return f.name == name }); i >= 0 {
+		return &si.fields[i]
 	}
 	return nil
 }

@@ -9,6 +9,8 @@ import (
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
 	"go.yaml.in/yaml/v3"
+
+	"spanbreak/beam"
 )
 
 // doc exercises every kind the generic decoder supports.
@@ -288,7 +290,7 @@ func TestProblemFormat(t *testing.T) {
 }
 
 func TestSuggest(t *testing.T) {
-	allowed := []string{"section", "grade", "spans", "supports", "overhang", "self_weight"}
+	allowed := []string{"section", "grade", "spans", "spars", "supports", "overhang", "self_weight"}
 	tests := []struct{ got, want string }{
 		{"sectoin", "section"},  // adjacent swap: one edit
 		{"secton", "section"},   // deletion
@@ -297,10 +299,13 @@ func TestSuggest(t *testing.T) {
 		{"suports", "supports"}, // deletion
 		{"selfweight", "self_weight"},
 		{"overhung", "overhang"},
-		{"xyz", ""},       // nothing close
-		{"span", "spans"}, // short word, one edit
-		{"sp", ""},        // too far for a two-letter word
-		{"section", ""},   // exact: no suggestion needed
+		{"xyz", ""},                    // nothing close
+		{"span", "spans"},              // short word, one edit
+		{"sp", ""},                     // too far for a two-letter word
+		{"section", ""},                // exact: no suggestion needed
+		{"grad", "grade"},              // four letters, one edit
+		{"spas", ""},                   // one edit from spans and from spars: equally near, no suggestion
+		{"slef_wieght", "self_weight"}, // two swaps
 		{strings.Repeat("s", 100), ""},
 	}
 	for _, tc := range tests {
@@ -308,16 +313,43 @@ func TestSuggest(t *testing.T) {
 	}
 }
 
-func TestEditDistance(t *testing.T) {
+// TestSuggestionsAgreeWithSections: the job file's did-you-mean and the section catalogue's close
+// names follow one rule (beam.Nearest). A misspelt section name gets from Suggest, over the
+// catalogue's names, the name the catalogue puts first when the catalogue offers exactly one,
+// and nothing when the catalogue offers none or several equally near ones. The names are
+// written without spaces, as the catalogue compares them; the misspellings are of the names
+// themselves, not of the other spellings the catalogue also accepts ("HEB 300").
+func TestSuggestionsAgreeWithSections(t *testing.T) {
+	var names []string
+	for _, s := range beam.Sections("") {
+		names = append(names, strings.ReplaceAll(s.Name, " ", ""))
+	}
 	tests := []struct {
-		a, b string
-		want int
+		got     string
+		offered int // names the catalogue offers
 	}{
-		{"", "", 0}, {"a", "", 1}, {"", "abc", 3}, {"kitten", "sitting", 3}, // Levenshtein's example
-		{"ab", "ba", 1}, {"ca", "abc", 3}, // optimal string alignment: no edit of a swapped pair
+		{"IEP500", 1},        // two neighbours swapped
+		{"UC350x305x97", 1},  // two neighbours swapped
+		{"IPE5000", 1},       // a letter too many
+		{"UB610x229x126", 1}, // one letter wrong
+		{"IPE50", 3},         // one edit from IPE 80, IPE 450 and IPE 500
+		{"IPE520", 3},        // one edit from IPE 500, 550, 220 and more
+		{"HE300C", 3},        // one edit from HE 300 A, B and M
+		{"XYZ123", 0},        // nothing close
+		{"IPE5", 0},          // four letters: one edit at most, and every name is two away
+		{"IP", 0},            // too short for anything but a difference of case
 	}
 	for _, tc := range tests {
-		assert.Equal(t, tc.want, editDistance(tc.a, tc.b), "%q %q", tc.a, tc.b)
+		_, err := beam.LookupSection(tc.got)
+		var unknown *beam.UnknownSectionError
+		require.ErrorAs(t, err, &unknown, tc.got)
+		require.Len(t, unknown.Suggestions, tc.offered, "%s: %v", tc.got, unknown.Suggestions)
+		got := Suggest(tc.got, names)
+		if tc.offered == 1 {
+			assert.Equal(t, strings.ReplaceAll(unknown.Suggestions[0], " ", ""), got, tc.got)
+		} else {
+			assert.Empty(t, got, tc.got)
+		}
 	}
 }
 

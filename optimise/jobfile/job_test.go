@@ -2,6 +2,7 @@ package jobfile
 
 import (
 	"os"
+	"strings"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -624,12 +625,11 @@ scan: {step: 1000}
 }
 
 func indexOf(s, sub string) int {
-	for i := 0; i+len(sub) <= len(s); i++ {
-		if s[i:i+len(sub)] == sub {
-			return i
-		}
+	i := strings.Index(s, sub)
+	if i < 0 {
+		panic("no " + sub)
 	}
-	panic("no " + sub)
+	return i
 }
 
 func TestLoadJobUnparsed(t *testing.T) {

@@ -1,8 +1,9 @@
 package jobfile
 
 import (
+	"cmp"
 	"fmt"
-	"sort"
+	"slices"
 	"strings"
 )
 
@@ -73,15 +74,8 @@ func (p *Problems) add(pr Problem) {
 
 // Sort orders the problems by file, line and column, keeping the order of those at one place.
 func (p Problems) Sort() {
-	sort.SliceStable(p, func(i, j int) bool {
-		a, b := p[i], p[j]
-		if a.File != b.File {
-			return a.File < b.File
-		}
-		if a.Line != b.Line {
-			return a.Line < b.Line
-		}
-		return a.Column < b.Column
+	slices.SortStableFunc(p, func(a, b Problem) int {
+		return cmp.Or(strings.Compare(a.File, b.File), cmp.Compare(a.Line, b.Line), cmp.Compare(a.Column, b.Column))
 	})
 }
 

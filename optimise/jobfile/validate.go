@@ -1,8 +1,9 @@
 package jobfile
 
 import (
+	"cmp"
+	"maps"
 	"slices"
-	"sort"
 	"strconv"
 	"strings"
 )
@@ -66,12 +67,9 @@ func (c *checker) add(at Loc, format string, args ...any) {
 // check that sums or counts what is inside (the beam length, the number of supports) is then
 // left out.
 func (c *checker) failed(at Loc) bool {
-	for _, p := range c.failedPaths {
-		if ancestorOrSelf(p, at.Path) || ancestorOrSelf(at.Path, p) {
-			return true
-		}
-	}
-	return false
+	return slices.ContainsFunc(c.failedPaths, func(p string) bool {
+		return ancestorOrSelf(p, at.Path) || ancestorOrSelf(at.Path, p)
+	})
 }
 
 // enum checks that a given string is one of the allowed values.
@@ -626,7 +624,7 @@ func (c *checker) keepOut(k *KeepOut, length beamLength) {
 		}
 		good = append(good, span{i, r[0], r[1]})
 	}
-	sort.SliceStable(good, func(a, b int) bool { return good[a].lo < good[b].lo })
+	slices.SortStableFunc(good, func(a, b span) int { return cmp.Compare(a.lo, b.lo) })
 	for j := 1; j < len(good); j++ {
 		prev, cur := good[j-1], good[j]
 		if cur.lo < prev.hi {
@@ -739,12 +737,7 @@ func (c *checker) spliceFile(sf *SpliceFile) {
 
 // sizes checks that each present size is greater than 0.
 func (c *checker) sizes(m Meta, sizes map[string]Millimetres) {
-	keys := make([]string, 0, len(sizes))
-	for k := range sizes {
-		keys = append(keys, k)
-	}
-	sort.Strings(keys)
-	for _, k := range keys {
+	for _, k := range slices.Sorted(maps.Keys(sizes)) {
 		if m.Has(k) {
 			c.positive(m.Where(k), k, sizes[k].MM(), sizes[k].String())
 		}
