@@ -7,6 +7,7 @@ import (
 	"sync"
 
 	"spanbreak/beam"
+	"spanbreak/optimise/jobfile"
 	"spanbreak/splice"
 )
 
@@ -71,8 +72,8 @@ type ScanStats struct {
 }
 
 // MaxCandidates bounds the grid, so that a tiny step fails with a message instead of running
-// for hours.
-const MaxCandidates = 200_000
+// for hours; the job file's check refuses a scan.step that passes it.
+const MaxCandidates = jobfile.MaxCandidates
 
 // Grid returns the candidate positions every step [mm] from the left end, strictly inside the
 // beam (a splice at an end is no splice).
@@ -80,7 +81,7 @@ func Grid(length, step float64) ([]float64, error) {
 	if !(step > 0) || math.IsInf(step, 0) {
 		return nil, fmt.Errorf("the scan step must be positive, got %g mm", step)
 	}
-	n := int(math.Ceil(length/step-1e-9)) - 1
+	n := jobfile.ScanPositions(length, step)
 	if n > MaxCandidates {
 		return nil, fmt.Errorf("the scan step %s gives %d positions on a %s beam; at most %d are allowed",
 			metres(step), n, metres(length), MaxCandidates)

@@ -569,7 +569,8 @@ combinations: {extra: [{name: X, state: uls, factors: {SW: 1}}]}
 			`12:27: vehicles[2].max_length: "13.6 t" is a mass; want a length`,
 			`12:46: vehicles[2].payload: "24 m" is a length; want a mass`,
 			`13:5: vehicles[3]: missing required key "name"`,
-			`13:5: vehicles[3]: missing required key "cost"`}},
+			`13:5: vehicles[3]: missing required key "cost"`,
+			`13:30: vehicles[3].payload: a payload of 1 kg is outside the plausible range (at least 100 kg)`}},
 		{"costs", minimal + `splice: {bolts: {sizes: [M20, M24]}}
 costs:
   bolt: {M20: 3.2, M2O: 4.5, M24: -1}
