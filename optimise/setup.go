@@ -104,10 +104,13 @@ func Prepare(file string, data []byte) (*Setup, error) {
 		return nil, err
 	}
 	s := &Setup{File: file, Title: job.Title, job: job}
-	if job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil {
+	if (job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil) && !probs.About("beam.section") {
 		s.section(&probs)
-		if s.Section.Name != "" {
+		if s.Section.Name != "" && !probs.About("beam.grade") {
 			s.grade(&probs)
+		}
+		if s.Grade.Name != "" {
+			s.spliceSpace(&probs)
 		}
 	}
 	if len(probs) > 0 {
@@ -132,6 +135,9 @@ func Prepare(file string, data []byte) (*Setup, error) {
 	}
 	s.Splice = sp
 	s.PlateGrade, s.Rates = sp.PlateSteel.Name, sp.Rates
+	if err := s.detailable(); err != nil {
+		return nil, err
+	}
 	s.Defaults = defaultsOf(job)
 	s.Notes = notesOf(job)
 	return s, nil
