@@ -811,8 +811,12 @@ func (w *reportWriter) check(n int, c splice.Check) {
 		}
 		d.small("Inputs: " + strings.Join(parts, "; "))
 	}
-	d.small(fmt.Sprintf("Demand %s %s, resistance %s %s: utilisation %s, %s.", fixed(c.Demand, 2), c.Unit,
-		fixed(c.Resistance, 2), c.Unit, fixed(c.Utilisation, 3), passWord(c.Pass)))
+	util := "utilisation " + fixed(c.Utilisation, 3)
+	if c.Impossible != "" {
+		util = encode.UtilisationText(c)
+	}
+	d.small(fmt.Sprintf("Demand %s %s, resistance %s %s: %s, %s.", fixed(c.Demand, 2), c.Unit,
+		fixed(c.Resistance, 2), c.Unit, util, passWord(c.Pass)))
 	if c.Note != "" {
 		d.small("Note: " + c.Note)
 	}

@@ -128,6 +128,28 @@ func sheet(e *env, b *boltData, fl *flangeLayout, wl *webLayout, full bool, emit
 	emit(wx.beamNetShear(full))
 }
 
+// explainImpossible gives every check that could not be made (no resistance left, a bolt off
+// its part) the reason: its own, or the detailing rule the geometry breaks.
+func explainImpossible(checks []Check) {
+	cause := ""
+	for _, c := range checks {
+		if c.Impossible != "" {
+			cause = c.Impossible
+			break
+		}
+	}
+	for i := range checks {
+		c := &checks[i]
+		if c.Impossible != "" || !(c.Demand > 0) || c.Resistance > 0 {
+			continue
+		}
+		c.Impossible = "no resistance is left"
+		if cause != "" {
+			c.Impossible += " (" + cause + ")"
+		}
+	}
+}
+
 // verdict runs every check for numbers only: whether all pass and the splice's utilisation.
 func verdict(e *env, b *boltData, fl *flangeLayout, wl *webLayout) (pass bool, measure float64) {
 	pass = true
@@ -160,6 +182,7 @@ func assemble(e *env, b *boltData, fl *flangeLayout, wl *webLayout, u *unitRates
 			r.Utilisation, gov = m, len(r.Checks)-1
 		}
 	})
+	explainImpossible(r.Checks)
 	r.Governing = r.Checks[gov]
 	r.Geometry = geometryOf(b, e.cat, e.fc, e.holes, e.gap, fl, wl)
 	wx := newWebEval(e, b, wl)

@@ -34,7 +34,8 @@ func TestAnalyseMemberChecks(t *testing.T) {
 		} `json:"member"`
 		Deflection []struct {
 			Region      string  `json:"region"`
-			From, To    float64 `json:"from"`
+			From        float64 `json:"from"`
+			To          float64 `json:"to"`
 			W           float64 `json:"w"`
 			Limit       float64 `json:"limit"`
 			Utilisation float64 `json:"utilisation"`
