@@ -6,9 +6,10 @@
 package main
 
 import (
-	"fmt"
 	"io"
 	"os"
+
+	"spanbreak/plots/encode"
 )
 
 func main() {
@@ -25,7 +26,7 @@ func executeWith(args []string, r runners, ios streams) int {
 	root := newRootCommand(r, ios)
 	root.SetArgs(args)
 	if err := root.Execute(); err != nil {
-		fmt.Fprintf(ios.Err, "spanbreak: %v\n", err)
+		encode.WriteError(ios.Err, err)
 		return exitCode(err)
 	}
 	return exitOK

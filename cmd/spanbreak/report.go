@@ -91,15 +91,7 @@ func runReport(opts reportOptions, ios streams) error {
 	if err := writeFolder(opts.Out, files, opts.Force); err != nil {
 		return err
 	}
-	rec := res.Recommended()
-	fmt.Fprintf(stdout, "spanbreak %s: report on %s\n", version(), setup.File)
-	fmt.Fprintf(stdout, "Recommended: %d splice(s)", len(rec.Splices))
-	for i, x := range rec.Splices {
-		fmt.Fprintf(stdout, "%s S%d at %.3f m", map[bool]string{true: ":", false: ","}[i == 0], i+1, x*encode.ToM)
-	}
-	fmt.Fprintf(stdout, "; total cost %.0f\n", rec.Cost.Total)
-	fmt.Fprintf(stdout, "Wrote %d files to %s\n", len(files), opts.Out)
-	fmt.Fprintf(stdout, "\n%s\n", caution)
+	encode.WriteReportSummary(stdout, res, len(files), opts.Out, caution)
 	return nil
 }
 

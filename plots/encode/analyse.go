@@ -44,6 +44,9 @@ func SideName(s beam.Side) string {
 
 // WriteAnalysis writes an analysis in a format: "json", "csv" or "text".
 func WriteAnalysis(w io.Writer, format string, o *optimise.BeamOutcome) error {
+	if format != "json" && format != "csv" {
+		w = TextWriter(w)
+	}
 	if o.Case != nil {
 		return writeCase(w, format, o.Setup, *o.Case)
 	}
@@ -88,10 +91,10 @@ func writeCase(w io.Writer, format string, s *optimise.Setup, r beam.CaseResult)
 		}
 		return WriteJSON(w, out)
 	case "csv":
-		rows := make([][]string, len(r.Stations))
+		rows := make([][]Cell, len(r.Stations))
 		for i, st := range r.Stations {
-			rows[i] = []string{Number(st.X * ToM), SideName(st.Side), Number(r.Effects.M[i] * ToKNm),
-				Number(r.Effects.V[i] * ToKN), Number(r.Effects.N[i] * ToKN), Number(r.Effects.W[i])}
+			rows[i] = []Cell{Decimal(st.X * ToM), Text(SideName(st.Side)), Decimal(r.Effects.M[i] * ToKNm),
+				Decimal(r.Effects.V[i] * ToKN), Decimal(r.Effects.N[i] * ToKN), Decimal(r.Effects.W[i])}
 		}
 		return WriteCSV(w, []string{"x_m", "side", "M_kNm", "V_kN", "N_kN", "w_mm"}, rows)
 	}
@@ -129,9 +132,9 @@ func sideMark(st []beam.Station, i int) string {
 // writeBeamHeader prints what was analysed: file, title, beam, supports, cases and combinations.
 func writeBeamHeader(w io.Writer, s *optimise.Setup, what string) {
 	fmt.Fprintf(w, "spanbreak %s: %s\n", Version(), what)
-	fmt.Fprintf(w, "Input:    %s\n", s.File)
+	fmt.Fprintf(w, "Input:    %s\n", Printable(s.File))
 	if s.Title != "" {
-		fmt.Fprintf(w, "Title:    %s\n", s.Title)
+		fmt.Fprintf(w, "Title:    %s\n", Printable(s.Title))
 	}
 	sw := "self weight off"
 	if s.SelfWeight > 0 {
@@ -276,13 +279,13 @@ func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Env
 		return WriteJSON(w, out)
 	case "csv":
 		u, l := &env.ULS, &env.SLS
-		rows := make([][]string, len(env.Stations))
+		rows := make([][]Cell, len(env.Stations))
 		for i, st := range env.Stations {
-			rows[i] = []string{Number(st.X * ToM), SideName(st.Side),
-				Number(u.MMax[i].Value * ToKNm), Number(u.MMin[i].Value * ToKNm), Number(u.VMax[i].Value * ToKN), Number(u.VMin[i].Value * ToKN),
-				Number(u.NMax[i].Value * ToKN), Number(u.NMin[i].Value * ToKN),
-				Number(l.MMax[i].Value * ToKNm), Number(l.MMin[i].Value * ToKNm), Number(l.WMax[i].Value), Number(l.WMin[i].Value),
-				env.Governing(u.MMax[i]), env.Governing(u.MMin[i])}
+			rows[i] = []Cell{Decimal(st.X * ToM), Text(SideName(st.Side)),
+				Decimal(u.MMax[i].Value * ToKNm), Decimal(u.MMin[i].Value * ToKNm), Decimal(u.VMax[i].Value * ToKN), Decimal(u.VMin[i].Value * ToKN),
+				Decimal(u.NMax[i].Value * ToKN), Decimal(u.NMin[i].Value * ToKN),
+				Decimal(l.MMax[i].Value * ToKNm), Decimal(l.MMin[i].Value * ToKNm), Decimal(l.WMax[i].Value), Decimal(l.WMin[i].Value),
+				Text(env.Governing(u.MMax[i])), Text(env.Governing(u.MMin[i]))}
 		}
 		return WriteCSV(w, []string{"x_m", "side",
 			"uls_M_max_kNm", "uls_M_min_kNm", "uls_V_max_kN", "uls_V_min_kN", "uls_N_max_kN", "uls_N_min_kN",

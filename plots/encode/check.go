@@ -22,6 +22,7 @@ func WriteCheck(w io.Writer, format string, jc *optimise.JobCheck) error {
 	if format == "json" {
 		return WriteJSON(w, sum)
 	}
+	w = TextWriter(w)
 	writeCheckText(w, sum)
 	writeMemberText(w, &jc.Member)
 	fmt.Fprintf(w, "\n%s\n", Caution)
@@ -351,9 +352,9 @@ func writeCheckText(w io.Writer, s JobSummary) {
 		}
 		return ""
 	}
-	fmt.Fprintf(w, "spanbreak %s: check of %s: the job is valid and the beam analyses\n", s.Version, s.Input)
+	fmt.Fprintf(w, "spanbreak %s: check of %s: the job is valid and the beam analyses\n", s.Version, Printable(s.Input))
 	if s.Title != "" {
-		fmt.Fprintf(w, "Title:     %s\n", s.Title)
+		fmt.Fprintf(w, "Title:     %s\n", Printable(s.Title))
 	}
 	sec := s.Section
 	kind := "catalogue, " + sec.Source

@@ -15,7 +15,7 @@ func WriteDesign(w io.Writer, format string, o *optimise.DesignOutcome) error {
 	if format == "json" {
 		return WriteJSON(w, Design(o))
 	}
-	return writeDesignText(w, o, o.Result, o.SpliceFile)
+	return writeDesignText(TextWriter(w), o, o.Result, o.SpliceFile)
 }
 
 // --- JSON (DESIGN.md section 7) -----------------------------------------------------------
@@ -256,9 +256,9 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 	p, g, a := dc.Problem, r.Geometry, r.Actions
 	m := p.Member
 	fmt.Fprintf(w, "spanbreak %s: bolted cover-plate splice, EN 1993-1-8:2005 / EN 1993-1-1:2005\n", Version())
-	fmt.Fprintf(w, "Input:     %s\n", dc.Input)
+	fmt.Fprintf(w, "Input:     %s\n", Printable(dc.Input))
 	if spliceFile != "" {
-		fmt.Fprintf(w, "Splice:    %s (checked as given)\n", spliceFile)
+		fmt.Fprintf(w, "Splice:    %s (checked as given)\n", Printable(spliceFile))
 	}
 	if dc.Position != nil {
 		fmt.Fprintf(w, "Position:  x = %.3f m\n", Clean(*dc.Position))
