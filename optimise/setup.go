@@ -82,6 +82,17 @@ func JobFileReference() string { return jobfile.Reference() }
 // messages; a key the file does not hold points at its nearest written parent.
 func (s *Setup) Where(key string) jobfile.Loc { return s.job.Where(key) }
 
+// WhereCase locates a load case's name in the file, for messages about the name itself;
+// the self weight's case is located at beam.self_weight.
+func (s *Setup) WhereCase(name string) jobfile.Loc {
+	for _, e := range s.job.Cases {
+		if e.Key == name {
+			return e.Loc
+		}
+	}
+	return s.job.Beam.Where("self_weight")
+}
+
 // IsDefault reports whether a key path took its default.
 func (s *Setup) IsDefault(key string) bool {
 	_, found := slices.BinarySearch(s.Defaults, key)

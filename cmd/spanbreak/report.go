@@ -7,6 +7,8 @@ import (
 	"os"
 	"path/filepath"
 	"sort"
+	"strconv"
+	"time"
 
 	"github.com/spf13/cobra"
 
@@ -83,30 +85,49 @@ func runReport(opts reportOptions, ios streams) error {
 		}
 		return err
 	}
-	date := ios.now().Format("2006-01-02")
-	files, err := reportFiles(setup, res, date)
+	when, err := reportTime(ios)
+	if err != nil {
+		return err
+	}
+	files, warnings, err := reportFiles(setup, res, when)
 	if err != nil {
 		return err
 	}
 	if err := writeFolder(opts.Out, files, opts.Force); err != nil {
 		return err
 	}
+	encode.WriteWarnings(ios.Err, warnings)
 	encode.WriteReportSummary(stdout, res, len(files), opts.Out, caution)
 	return nil
 }
 
+// reportTime is the time the report is dated by, in its text and in the PDF's metadata:
+// SOURCE_DATE_EPOCH (whole seconds since 1970-01-01 UTC) when it is set, the convention of
+// reproducible builds, else the streams' clock.
+func reportTime(ios streams) (time.Time, error) {
+	v, ok := os.LookupEnv("SOURCE_DATE_EPOCH")
+	if !ok || v == "" {
+		return ios.now(), nil
+	}
+	sec, err := strconv.ParseInt(v, 10, 64)
+	if err != nil || sec < 0 || sec > 253402300799 { // 9999-12-31T23:59:59Z
+		return time.Time{}, usageError(fmt.Errorf("SOURCE_DATE_EPOCH: %q is not a number of seconds since 1970-01-01", v))
+	}
+	return time.Unix(sec, 0).UTC(), nil
+}
+
 // reportFiles renders the report, every figure as PNG and SVG, and the CSV and JSON files.
-func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]reportFile, error) {
-	rep, err := plots.BuildReport(plots.ReportInput{Outcome: res, Version: version(), Date: date, Caution: caution})
+func reportFiles(setup *optimise.Setup, res *optimise.Outcome, when time.Time) ([]reportFile, []string, error) {
+	rep, err := plots.BuildReport(plots.ReportInput{Outcome: res, Version: version(), Time: when, Caution: caution})
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	files := []reportFile{{"report.pdf", rep.PDF}}
 	for _, f := range rep.Figures {
 		for _, format := range []plots.Format{plots.PNG, plots.SVG} {
 			b, err := f.Bytes(format)
 			if err != nil {
-				return nil, fmt.Errorf("rendering %s.%s: %w", f.Name, format, err)
+				return nil, nil, fmt.Errorf("rendering %s.%s: %w", f.Name, format, err)
 			}
 			files = append(files, reportFile{f.Name + "." + string(format), b})
 		}
@@ -115,18 +136,18 @@ func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]r
 	// with the recommended layout's splices and their full checks added to the JSON
 	var scan, layouts, result bytes.Buffer
 	if err := encode.WriteCandidatesCSV(&scan, res); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if err := encode.WriteLayoutsCSV(&layouts, res); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if err := encode.WriteJSON(&result, encode.ReportResult(res)); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	files = append(files, reportFile{"scan.csv", scan.Bytes()}, reportFile{"layouts.csv", layouts.Bytes()},
 		reportFile{"result.json", result.Bytes()})
 	sort.SliceStable(files, func(i, j int) bool { return files[i].name < files[j].name })
-	return files, nil
+	return files, rep.Warnings, nil
 }
 
 // writeFolder writes the files into a temporary folder beside dir and renames it to dir, so

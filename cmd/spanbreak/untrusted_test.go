@@ -88,3 +88,54 @@ func TestTextOutputEscapesControlCharacters(t *testing.T) {
 	// the title, printed on one line, has its line feeds escaped too
 	assert.NotContains(t, errs.String(), "\x1b")
 }
+
+// The report is dated by the streams' clock, or by SOURCE_DATE_EPOCH when it is set (the
+// reproducible-builds convention: seconds since 1970-01-01 UTC), in its text and in the PDF's
+// metadata; a malformed value is a usage error.
+func TestReportDateFromClockOrSourceDateEpoch(t *testing.T) {
+	clock := func() time.Time { return time.Date(2025, 3, 4, 5, 6, 7, 0, time.UTC) }
+	report := func(t *testing.T) ([]byte, error) {
+		out := filepath.Join(t.TempDir(), "report")
+		var stdout, stderr bytes.Buffer
+		if err := runReport(reportOptions{Demo: true, Out: out}, streams{Out: &stdout, Err: &stderr, Now: clock}); err != nil {
+			return nil, err
+		}
+		return os.ReadFile(filepath.Join(out, "report.pdf"))
+	}
+	t.Run("clock", func(t *testing.T) {
+		t.Setenv("SOURCE_DATE_EPOCH", "")
+		pdf, err := report(t)
+		require.NoError(t, err)
+		assert.True(t, bytes.Contains(pdf, []byte("/CreationDate (D:20250304050607")))
+	})
+	t.Run("SOURCE_DATE_EPOCH", func(t *testing.T) {
+		t.Setenv("SOURCE_DATE_EPOCH", "1700000000") // 2023-11-14 22:13:20 UTC
+		pdf, err := report(t)
+		require.NoError(t, err)
+		assert.True(t, bytes.Contains(pdf, []byte("/CreationDate (D:20231114221320")))
+		assert.True(t, bytes.Contains(pdf, []byte("/ModDate (D:20231114221320")))
+	})
+	t.Run("malformed", func(t *testing.T) {
+		t.Setenv("SOURCE_DATE_EPOCH", "yesterday")
+		_, err := report(t)
+		require.Error(t, err)
+		assert.Equal(t, exitUsage, exitCode(err))
+		assert.Contains(t, err.Error(), "SOURCE_DATE_EPOCH")
+	})
+}
+
+// An emoji in the title no longer stops the report: it prints as "?" and the warning, at
+// the title's line, goes to standard error.
+func TestReportWarnsOfTextOutsideTheFont(t *testing.T) {
+	dir := t.TempDir()
+	job := filepath.Join(dir, "job.yaml")
+	require.NoError(t, os.WriteFile(job, []byte(`title: "Girder 🙂 over the depot"
+beam: {section: IPE 300, spans: [6.0, 6.0], supports: [pinned, roller, roller]}
+cases: {G: {kind: permanent, loads: [{udl: 10}]}}
+limits: {max_piece_length: 7}
+scan: {step: 0.25}
+`), 0o644))
+	var stdout, stderr bytes.Buffer
+	require.NoError(t, runReport(reportOptions{JobFile: job, Out: filepath.Join(dir, "out")}, streams{Out: &stdout, Err: &stderr}))
+	assert.Equal(t, "spanbreak: warning: "+job+":1:8: title: 1 character is not in the report font and print as ?\n", stderr.String())
+}

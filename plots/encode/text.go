@@ -97,3 +97,10 @@ func control(r rune) bool {
 	}
 	return false
 }
+
+// WriteWarnings writes warnings for the terminal, one "spanbreak: warning: " line each.
+func WriteWarnings(w io.Writer, warnings []string) {
+	for _, s := range warnings {
+		fmt.Fprintf(TextWriter(w), "spanbreak: warning: %s\n", s)
+	}
+}
