@@ -1,6 +1,7 @@
 package optimise
 
 import (
+	"errors"
 	"fmt"
 	"math"
 	"strconv"
@@ -221,6 +222,9 @@ func LoadSpliceFile(file string, data []byte) (splice.Geometry, error) {
 	if fl.Inner != nil {
 		g.Flange.Inner = splice.Plate{Thickness: fl.Inner.Thickness.MM(), Width: fl.Inner.Width.MM()}
 	}
+	if err := locateGeometry(sf, splice.CheckGeometry(g)); err != nil {
+		return splice.Geometry{}, err
+	}
 	return g, nil
 }
 
@@ -230,4 +234,28 @@ func (s *Setup) forcesWords() string {
 		return "forces imported from " + s.Table.File
 	}
 	return "envelopes"
+}
+
+// locateGeometry places each problem of a splice's geometry (an edge that disagrees with the
+// width and gauge, bolt lines off a plate) at its key in the splice file.
+func locateGeometry(sf *jobfile.SpliceFile, err error) error {
+	if err == nil {
+		return nil
+	}
+	var probs jobfile.Problems
+	var errs []error
+	if joined, ok := err.(interface{ Unwrap() []error }); ok {
+		errs = joined.Unwrap()
+	} else {
+		errs = []error{err}
+	}
+	for _, e := range errs {
+		var fe *splice.FieldError
+		if errors.As(e, &fe) {
+			probs.Add(sf.Where(fe.Field), "%v", fe.Err)
+		} else {
+			probs.Add(sf.Where(""), "%v", e)
+		}
+	}
+	return probs.Err()
 }

@@ -23,9 +23,7 @@ func diagnose(p LayoutProblem) error {
 		q.MinSplices, q.MaxSplices = 0, -1
 		if l, ok := feasible(q); ok {
 			if k := len(l.Sites); p.MaxSplices >= 0 && k > p.MaxSplices {
-				return &LimitError{Key: "limits.splices.max", Message: fmt.Sprintf(
-					"at most %d splice(s) allowed, but the pieces need at least %d to satisfy the length and mass limits",
-					p.MaxSplices, k)}
+				return tooFewSplices(p, k, feasible)
 			}
 			return &LimitError{Key: "limits.splices.min", Message: fmt.Sprintf(
 				"at least %d splice(s) asked for, but no layout with that many satisfies the piece limits "+
@@ -110,6 +108,59 @@ func diagnose(p LayoutProblem) error {
 		}
 	}
 	return stretchError(p)
+}
+
+// tooFewSplices explains a splices.max below the k splices the pieces need: it names the
+// length or mass limit that, lifted alone, lets the beam be cut within splices.max. When that
+// limit is the vehicles' length (a lone short vehicle, say), the error points at the longest
+// vehicle's max_length, which the user may not have seen as a piece limit.
+func tooFewSplices(p LayoutProblem, k int, feasible func(LayoutProblem) (Layout, bool)) error {
+	longest := -1 // the vehicle that takes the longest pieces
+	for i, v := range p.Vehicles {
+		if longest < 0 || v.MaxLength > p.Vehicles[longest].MaxLength {
+			longest = i
+		}
+	}
+	relaxed := func(relax func(*LayoutProblem)) bool {
+		q := p
+		q.Vehicles = slices.Clone(p.Vehicles)
+		relax(&q)
+		_, ok := feasible(q)
+		return ok
+	}
+	allowed := fmt.Sprintf("limits.splices.max allows at most %d", p.MaxSplices)
+	if longest >= 0 && p.Vehicles[longest].MaxLength < p.Limits.MaxLength &&
+		relaxed(func(q *LayoutProblem) {
+			for i := range q.Vehicles {
+				q.Vehicles[i].MaxLength = math.Inf(1)
+			}
+		}) {
+		v := p.Vehicles[longest]
+		return &LimitError{Key: fmt.Sprintf("vehicles[%d].max_length", longest), Message: fmt.Sprintf(
+			"the longest vehicle, %s, takes pieces of at most %s (its max_length), for which the %s beam needs at least %d splice(s); %s",
+			v.Name, metres(v.MaxLength), metres(p.Length), k, allowed)}
+	}
+	limits := []struct {
+		name  string
+		relax func(*LayoutProblem)
+	}{
+		{"max_piece_length " + metres(p.Limits.MaxLength), func(q *LayoutProblem) { q.Limits.MaxLength = math.Inf(1) }},
+		{"max_piece_mass " + kg(p.Limits.MaxMass), func(q *LayoutProblem) { q.Limits.MaxMass = math.Inf(1) }},
+		{"the vehicles' payloads", func(q *LayoutProblem) {
+			for i := range q.Vehicles {
+				q.Vehicles[i].Payload = math.Inf(1)
+			}
+		}},
+	}
+	for _, l := range limits {
+		if relaxed(l.relax) {
+			return &LimitError{Key: "limits.splices.max", Message: fmt.Sprintf(
+				"at most %d splice(s) allowed, but %s needs at least %d", p.MaxSplices, l.name, k)}
+		}
+	}
+	return &LimitError{Key: "limits.splices.max", Message: fmt.Sprintf(
+		"at most %d splice(s) allowed, but the pieces need at least %d to satisfy the length and mass limits",
+		p.MaxSplices, k)}
 }
 
 // stretchError names the longest stretch of beam without an admissible splice position.

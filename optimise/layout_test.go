@@ -116,6 +116,11 @@ func TestLimitThatCannotBeMetIsNamed(t *testing.T) {
 			"within max_piece_mass 150 kg", "max_piece_mass: 150"},
 		{"too few splices allowed", []string{"splices: {min: 0, max: 4}", "splices: {min: 0, max: 0}"}, "limits.splices.max",
 			"at most 0 splice(s) allowed, but the pieces need at least 1", "splices: {min: 0, max: 0}"},
+		{"a lone short vehicle and too few splices allowed", []string{
+			"  - {name: rigid 8 m, max_length: 8.0, payload: 10000, cost: 450}\n", "",
+			"{name: semi-trailer, max_length: 13.6,", "{name: van, max_length: 4.0,"},
+			"vehicles[0].max_length", "the longest vehicle, van, takes pieces of at most 4 m (its max_length), for which the " +
+				"21.2 m beam needs at least 5 splice(s); limits.splices.max allows at most 4", "{name: van"},
 		{"keep-out around the supports swallows the spans", []string{"supports: 0.8", "supports: 5.0"}, "limits.keep_out",
 			"no admissible splice position", ""},
 		{"no vehicle long enough", []string{"max_length: 8.0,", "max_length: 2.0,", "max_length: 13.6,", "max_length: 2.2,"},

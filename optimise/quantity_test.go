@@ -3,6 +3,7 @@ package optimise
 import (
 	"errors"
 	"math"
+	"strings"
 	"testing"
 
 	"github.com/stretchr/testify/assert"
@@ -87,11 +88,13 @@ func TestRunStepIsASettingError(t *testing.T) {
 		var probs jobfile.Problems
 		assert.False(t, errors.As(err, &probs), "not blamed on the job file: %v", err)
 	}
-	job := editedDemo(t, "  step: 0.05", "  step: 1e-7")
-	_, err := Run(job, Settings{})
+	// the same step in the job file is the job's fault, found when the job is read
+	_, err := Prepare("edited-demo.yaml", []byte(strings.Replace(string(DemoJob()), "  step: 0.05", "  step: 1e-7", 1)))
 	var se *SettingError
 	assert.False(t, errors.As(err, &se))
-	assert.ErrorContains(t, err, "scan.step: the scan step 1e-07 m gives")
+	var probs jobfile.Problems
+	require.True(t, errors.As(err, &probs), "%v", err)
+	assert.ErrorContains(t, err, "scan.step: a scan step of 0.0001 mm is outside the plausible range")
 }
 
 // TestAnalyseBeamSettingsInMetres: positions off the beam and a step that gives too many

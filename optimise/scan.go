@@ -6,6 +6,7 @@ import (
 	"runtime"
 	"sync"
 
+	"spanbreak/optimise/jobfile"
 	"spanbreak/splice"
 )
 
@@ -70,8 +71,8 @@ type ScanStats struct {
 }
 
 // MaxCandidates bounds the grid, so that a tiny step fails with a message instead of running
-// for hours.
-const MaxCandidates = 200_000
+// for hours; the job file's check refuses a scan.step that passes it.
+const MaxCandidates = jobfile.MaxCandidates
 
 // Grid returns the candidate positions every step [mm] from the left end, strictly inside the
 // beam (a splice at an end is no splice).
@@ -84,7 +85,7 @@ func Grid(length, step float64) ([]float64, error) {
 		return nil, fmt.Errorf("the scan step %.6g m gives %s positions on a %s beam; at most %d are allowed",
 			step/1e3, count(nf), metres(length), MaxCandidates)
 	}
-	n := int(math.Ceil(length/step-1e-9)) - 1
+	n := jobfile.ScanPositions(length, step)
 	xs := make([]float64, 0, max(n, 0))
 	for i := 1; i <= n; i++ {
 		if x := float64(i) * step; x < length-zoneTol {

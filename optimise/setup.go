@@ -88,6 +88,17 @@ func JobFileReference() string { return jobfile.Reference() + "\n" + forcetable.
 // messages; a key the file does not hold points at its nearest written parent.
 func (s *Setup) Where(key string) jobfile.Loc { return s.job.Where(key) }
 
+// WhereCase locates a load case's name in the file, for messages about the name itself;
+// the self weight's case is located at beam.self_weight.
+func (s *Setup) WhereCase(name string) jobfile.Loc {
+	for _, e := range s.job.Cases {
+		if e.Key == name {
+			return e.Loc
+		}
+	}
+	return s.job.Beam.Where("self_weight")
+}
+
 // IsDefault reports whether a key path took its default.
 func (s *Setup) IsDefault(key string) bool {
 	_, found := slices.BinarySearch(s.Defaults, key)
@@ -110,10 +121,13 @@ func Prepare(file string, data []byte) (*Setup, error) {
 		return nil, err
 	}
 	s := &Setup{File: file, Title: job.Title, job: job}
-	if job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil {
+	if (job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil) && !probs.About("beam.section") {
 		s.section(&probs)
-		if s.Section.Name != "" {
+		if s.Section.Name != "" && !probs.About("beam.grade") {
 			s.grade(&probs)
+		}
+		if s.Grade.Name != "" {
+			s.spliceSpace(&probs)
 		}
 	}
 	if len(probs) > 0 {
@@ -148,6 +162,9 @@ func Prepare(file string, data []byte) (*Setup, error) {
 		s.Zones = keepOutZones(s.Model, tableJumps(s.Model, s.Table.Envelopes.Stations), s.KeepOut, s.Limits.MinLength)
 	} else {
 		s.Zones = KeepOutZones(s.Model, s.Cases, s.KeepOut, s.Limits.MinLength)
+	}
+	if err := s.detailable(); err != nil {
+		return nil, err
 	}
 	s.Defaults = defaultsOf(job)
 	s.Notes = notesOf(job)

@@ -198,6 +198,10 @@ func (d *SpliceDesigner) Design(f PositionForces) (SpliceDesign, error) {
 		}
 		out.Reason = fmt.Sprintf("no splice passes: the closest (%s) fails %s (%s) at utilisation %.3f, %.1f %% over",
 			out.Summary, r.Governing.ID, r.Governing.Clause, r.Utilisation, 100*(r.Utilisation-1))
+		if r.Governing.Impossible != "" {
+			out.Reason = fmt.Sprintf("no splice passes: the closest (%s) cannot be made, %s (%s): %s",
+				out.Summary, r.Governing.ID, r.Governing.Clause, r.Governing.Impossible)
+		}
 		return out, nil
 	}
 	q := r.Quantities

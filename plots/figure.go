@@ -69,7 +69,7 @@ func (f *Figure) Render(w io.Writer, format Format) error {
 		_, err := vgimg.PngCanvas{Canvas: c}.WriteTo(w)
 		return err
 	case PDF:
-		doc := newPDFDocument(f.Width.Points(), f.Height.Points(), f.Caption)
+		doc := newPDFDocument(f.Width.Points(), f.Height.Points(), f.Caption, documentDate())
 		doc.AddPage()
 		drawOnPDF(doc, f, 0, 0)
 		return doc.Output(w)

@@ -25,16 +25,20 @@ import (
 	"gonum.org/v1/plot/vg/draw"
 )
 
-// documentDate is the creation and modification date written into every PDF, so that a
-// document is a pure function of its input; the report prints its own date in the text.
+// documentDate is the creation and modification date written into a PDF made without a
+// run's time (a figure, a report built by a test), so that it is a pure function of its input.
 func documentDate() time.Time { return time.Date(2000, 1, 1, 0, 0, 0, 0, time.UTC) }
 
-// newPDFDocument returns an fpdf document measured in points, with a fixed date, sorted
-// catalogue and the Liberation fonts registered on first use by pdfCanvas.
-func newPDFDocument(wPt, hPt float64, title string) *fpdf.Fpdf {
+// newPDFDocument returns an fpdf document measured in points, dated when (documentDate when
+// zero, in UTC), with a sorted catalogue and the Liberation fonts registered on first use by
+// pdfCanvas.
+func newPDFDocument(wPt, hPt float64, title string, when time.Time) *fpdf.Fpdf {
 	doc := fpdf.NewCustom(&fpdf.InitType{UnitStr: "pt", Size: fpdf.SizeType{Wd: wPt, Ht: hPt}})
-	doc.SetCreationDate(documentDate())
-	doc.SetModificationDate(documentDate())
+	if when.IsZero() {
+		when = documentDate()
+	}
+	doc.SetCreationDate(when.UTC())
+	doc.SetModificationDate(when.UTC())
 	doc.SetCatalogSort(true)
 	doc.SetCompression(true)
 	doc.SetMargins(0, 0, 0)
@@ -42,7 +46,7 @@ func newPDFDocument(wPt, hPt float64, title string) *fpdf.Fpdf {
 	doc.SetCreator("spanbreak", true)
 	doc.SetProducer("spanbreak", true)
 	if title != "" {
-		doc.SetTitle(title, true)
+		doc.SetTitle(fitted(title), true)
 	}
 	return doc
 }
@@ -288,6 +292,7 @@ func (c *pdfCanvas) FillString(f font.Face, pt vg.Point, txt string) {
 	if f.Font.Size == 0 || txt == "" {
 		return
 	}
+	txt = fitted(txt)
 	family, style := c.useFont(f.Font)
 	c.doc.SetFont(family, style, float64(f.Font.Size))
 	x, y := c.page(pt)

@@ -5,6 +5,7 @@ import (
 	"fmt"
 	"math"
 	"strings"
+	"time"
 
 	"codeberg.org/go-pdf/fpdf"
 	stdfont "golang.org/x/image/font"
@@ -52,11 +53,11 @@ type pdfDoc struct {
 	counters [3]int
 }
 
-func newPDFDoc(title, header, footer string, totalPages int) *pdfDoc {
-	f := newPDFDocument(pageW, pageH, title)
+func newPDFDoc(title, header, footer string, totalPages int, when time.Time) *pdfDoc {
+	f := newPDFDocument(pageW, pageH, title, when)
 	f.SetMargins(marginX, contentTop, marginX)
 	f.SetAutoPageBreak(true, marginBot)
-	d := &pdfDoc{f: f, header: header, footer: footer, pages: totalPages}
+	d := &pdfDoc{f: f, header: fitted(header), footer: fitted(footer), pages: totalPages}
 	f.SetHeaderFuncMode(d.drawHeader, true)
 	f.SetFooterFunc(d.drawFooter)
 	d.setFont(false, false, bodySize)
@@ -146,7 +147,7 @@ func (d *pdfDoc) heading(level int, title string, keep float64) {
 	}
 	d.setFont(true, false, size)
 	d.f.SetX(marginX)
-	txt := num + "  " + title
+	txt := fitted(num + "  " + title)
 	d.f.Bookmark(txt, level, -1)
 	d.f.CellFormat(contentW, size+4, txt, "", 1, "L", false, 0, "")
 	d.record(txt)
@@ -162,6 +163,7 @@ func (d *pdfDoc) para(s string) { d.paraStyled(s, false, false, bodySize, bodyLe
 func (d *pdfDoc) small(s string) { d.paraStyled(s, false, false, smallSize, smallLead) }
 
 func (d *pdfDoc) paraStyled(s string, bold, italic bool, size, lead float64) {
+	s = fitted(s)
 	d.ensure(lead)
 	d.setFont(bold, italic, size)
 	d.f.SetX(marginX)
@@ -173,6 +175,7 @@ func (d *pdfDoc) paraStyled(s string, bold, italic bool, size, lead float64) {
 
 // boxed writes a paragraph in a framed, shaded box (the caution).
 func (d *pdfDoc) boxed(title, s string) {
+	title, s = fitted(title), fitted(s)
 	d.setFont(false, false, bodySize)
 	lines := d.f.SplitLines([]byte(s), contentW-12)
 	h := float64(len(lines))*bodyLead + bodyLead + 12
@@ -234,7 +237,7 @@ func (d *pdfDoc) table(t table) {
 			if i >= len(widths) {
 				break
 			}
-			for _, l := range d.f.SplitLines([]byte(s), widths[i]-2*pad) {
+			for _, l := range d.f.SplitLines([]byte(fitted(s)), widths[i]-2*pad) {
 				lines[i] = append(lines[i], string(l))
 			}
 			n = max(n, len(lines[i]))
@@ -330,7 +333,7 @@ func (d *pdfDoc) plainTable(shares []float64, rows [][]string) {
 		n := 1
 		lines := make([][]string, len(r))
 		for i, s := range r {
-			for _, l := range d.f.SplitLines([]byte(s), widths[i]-2*pad) {
+			for _, l := range d.f.SplitLines([]byte(fitted(s)), widths[i]-2*pad) {
 				lines[i] = append(lines[i], string(l))
 			}
 			n = max(n, len(lines[i]))

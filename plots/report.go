@@ -6,6 +6,7 @@ import (
 	"math"
 	"slices"
 	"strings"
+	"time"
 
 	"spanbreak/beam"
 	"spanbreak/optimise"
@@ -15,12 +16,16 @@ import (
 
 // ReportInput is everything the calculation report prints.
 type ReportInput struct {
-	Outcome  *optimise.Outcome // the job, its analysis, the scan, the layouts and the chosen splices
-	Version  string            // program version printed on every page
-	Date     string            // date printed on the report (the caller's today; tests fix it)
-	Caution  string            // the caution every output carries
-	Ranking  int               // rows of the ranking table; 0 means 10
-	Currency string            // cost unit; empty: "cost units"
+	Outcome *optimise.Outcome // the job, its analysis, the scan, the layouts and the chosen splices
+	Version string            // program version printed on every page
+	Date    string            // date printed on the report; "": Time's date (the caller's today; tests fix it)
+	// Time is the run's time, written as the PDF's creation and modification dates: the
+	// caller's clock, or SOURCE_DATE_EPOCH for reproducible output. The zero Time writes
+	// 2000-01-01, so that a test's PDF is a pure function of its input.
+	Time     time.Time
+	Caution  string // the caution every output carries
+	Ranking  int    // rows of the ranking table; 0 means 10
+	Currency string // cost unit; empty: "cost units"
 }
 
 // Report is the calculation report and everything it is made of.
@@ -34,6 +39,10 @@ type Report struct {
 	Scan     []ScanPoint            // the candidates as charted
 	Layouts  LayoutInput            // the layouts as charted
 	Charts   map[string]*Chart
+	// Warnings name the user's text the report fonts cannot show, each at its key in the job
+	// file ("job.yaml:1:8: title: 2 characters are not in the report font and print as ?");
+	// the PDF prints those characters as "?".
+	Warnings []string
 }
 
 // Heading is a numbered heading of the report and its page.
@@ -60,7 +69,10 @@ func BuildReport(in ReportInput) (*Report, error) {
 	if in.Outcome.Infeasible == nil && len(in.Outcome.Layouts.ByCount) == 0 {
 		return nil, errors.New("report: the optimisation found no layout and says no reason")
 	}
-	r := &Report{Charts: map[string]*Chart{}}
+	if in.Date == "" && !in.Time.IsZero() {
+		in.Date = in.Time.Format("2006-01-02")
+	}
+	r := &Report{Charts: map[string]*Chart{}, Warnings: fontWarnings(in.Outcome.Setup)}
 	if err := r.build(in); err != nil {
 		return nil, err
 	}
@@ -165,7 +177,7 @@ func (r *Report) document(in ReportInput, pages int, toc []heading) (*pdfDoc, er
 		version = "dev"
 	}
 	d := newPDFDoc("spanbreak splice report: "+title, "spanbreak splice report — "+title,
-		fmt.Sprintf("spanbreak %s · %s · %s · design aid: check by a competent engineer", version, s.File, in.Date), pages)
+		fmt.Sprintf("spanbreak %s · %s · %s · design aid: check by a competent engineer", version, s.File, in.Date), pages, in.Time)
 	w := reportWriter{d: d, in: in, r: r, cur: in.Currency, toc: toc}
 	if w.cur == "" {
 		w.cur = "cost units"
@@ -874,8 +886,12 @@ func (w *reportWriter) check(n int, c splice.Check) {
 		}
 		d.small("Inputs: " + strings.Join(parts, "; "))
 	}
-	d.small(fmt.Sprintf("Demand %s %s, resistance %s %s: utilisation %s, %s.", fixed(c.Demand, 2), c.Unit,
-		fixed(c.Resistance, 2), c.Unit, fixed(c.Utilisation, 3), passWord(c.Pass)))
+	util := "utilisation " + fixed(c.Utilisation, 3)
+	if c.Impossible != "" {
+		util = encode.UtilisationText(c)
+	}
+	d.small(fmt.Sprintf("Demand %s %s, resistance %s %s: %s, %s.", fixed(c.Demand, 2), c.Unit,
+		fixed(c.Resistance, 2), c.Unit, util, passWord(c.Pass)))
 	if c.Note != "" {
 		d.small("Note: " + c.Note)
 	}

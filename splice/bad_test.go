@@ -128,3 +128,33 @@ func TestRandomGeometriesNeverPanic(t *testing.T) {
 		require.False(t, math.IsNaN(r.Utilisation) || math.IsNaN(r.Cost.Total))
 	}
 }
+
+// TestImpossibleGeometryIsNamed: a splice whose bolts are off the beam flange cannot be
+// checked at all. Its checks say what is impossible instead of a placeholder utilisation,
+// and it fails. The worked splice on IPE 500 (b = 200 mm, EN 10365) with an outer plate of
+// 340 mm and a gauge of 240 mm puts the bolt lines 240/2 = 120 mm from the web centre, so the
+// edge distance to the beam flange's edge is e2 = 200/2 − 120 = −20 mm (EN 1993-1-8 Table 3.3
+// asks e2 ≥ 1.2 d0 > 0), and with it k1 = 0 in the bearing resistance of Table 3.4.
+func TestImpossibleGeometryIsNamed(t *testing.T) {
+	g := workedGeometry()
+	g.Flange.Outer.Width, g.Flange.Gauge, g.Flange.Inner = 340, 240, Plate{}
+	r, err := Verify(workedProblem(t), g)
+	require.NoError(t, err)
+	assert.False(t, r.Pass)
+	spacing := byID(t, r, IDSpacing)
+	assert.Equal(t, UtilisationCap, spacing.Utilisation)
+	assert.False(t, spacing.Pass)
+	assert.Equal(t, "flange e2 (beam flange) = -20 mm: the outer bolt lines are off the beam flange", spacing.Impossible)
+	bearing := byID(t, r, IDFlangeBearingBeam)
+	assert.False(t, bearing.Pass)
+	assert.Equal(t, "no resistance is left (flange e2 (beam flange) = -20 mm: the outer bolt lines are off the beam flange)",
+		bearing.Impossible)
+	assert.NotEmpty(t, r.Governing.Impossible, "the governing check says what is impossible")
+	// the checks that can be made say nothing of the kind
+	assert.Empty(t, byID(t, r, IDFlangeBoltShear).Impossible)
+	ok, err := Verify(workedProblem(t), workedGeometry())
+	require.NoError(t, err)
+	for _, c := range ok.Checks {
+		assert.Empty(t, c.Impossible, c.ID)
+	}
+}

@@ -57,6 +57,11 @@ type Check struct {
 	State       string // StateULS, StateSLS or StateDetailing
 	Pass        bool
 	Note        string // governing design state, part or rule, and anything the reader must know
+	// Impossible says why the check cannot be made when the geometry does not exist — a bolt
+	// off its part, a distance or resistance of zero or less — e.g. "flange e2 (beam flange)
+	// = -10 mm: the outer bolt lines are off the beam flange". Utilisation is then
+	// UtilisationCap, a placeholder to print as "not possible", and the check fails.
+	Impossible string
 }
 
 // UtilisationCap is the utilisation reported when a resistance is zero or negative (a plate with

@@ -107,6 +107,28 @@ func sheet(v *evaluator, full bool, checks []Check) []Check {
 	return checks
 }
 
+// explainImpossible gives every check that could not be made (no resistance left, a bolt off
+// its part) the reason: its own, or the detailing rule the geometry breaks.
+func explainImpossible(checks []Check) {
+	cause := ""
+	for _, c := range checks {
+		if c.Impossible != "" {
+			cause = c.Impossible
+			break
+		}
+	}
+	for i := range checks {
+		c := &checks[i]
+		if c.Impossible != "" || !(c.Demand > 0) || c.Resistance > 0 {
+			continue
+		}
+		c.Impossible = "no resistance is left"
+		if cause != "" {
+			c.Impossible += " (" + cause + ")"
+		}
+	}
+}
+
 // verdict runs every check of the splice v is set to for its utilisation alone (the numbers of
 // the sheet, TestCheckTableNumbers): whether all pass, and the splice's utilisation, in which
 // detailing checks count only when they fail (as contribution).
@@ -143,6 +165,7 @@ func assemble(v *evaluator, e *env, b *boltData, fl *flangeLayout, wl *webLayout
 			r.Utilisation, gov = m, i
 		}
 	}
+	explainImpossible(r.Checks)
 	r.Governing = r.Checks[gov]
 	r.Geometry = geometryOf(b, e.cat, e.fc, e.holes, e.gap, fl, wl)
 	wx := &v.w

@@ -15,10 +15,14 @@ type rules struct {
 	lines      []string
 	haveWorst  bool
 	failedList []string
+	impossible string // the first rule whose provided distance or limit is zero or less
 }
 
 func (r *rules) take(name string, dem, res float64, line string) {
 	u := utilisation(dem, res)
+	if dem > 0 && !(res > 0) && r.impossible == "" {
+		r.impossible = sprintf("%s = %s mm: %s", name, mm(res), offPart(name))
+	}
 	if !r.haveWorst || u > r.u {
 		r.u, r.name, r.dem, r.res, r.haveWorst = u, name, dem, res, true
 	}
@@ -53,8 +57,29 @@ func (r *rules) atMost(name string, value, limit float64, limText string) {
 	r.take(name, value, limit, line)
 }
 
+// offPart says what a detailing distance of zero or less means: which part the bolts or
+// plates have left.
+func offPart(rule string) string {
+	switch rule {
+	case "flange e2 (beam flange)":
+		return "the outer bolt lines are off the beam flange"
+	case "flange e2 (inner plate, web side)":
+		return "the bolt lines nearest the web are off the inner plates"
+	case "washer edge from web centre":
+		return "the washers under the flange run into the web"
+	case "inner plate edge from web centre":
+		return "the inner plates run into the web"
+	case "web plate depth":
+		return "the web has no depth between the root fillets for a plate"
+	}
+	return "the bolts are off the part"
+}
+
 func (r *rules) check(e *env, d *checkDef) Check {
 	c := d.check(e, "mm", r.dem, r.res, 1)
+	if c.Utilisation >= UtilisationCap {
+		c.Impossible = r.impossible
+	}
 	if r.full {
 		c.Substituted = strings.Join(r.lines, "; ")
 		c.Note = "worst rule: " + r.name

@@ -107,6 +107,26 @@ func webLength(gap, eh, ph float64, cols int) float64 {
 	return gap + 2*(2*eh+float64(cols-1)*ph)
 }
 
+// FieldError is a value a fixed splice cannot have, named by its splice-file key
+// ("flange.edge", "web.depth"; "flange" or "web" for a problem of the group as a whole).
+type FieldError struct {
+	Field string
+	Err   error
+}
+
+func (e *FieldError) Error() string { return e.Field + ": " + e.Err.Error() }
+func (e *FieldError) Unwrap() error { return e.Err }
+
+// CheckGeometry reports the values of a fixed splice that it cannot have, whatever the steel
+// and the forces: sizes that are missing or not positive, counts out of range, an edge
+// distance that disagrees with the width and gauge or with the depth, rows and pitch (beyond
+// 0.5 mm), bolt lines outside a plate. Each problem is a *FieldError; the error joins them
+// (errors.Join), nil when there is none. Verify makes the same checks first.
+func CheckGeometry(g Geometry) error {
+	_, _, err := g.shape()
+	return err
+}
+
 // sameLength is the tolerance on redundant splice-file dimensions [mm].
 const sameLength = 0.5
 
@@ -114,16 +134,39 @@ const sameLength = 0.5
 // Values that give a poor but drawable splice (an edge distance below the Table 3.3 minimum)
 // are not errors: the detailing checks report them.
 func (g Geometry) resolve(steel Steel) (flangeLayout, webLayout, error) {
+	fl, wl, err := g.shape()
+	if err != nil {
+		return fl, wl, err
+	}
 	var errs []error
-	add := func(format string, a ...any) { errs = append(errs, fmt.Errorf(format, a...)) }
+	if fl.fyo, fl.fuo, err = steel.strength(fl.to); err != nil {
+		errs = append(errs, &FieldError{Field: "flange.outer.thickness", Err: err})
+	}
+	if fl.inner {
+		if fl.fyi, fl.fui, err = steel.strength(fl.ti); err != nil {
+			errs = append(errs, &FieldError{Field: "flange.inner.thickness", Err: err})
+		}
+	}
+	if wl.fy, wl.fu, err = steel.strength(wl.tp); err != nil {
+		errs = append(errs, &FieldError{Field: "web.thickness", Err: err})
+	}
+	return fl, wl, errors.Join(errs...)
+}
+
+// shape checks the values a splice cannot have whatever its steel, and lays out its bolts.
+func (g Geometry) shape() (flangeLayout, webLayout, error) {
+	var errs []error
+	add := func(field, format string, a ...any) {
+		errs = append(errs, &FieldError{Field: field, Err: fmt.Errorf(format, a...)})
+	}
 	positive := func(field string, v float64) {
 		if !(v > 0) || math.IsInf(v, 0) {
-			add("%s: %g mm must be more than 0", field, v)
+			add(field, "%g mm must be more than 0", v)
 		}
 	}
 	nonNegative := func(field string, v float64) {
 		if !(v >= 0) || math.IsInf(v, 0) {
-			add("%s: %g mm must not be negative", field, v)
+			add(field, "%g mm must not be negative", v)
 		}
 	}
 	nonNegative("gap", g.Gap)
@@ -138,10 +181,10 @@ func (g Geometry) resolve(steel Steel) (flangeLayout, webLayout, error) {
 		fl.ti, fl.bi = f.Inner.Thickness, f.Inner.Width
 	}
 	if f.Columns != 2 && f.Columns != 4 {
-		add("flange.columns: %d must be 2 or 4", f.Columns)
+		add("flange.columns", "%d must be 2 or 4", f.Columns)
 	}
 	if f.Rows < 1 {
-		add("flange.rows: %d must be at least 1", f.Rows)
+		add("flange.rows", "%d must be at least 1", f.Rows)
 	}
 	positive("flange.gauge", f.Gauge)
 	positive("flange.end", f.End)
@@ -154,21 +197,21 @@ func (g Geometry) resolve(steel Steel) (flangeLayout, webLayout, error) {
 	case 2:
 		fl.e2 = (f.Outer.Width - f.Gauge) / 2
 		if f.Edge > 0 && math.Abs(f.Edge-fl.e2) > sameLength {
-			add("flange.edge: %g mm does not match (width − gauge)/2 = %g mm; give consistent values or leave edge out", f.Edge, fl.e2)
+			add("flange.edge", "%g mm does not match (width − gauge)/2 = %g mm; give consistent values or leave edge out", f.Edge, fl.e2)
 		}
 		if f.Outer.Width > 0 && f.Gauge > 0 && !(fl.e2 > 0) {
-			add("flange.gauge: %g mm puts the bolt lines outside the %g mm plate", f.Gauge, f.Outer.Width)
+			add("flange.gauge", "%g mm puts the bolt lines outside the %g mm plate", f.Gauge, f.Outer.Width)
 		}
 	case 4:
 		fl.e2 = f.Edge
 		positive("flange.edge", f.Edge)
 		fl.p2o = (f.Outer.Width - 2*f.Edge - f.Gauge) / 2
 		if f.Outer.Width > 0 && f.Edge > 0 && f.Gauge > 0 && !(fl.p2o > 0) {
-			add("flange: width %g − 2×edge %g − gauge %g leaves no room for the outer bolt lines", f.Outer.Width, f.Edge, f.Gauge)
+			add("flange", "width %g − 2×edge %g − gauge %g leaves no room for the outer bolt lines", f.Outer.Width, f.Edge, f.Gauge)
 		}
 	}
 	if fl.inner && f.Gauge > 0 && f.Outer.Width > 0 && f.Inner.Width > 0 && !(f.Gauge/2 > fl.innerEdge()) {
-		add("flange.inner.width: %g mm reaches past the bolt line nearest the web (inner plates are set flush with the outer plate's edges)", f.Inner.Width)
+		add("flange.inner.width", "%g mm reaches past the bolt line nearest the web (inner plates are set flush with the outer plate's edges)", f.Inner.Width)
 	}
 	if f.Rows >= 1 && f.End > 0 {
 		fl.length = flangeLength(g.Gap, f.End, f.Pitch, f.Rows)
@@ -180,13 +223,13 @@ func (g Geometry) resolve(steel Steel) (flangeLayout, webLayout, error) {
 	positive("web.thickness", w.Thickness)
 	positive("web.depth", w.Depth)
 	if w.Columns < 1 {
-		add("web.columns: %d must be at least 1", w.Columns)
+		add("web.columns", "%d must be at least 1", w.Columns)
 	}
 	if w.Rows < 1 {
-		add("web.rows: %d must be at least 1", w.Rows)
+		add("web.rows", "%d must be at least 1", w.Rows)
 	}
 	if w.Columns*w.Rows < 2 && w.Columns >= 1 && w.Rows >= 1 {
-		add("web: a single bolt each side cannot carry the eccentricity moment; use at least two")
+		add("web", "a single bolt each side cannot carry the eccentricity moment; use at least two")
 	}
 	if w.Columns > 1 {
 		positive("web.spacing", w.Spacing)
@@ -201,30 +244,14 @@ func (g Geometry) resolve(steel Steel) (flangeLayout, webLayout, error) {
 		span := float64(w.Rows-1) * w.Pitch
 		wl.ev = (w.Depth - span) / 2
 		if w.Edge > 0 && math.Abs(w.Edge-wl.ev) > sameLength {
-			add("web.edge: %g mm does not match (depth − (rows − 1)×pitch)/2 = %g mm; give consistent values or leave edge out", w.Edge, wl.ev)
+			add("web.edge", "%g mm does not match (depth − (rows − 1)×pitch)/2 = %g mm; give consistent values or leave edge out", w.Edge, wl.ev)
 		}
 		if w.Depth > 0 && !(wl.ev > 0) {
-			add("web.depth: %g mm is not deeper than the bolt rows, (rows − 1)×pitch = %g mm", w.Depth, span)
+			add("web.depth", "%g mm is not deeper than the bolt rows, (rows − 1)×pitch = %g mm", w.Depth, span)
 		}
 	}
 	if w.Columns >= 1 && w.End > 0 {
 		wl.length = webLength(g.Gap, w.End, w.Spacing, w.Columns)
-	}
-	if len(errs) > 0 {
-		return fl, wl, errors.Join(errs...)
-	}
-
-	var err error
-	if fl.fyo, fl.fuo, err = steel.strength(fl.to); err != nil {
-		errs = append(errs, fmt.Errorf("flange.outer.thickness: %w", err))
-	}
-	if fl.inner {
-		if fl.fyi, fl.fui, err = steel.strength(fl.ti); err != nil {
-			errs = append(errs, fmt.Errorf("flange.inner.thickness: %w", err))
-		}
-	}
-	if wl.fy, wl.fu, err = steel.strength(wl.tp); err != nil {
-		errs = append(errs, fmt.Errorf("web.thickness: %w", err))
 	}
 	return fl, wl, errors.Join(errs...)
 }

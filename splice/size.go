@@ -756,7 +756,7 @@ func (s *searcher) sizeInfeasible() (Result, error) {
 		}
 	}
 	if !best.found {
-		return Result{}, errors.New("splice: no configuration of the design space can be detailed on this section (check the web depth for two bolt rows and the flange width for the bolt lines)")
+		return Result{}, ErrNoDetailing
 	}
 	return s.result(&best, NoFeasible), nil
 }
@@ -838,7 +838,7 @@ func (s *searcher) exhaustive() (Result, error) {
 	case infeasible.found:
 		return s.result(&infeasible, NoFeasible), nil
 	}
-	return Result{}, errors.New("splice: no configuration of the design space can be detailed on this section (check the web depth for two bolt rows and the flange width for the bolt lines)")
+	return Result{}, ErrNoDetailing
 }
 
 func (s *searcher) result(c *choice, st Status) Result {

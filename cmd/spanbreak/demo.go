@@ -10,6 +10,7 @@ import (
 	"github.com/spf13/cobra"
 
 	"spanbreak/optimise"
+	"spanbreak/plots/encode"
 )
 
 // defaultDemoDir is the folder, in the current directory, that `demo` writes its report to.
@@ -79,7 +80,8 @@ func runDemo(opts demoOptions, ios streams) error {
 	if err != nil {
 		abs = out
 	}
-	fmt.Fprintf(where, "\nReport written to %s (report.pdf, the charts as PNG and SVG, scan.csv, layouts.csv, result.json)\n", abs)
+	fmt.Fprintf(where, "\nReport written to %s (report.pdf, the charts as PNG and SVG, scan.csv, layouts.csv, result.json)\n",
+		encode.Printable(abs))
 	return nil
 }
 

@@ -116,6 +116,10 @@ func runDesign(opts designOptions, ios streams) error {
 		if r.Status == splice.NoFeasible {
 			what = "no splice in the design space passes"
 		}
+		if r.Governing.Impossible != "" {
+			return infeasibleError(fmt.Errorf("%s: governing %s (%s): not possible, %s",
+				what, r.Governing.ID, r.Governing.Clause, r.Governing.Impossible))
+		}
 		return infeasibleError(fmt.Errorf("%s: governing %s (%s) at utilisation %.3f",
 			what, r.Governing.ID, r.Governing.Clause, r.Utilisation))
 	}

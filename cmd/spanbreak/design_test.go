@@ -198,6 +198,20 @@ func TestDesignSpliceFileChecks(t *testing.T) {
 	require.Error(t, err)
 	assert.Contains(t, err.Error(), "web.edge")
 	assert.Empty(t, out.String(), "nothing half-written")
+	assert.Regexp(t, `splice\.yaml:\d+:9: web\.edge: `, err.Error(), "at its line")
+
+	// bolts off the beam flange (IPE 500, b = 200 mm; gauge 240 mm: e2 = 100 − 120 = −20 mm)
+	// cannot be checked: the sheet and the error say so, never a placeholder utilisation
+	off := strings.NewReplacer("width: 200", "width: 340", "gauge: 130", "gauge: 240", "edge: 35", "edge: 50",
+		"  inner: {thickness: 15, width: 65}\n", "").Replace(goodSplice)
+	opts.SpliceFile = writeSplice(t, off)
+	out.Reset()
+	err = runDesign(opts, outTo(&out))
+	require.Error(t, err)
+	assert.Equal(t, exitInfeasible, exitCode(err))
+	assert.NotContains(t, out.String()+err.Error(), "999")
+	assert.Contains(t, out.String(), "not possible: flange e2 (beam flange) = -20 mm: the outer bolt lines are off the beam flange")
+	assert.Contains(t, err.Error(), "not possible, flange e2 (beam flange) = -20 mm: the outer bolt lines are off the beam flange")
 }
 
 func TestDesignErrorsAndExitCodes(t *testing.T) {

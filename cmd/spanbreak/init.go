@@ -6,6 +6,7 @@ import (
 	"fmt"
 	"io/fs"
 	"spanbreak/optimise"
+	"spanbreak/plots/encode"
 
 	"github.com/spf13/cobra"
 )
@@ -56,6 +57,6 @@ func runInit(opts initOptions, ios streams) error {
 		return err
 	}
 	_, err := fmt.Fprintf(stdout, "wrote %s: a starter job with invented data; edit it, then run: spanbreak check %s\n",
-		opts.File, opts.File)
+		encode.Printable(opts.File), encode.Printable(opts.File))
 	return err
 }

@@ -6,10 +6,11 @@
 package main
 
 import (
-	"fmt"
 	"io"
 	"os"
 	"syscall"
+
+	"spanbreak/plots/encode"
 )
 
 func main() {
@@ -36,7 +37,7 @@ func executeWith(args []string, r runners, ios streams) int {
 	root := newRootCommand(r, ios)
 	root.SetArgs(args)
 	if err := root.Execute(); err != nil {
-		fmt.Fprintf(ios.Err, "spanbreak: %v\n", err)
+		encode.WriteError(ios.Err, err)
 		return exitCode(err)
 	}
 	return exitOK

@@ -6,6 +6,8 @@ import (
 	"fmt"
 	"os"
 	"sort"
+	"strconv"
+	"time"
 
 	"github.com/spf13/cobra"
 
@@ -93,8 +95,11 @@ func runReport(opts reportOptions, ios streams) error {
 	}
 	// without a layout the report still says everything up to the candidates, then why no
 	// layout fits; the exit status stays 3
-	date := ios.now().Format("2006-01-02")
-	files, err := reportFiles(setup, res, date)
+	when, err := reportTime(ios)
+	if err != nil {
+		return err
+	}
+	files, warnings, err := reportFiles(setup, res, when)
 	if err != nil {
 		return err
 	}
@@ -102,40 +107,41 @@ func runReport(opts reportOptions, ios streams) error {
 	if err := ph.end(writeFolder(opts.Out, files, opts.Force, ph)); err != nil {
 		return err
 	}
-	fmt.Fprintf(stdout, "spanbreak %s: report on %s\n", version(), setup.File)
-	if inf != nil {
-		fmt.Fprintf(stdout, "No layout fits the limits:\n")
-		for _, l := range res.Diagnosis.Lines() {
-			fmt.Fprintf(stdout, "- %s\n", l)
-		}
-	} else {
-		rec := res.Recommended()
-		fmt.Fprintf(stdout, "Recommended: %d splice(s)", len(rec.Splices))
-		for i, x := range rec.Splices {
-			fmt.Fprintf(stdout, "%s S%d at %.3f m", map[bool]string{true: ":", false: ","}[i == 0], i+1, x*encode.ToM)
-		}
-		fmt.Fprintf(stdout, "; total cost %.0f\n", rec.Cost.Total)
-	}
-	fmt.Fprintf(stdout, "Wrote %d files to %s\n", len(files), opts.Out)
-	fmt.Fprintf(stdout, "\n%s\n", caution)
+	encode.WriteWarnings(ios.Err, warnings)
+	encode.WriteReportSummary(stdout, res, len(files), opts.Out, caution)
 	if inf != nil {
 		return infeasibleError(runErr)
 	}
 	return nil
 }
 
+// reportTime is the time the report is dated by, in its text and in the PDF's metadata:
+// SOURCE_DATE_EPOCH (whole seconds since 1970-01-01 UTC) when it is set, the convention of
+// reproducible builds, else the streams' clock.
+func reportTime(ios streams) (time.Time, error) {
+	v, ok := os.LookupEnv("SOURCE_DATE_EPOCH")
+	if !ok || v == "" {
+		return ios.now(), nil
+	}
+	sec, err := strconv.ParseInt(v, 10, 64)
+	if err != nil || sec < 0 || sec > 253402300799 { // 9999-12-31T23:59:59Z
+		return time.Time{}, usageError(fmt.Errorf("SOURCE_DATE_EPOCH: %q is not a number of seconds since 1970-01-01", v))
+	}
+	return time.Unix(sec, 0).UTC(), nil
+}
+
 // reportFiles renders the report, every figure as PNG and SVG, and the CSV and JSON files.
-func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]reportFile, error) {
-	rep, err := plots.BuildReport(plots.ReportInput{Outcome: res, Version: version(), Date: date, Caution: caution})
+func reportFiles(setup *optimise.Setup, res *optimise.Outcome, when time.Time) ([]reportFile, []string, error) {
+	rep, err := plots.BuildReport(plots.ReportInput{Outcome: res, Version: version(), Time: when, Caution: caution})
 	if err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	files := []reportFile{{"report.pdf", rep.PDF}}
 	for _, f := range rep.Figures {
 		for _, format := range []plots.Format{plots.PNG, plots.SVG} {
 			b, err := f.Bytes(format)
 			if err != nil {
-				return nil, fmt.Errorf("rendering %s.%s: %w", f.Name, format, err)
+				return nil, nil, fmt.Errorf("rendering %s.%s: %w", f.Name, format, err)
 			}
 			files = append(files, reportFile{f.Name + "." + string(format), b})
 		}
@@ -144,16 +150,16 @@ func reportFiles(setup *optimise.Setup, res *optimise.Outcome, date string) ([]r
 	// with the recommended layout's splices and their full checks added to the JSON
 	var scan, layouts, result bytes.Buffer
 	if err := encode.WriteCandidatesCSV(&scan, res); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if err := encode.WriteLayoutsCSV(&layouts, res); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	if err := encode.WriteJSON(&result, encode.ReportResult(res)); err != nil {
-		return nil, err
+		return nil, nil, err
 	}
 	files = append(files, reportFile{"scan.csv", scan.Bytes()}, reportFile{"layouts.csv", layouts.Bytes()},
 		reportFile{"result.json", result.Bytes()})
 	sort.SliceStable(files, func(i, j int) bool { return files[i].name < files[j].name })
-	return files, nil
+	return files, rep.Warnings, nil
 }

@@ -75,8 +75,9 @@ func (d *Decoder) parse(data []byte) (*yaml.Node, bool) {
 			len(data), MaxFileSize>>20, MaxFileSize)})
 		return nil, false
 	}
-	if !utf8.Valid(data) {
-		d.problems.add(Problem{File: d.file, Message: "the file is not UTF-8 text"})
+	if pr, bad := textProblem(data); bad {
+		pr.File = d.file
+		d.problems.add(pr)
 		return nil, false
 	}
 	dec := yaml.NewDecoder(bytes.NewReader(data))
@@ -104,6 +105,44 @@ func (d *Decoder) parse(data []byte) (*yaml.Node, bool) {
 		return nil, false
 	}
 	return doc.Content[0], true
+}
+
+// textProblem finds the first byte that keeps data from being YAML text: one that is not
+// UTF-8 (a file saved as Latin-1 or Windows-1252), or a character the YAML reader refuses —
+// a control character other than tab, line feed and carriage return, or a non-character
+// (YAML 1.2 section 5.1, as go.yaml.in/yaml/v3 reads it). It returns the problem at that
+// byte's line and column (counted in characters, as the parser counts them).
+func textProblem(data []byte) (Problem, bool) {
+	line, col := 1, 1
+	for i := 0; i < len(data); {
+		r, size := utf8.DecodeRune(data[i:])
+		switch {
+		case r == utf8.RuneError && size <= 1:
+			return Problem{Line: line, Column: col, Message: fmt.Sprintf(
+				"byte 0x%02X is not UTF-8 text (is the file saved as Latin-1 or Windows-1252? save it as UTF-8)", data[i])}, true
+		case !yamlPrintable(r):
+			return Problem{Line: line, Column: col, Message: fmt.Sprintf(
+				"the character %U is not allowed in a YAML file (a control character other than tab and line breaks, or a non-character); in a double-quoted string write it as an escape such as \\x1b", r)}, true
+		case r == '\n':
+			line, col = line+1, 0
+		}
+		col++
+		i += size
+	}
+	return Problem{}, false
+}
+
+// yamlPrintable reports whether the YAML reader accepts a character in a file: tab, line
+// feed, carriage return, printable ASCII, NEL, and the Unicode ranges #xA0-#xD7FF,
+// #xE000-#xFFFD and #x10000-#x10FFFF (YAML 1.2 production [1] c-printable).
+func yamlPrintable(r rune) bool {
+	switch {
+	case r == 0x09, r == 0x0A, r == 0x0D, r >= 0x20 && r <= 0x7E, r == 0x85:
+		return true
+	case r >= 0xA0 && r <= 0xD7FF, r >= 0xE000 && r <= 0xFFFD, r >= 0x10000 && r <= 0x10FFFF:
+		return true
+	}
+	return false
 }
 
 // syntaxProblem turns a parser error ("yaml: line 3: did not find ...") into a Problem.

@@ -184,13 +184,44 @@ func TestDecodeProblems(t *testing.T) {
 		{"syntax error", "name: x\nlist: [1, 2\n", []string{`1: YAML syntax: did not find expected ',' or ']'`}},
 		{"tab indentation", "name: x\nopt:\n\ta: 1\n", []string{`3: YAML syntax: found character that cannot start any token`}},
 		{"two documents", "name: x\n---\nname: y\n", []string{`2:1: a second YAML document (after ---): a file holds one document`}},
-		{"not UTF-8", "name: \xff\xfe\n", []string{` the file is not UTF-8 text`}},
+		{"not UTF-8", "name: \xff\xfe\n", []string{`1:7: byte 0xFF is not UTF-8 text`}},
+		{"Latin-1 on a later line", "name: x\nopt: {a: caf\xe9}\n", []string{
+			`2:13: byte 0xE9 is not UTF-8 text (is the file saved as Latin-1 or Windows-1252? save it as UTF-8)`}},
+		{"NUL byte", "name: a\x00b\n", []string{`1:8: the character U+0000 is not allowed in a YAML file`}},
+		{"raw ESC after a multi-byte character", "name: \u00e9\x1b[31m\n", []string{`1:8: the character U+001B is not allowed`}},
+		{"raw C1 control", "name: a\u009bb\n", []string{`1:8: the character U+009B is not allowed`}},
+		{"non-character", "name: a\uffffb\n", []string{`1:8: the character U+FFFF is not allowed`}},
 	}
 	for _, tc := range tests {
 		t.Run(tc.name, func(t *testing.T) {
 			_, ps := decodeDoc(t, tc.src)
 			checkProblems(t, "d.yaml", ps, tc.want)
 		})
+	}
+}
+
+// The characters refused before parsing are exactly those the YAML reader refuses, so that
+// every refusal carries its line and column and nothing the parser takes is refused.
+func TestTextProblemAgreesWithParser(t *testing.T) {
+	var runes []rune
+	for r := rune(0); r < 0x3000; r++ {
+		runes = append(runes, r)
+	}
+	for r := rune(0xD7F0); r < 0x10000; r++ {
+		if r < 0xD800 || r > 0xDFFF { // surrogates are not UTF-8
+			runes = append(runes, r)
+		}
+	}
+	runes = append(runes, 0x10000, 0x1F600, 0x10FFFF)
+	for _, r := range runes {
+		src := "name: \"a" + string(r) + "b\"\n"
+		_, refused := textProblem([]byte(src))
+		var node yaml.Node
+		err := yaml.Unmarshal([]byte(src), &node)
+		parserRefuses := err != nil && strings.Contains(err.Error(), "control characters are not allowed")
+		if refused != parserRefuses {
+			t.Errorf("%U: refused before parsing %v, by the parser %v (%v)", r, refused, parserRefuses, err)
+		}
 	}
 }
 

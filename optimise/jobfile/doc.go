@@ -46,7 +46,10 @@
 // beam's geometry and loads must also lie in their plausible ranges (PlausibleRanges: spans
 // 0.1 m to 200 m, a beam of at most 1 km, line loads up to 10 000 kN/m...), each refused at
 // its own key; within them no product of the analysis can overflow, and a number that
-// overflows on reading (1e306 m in mm) is refused where it is written. Section
+// overflows on reading (1e306 m in mm) is refused where it is written. So are the limits of
+// the sizing and the scan — plates 4 to 100 mm, a gap of at most 50 mm, lists of at most 100
+// entries, at most MaxCandidates scan positions — and the lengths of titles and names, so
+// that a file check accepts is one optimise runs. Section
 // and grade names are not looked up here: the caller does that and may add its problems to
 // the same list through each struct's Meta (Meta.Where gives the location of any key below
 // it) and Problems.Add. List indices in key paths count from 0.

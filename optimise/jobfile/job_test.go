@@ -570,7 +570,21 @@ combinations: {extra: [{name: X, state: uls, factors: {SW: 1}}]}
 			`12:27: vehicles[2].max_length: "13.6 t" is a mass; want a length`,
 			`12:46: vehicles[2].payload: "24 m" is a length; want a mass`,
 			`13:5: vehicles[3]: missing required key "name"`,
-			`13:5: vehicles[3]: missing required key "cost"`}},
+			`13:5: vehicles[3]: missing required key "cost"`,
+			`13:30: vehicles[3].payload: a payload of 1 kg is outside the plausible range (at least 100 kg)`}},
+		{"limits of the sizing and the scan", "title: \"" + strings.Repeat("x", 201) + "\"\n" + minimal + `splice:
+  plates: {thicknesses: [3, 10, 120]}
+  gap: "5 m"
+limits: {splices: {min: 1001, max: 2000}}
+scan: {step: "0.5 mm", alternatives: 101}
+`, []string{`1:8: title: a title of 201 characters is outside the plausible range (at most 200 characters); put the description in a comment`,
+			`11:26: splice.plates.thicknesses[0]: a plate thickness of 3 mm is outside the plausible range (4 mm to 100 mm)`,
+			`11:33: splice.plates.thicknesses[2]: a plate thickness of 120 mm is outside the plausible range (4 mm to 100 mm)`,
+			`12:8: splice.gap: a gap between the beam ends of 5000 mm is outside the plausible range (at most 50 mm)`,
+			`13:25: limits.splices.min: a number of splices of 1001 is outside the plausible range (at most 1000); a beam's layout needs far fewer`,
+			`13:36: limits.splices.max: a number of splices of 2000 is outside the plausible range (at most 1000); a beam's layout needs far fewer`,
+			`14:14: scan.step: a scan step of 0.5 mm is outside the plausible range (at least 1 mm)`,
+			`14:38: scan.alternatives: a number of alternatives of 101 is outside the plausible range (at most 100); a few near-best layouts show the choice`}},
 		{"costs", minimal + `splice: {bolts: {sizes: [M20, M24]}}
 costs:
   bolt: {M20: 3.2, M2O: 4.5, M24: -1}

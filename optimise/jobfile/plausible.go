@@ -56,6 +56,45 @@ const (
 	// flange, 2000 mm: beyond the plate girders of buildings and bridges.
 	MaxWeldedDepth = 5000.0
 	MaxWeldedWidth = 2000.0
+
+	// MinPlate is the thinnest cover plate, 4 mm, and MaxPlate the thickest, 100 mm. Below
+	// 4 mm material is sheet, whose bolted joints EN 1993-1-3 governs (from memory); above
+	// 100 mm no strength table of the program gives fy and fu (the EN 10025 thickness steps end
+	// at 100 mm; EN 1993-1-1 Table 3.1 at 80 mm, which the plate grade's table then enforces).
+	MinPlate = 4.0
+	MaxPlate = 100.0
+	// MaxGap is the widest gap between the beam ends at a splice, 50 mm: five times the
+	// usual 10 mm (common practice: 6 to 20 mm, enough for the fit-up tolerance of the ends).
+	// A wider gap is no longer a splice gap: it lengthens every cover plate and the web bolt
+	// group's eccentricity, and is usually a slip of unit (5 m for 5 mm).
+	MaxGap = 50.0
+	// MaxListLength is the most entries a list of the splice's design space may hold (bolt
+	// sizes, classes, plate thicknesses, flange arrangements): 100, as the sizing allows. The
+	// lists of real jobs have a handful.
+	MaxListLength = 100
+	// MaxTitleLength is the longest title, 200 characters: two lines of a report's heading.
+	// A longer text is not a title, and a huge one would swell every report.
+	MaxTitleLength = 200
+	// MaxNameLength is the longest name of a case, a vehicle or a combination, 100 characters.
+	MaxNameLength = 100
+	// MinStep is the finest scan step, 1 mm: positions are reported to the millimetre.
+	MinStep = 1.0
+	// MaxCandidates is the most positions a scan may have, 200 000 (the beam length over the
+	// step): a 1 km beam at 5 mm. It keeps a tiny step from running for hours.
+	MaxCandidates = 200_000
+	// MaxSplices bounds limits.splices.min and max, 1000: a 1 km beam in 1 m pieces.
+	MaxSplices = 1000
+	// MaxAlternatives bounds scan.alternatives, 100 near-best layouts: more is no summary.
+	MaxAlternatives = 100
+	// MaxRate bounds every rate of the cost model and every vehicle's cost per trip, 1e9 in
+	// the job's currency: above any price in any currency, and it keeps the sums of a layout,
+	// counted exactly in millionths, far inside the range of a 64-bit integer.
+	MaxRate = 1e9
+	// MaxClassFactor bounds a bolt class factor, 100 (real ones are 1 to 2).
+	MaxClassFactor = 100.0
+	// MinPayload is the least payload of a vehicle, 100 kg: a van carries several times as
+	// much, and a smaller payload makes the trip count of a heavy beam absurd.
+	MinPayload = 100.0
 )
 
 // What the plausible ranges bound, for the checker's look-up.
@@ -73,19 +112,36 @@ const (
 	rangePoint
 	rangeMoment
 	rangeAxial
+	rangePlate
+	rangeGap
+	rangeList
+	rangeTitle
+	rangeName
+	rangeStep
+	rangePositions
+	rangeSplices
+	rangeAlternatives
+	rangeRate
+	rangeClassFactor
+	rangePayload
 )
 
-// PlausibleRange is the range LoadJob accepts for one value of the beam or its loads.
+// PlausibleRange is the range LoadJob (or LoadSpliceFile) accepts for one value.
 type PlausibleRange struct {
-	Keys []string // the job-file reference entries that document it, e.g. "beam.spans"
-	What string   // the value bounded, e.g. "a span", "the beam length"
-	// Min and Max are the least and largest value in the internal unit (mm, N, N·mm, N/mm);
-	// Max is +Inf where there is no upper limit. Loads may act either way: Min is −Max.
+	Keys       []string // the job-file reference entries that document it, e.g. "beam.spans"
+	SpliceKeys []string // the splice-file reference entries that document it, e.g. "gap"
+	What       string   // the value bounded, e.g. "a span", "the beam length"
+	// Min and Max are the least and largest value in the internal unit (mm, N, N·mm, N/mm,
+	// kg, a count); Max is +Inf where there is no upper limit. Loads may act either way: Min
+	// is −Max.
 	Min, Max float64
 	Text     string // the range as the messages and the reference write it: "0.1 m to 200 m"
-	id       int
-	signed   bool // a load: the range bounds the magnitude
-	show     func(float64) string
+	// Integer says the value is a count (of characters, entries, positions, splices).
+	Integer bool
+	id      int
+	signed  bool   // a load: the range bounds the magnitude
+	hint    string // what the message advises; "" is "check the value and its unit"
+	show    func(float64) string
 }
 
 // PlausibleRanges lists every plausible range LoadJob enforces.
@@ -98,6 +154,14 @@ func PlausibleRanges() []PlausibleRange {
 	// ten digits, so that the limit reads 1000000000 kN/m rather than 1e+09
 	spring := func(v float64) string { return strconv.FormatFloat(v, 'g', 10, 64) + " kN/m" }
 	inf := math.Inf(1)
+	count := func(unit string) func(float64) string {
+		return func(v float64) string { return strconv.FormatFloat(v, 'f', -1, 64) + " " + unit }
+	}
+	plain := func(v float64) string { return strconv.FormatFloat(v, 'f', -1, 64) }
+	kg := func(v float64) string { return Kilograms(v).String() }
+	splicePlates := []string{"flange.outer.thickness", "flange.inner.thickness", "web.thickness"}
+	rates := []string{"costs.bolt", "costs.plate_per_kg", "costs.hole", "costs.faying_per_m2", "costs.splice",
+		"costs.lift", "vehicles[].cost"}
 	ranges := []PlausibleRange{
 		{id: rangeSpan, Keys: []string{"beam.spans"}, What: "a span", Min: MinSpan, Max: MaxSpan, show: m},
 		{id: rangeLength, Keys: []string{"beam.spans"}, What: "a beam length (spans and overhangs)", Max: MaxBeamLength, show: m},
@@ -112,6 +176,26 @@ func PlausibleRanges() []PlausibleRange {
 		{id: rangePoint, Keys: []string{"cases.NAME.loads[].point"}, What: "a point load", Max: MaxPointLoad, signed: true, show: kn},
 		{id: rangeMoment, Keys: []string{"cases.NAME.loads[].moment"}, What: "a point moment", Max: MaxPointMoment, signed: true, show: kNm},
 		{id: rangeAxial, Keys: []string{"cases.NAME.loads[].axial"}, What: "an axial load", Max: MaxPointLoad, signed: true, show: kn},
+		{id: rangePlate, Keys: []string{"splice.plates.thicknesses"}, SpliceKeys: splicePlates, What: "a plate thickness",
+			Min: MinPlate, Max: MaxPlate, show: mm},
+		{id: rangeGap, Keys: []string{"splice.gap"}, SpliceKeys: []string{"gap"}, What: "a gap between the beam ends",
+			Max: MaxGap, show: mm},
+		{id: rangeList, Keys: []string{"splice.bolts.sizes", "splice.bolts.classes", "splice.plates.thicknesses", "splice.flange_plates"},
+			What: "a list", Max: MaxListLength, Integer: true, show: count("entries"), hint: "leave out the entries that cannot win"},
+		{id: rangeTitle, Keys: []string{"title"}, What: "a title", Max: MaxTitleLength, Integer: true, show: count("characters"),
+			hint: "put the description in a comment"},
+		{id: rangeName, Keys: []string{"cases", "vehicles[].name", "combinations.extra[].name"}, What: "a name",
+			Max: MaxNameLength, Integer: true, show: count("characters"), hint: "shorten it"},
+		{id: rangeStep, Keys: []string{"scan.step"}, What: "a scan step", Min: MinStep, Max: inf, show: mm},
+		{id: rangePositions, Keys: []string{"scan.step"}, What: "a scan", Max: MaxCandidates, Integer: true, show: count("positions"),
+			hint: "take a coarser step"},
+		{id: rangeSplices, Keys: []string{"limits.splices.min", "limits.splices.max"}, What: "a number of splices",
+			Max: MaxSplices, Integer: true, show: plain, hint: "a beam's layout needs far fewer"},
+		{id: rangeAlternatives, Keys: []string{"scan.alternatives"}, What: "a number of alternatives",
+			Max: MaxAlternatives, Integer: true, show: plain, hint: "a few near-best layouts show the choice"},
+		{id: rangeRate, Keys: rates, What: "a rate", Max: MaxRate, show: plain},
+		{id: rangeClassFactor, Keys: []string{"costs.bolt_class_factor"}, What: "a class factor", Max: MaxClassFactor, show: plain},
+		{id: rangePayload, Keys: []string{"vehicles[].payload"}, What: "a payload", Min: MinPayload, Max: inf, show: kg},
 	}
 	for i := range ranges {
 		r := &ranges[i]
@@ -148,7 +232,10 @@ func (c *checker) plausible(at Loc, id int, v float64) bool {
 	if v >= r.Min && v <= r.Max {
 		return true
 	}
-	c.add(at, "%s of %s is outside the plausible range (%s); check the value and its unit",
-		r.What, r.show(v), r.Text)
+	hint := r.hint
+	if hint == "" {
+		hint = "check the value and its unit"
+	}
+	c.add(at, "%s of %s is outside the plausible range (%s); %s", r.What, r.show(v), r.Text, hint)
 	return false
 }

@@ -80,25 +80,66 @@ func TestPlausibleRangesAreEnforcedAtTheirBounds(t *testing.T) {
 			if r.Min > 0 {
 				probes[1].v = r.Min / past
 			}
+			if r.Integer {
+				probes[1].v = r.Min - 1
+			}
 		}
 		if !math.IsInf(r.Max, 1) {
-			probes = append(probes, probe{r.Max, true}, probe{r.Max * past, false})
+			over := r.Max * past
+			if r.Integer {
+				over = r.Max + 1
+			}
+			probes = append(probes, probe{r.Max, true}, probe{over, false})
 		}
 		require.NotEmpty(t, probes, r.What)
 		for _, c := range probes {
+			load := func(src string) error { _, err := LoadJob("job.yaml", []byte(src)); return err }
 			src, key := jobWith(t, r.id, c.v)
-			_, err := LoadJob("job.yaml", []byte(src))
-			name := fmt.Sprintf("%s = %g", key, c.v)
-			if c.pass {
-				assert.NoError(t, err, name)
-				continue
+			checkProbe(t, r, c.v, c.pass, key, load(src))
+			if len(r.SpliceKeys) > 0 {
+				src, key := spliceWith(t, r.id, c.v)
+				_, err := LoadSpliceFile("job.yaml", []byte(src))
+				checkProbe(t, r, c.v, c.pass, key, err)
 			}
-			require.Error(t, err, name)
-			assert.Contains(t, err.Error(), key+": "+r.What, name)
-			assert.Contains(t, err.Error(), "("+r.Text+")", name)
 		}
 		assert.NotEmpty(t, r.Keys)
 	}
+}
+
+// checkProbe asserts that a file with one value set to v passes, or fails at key with the
+// range's words.
+func checkProbe(t *testing.T, r PlausibleRange, v float64, pass bool, key string, err error) {
+	t.Helper()
+	name := fmt.Sprintf("%s = %g", key, v)
+	if pass {
+		assert.NoError(t, err, name)
+		return
+	}
+	require.Error(t, err, name)
+	assert.Contains(t, err.Error(), key+": "+r.What, name)
+	assert.Contains(t, err.Error(), "("+r.Text+")", name)
+}
+
+// spliceWith returns a valid splice file with one value set to v (internal unit) and the key
+// path of that value.
+func spliceWith(t *testing.T, id int, v float64) (string, string) {
+	t.Helper()
+	gap, thickness := "10", "15"
+	key := ""
+	switch id {
+	case rangePlate:
+		thickness, key = fmt.Sprintf("\"%v mm\"", v), "flange.outer.thickness"
+	case rangeGap:
+		gap, key = fmt.Sprintf("\"%v mm\"", v), "gap"
+	default:
+		t.Fatalf("no splice file for range %d", id)
+	}
+	return `bolt: {size: M20, class: "8.8"}
+category: A
+gap: ` + gap + `
+flange: {outer: {thickness: ` + thickness + `, width: 220}, columns: 2, rows: 3, gauge: 120, pitch: 70, end: 45, edge: 50}
+web: {thickness: 10, depth: 400, columns: 2, rows: 5, pitch: 80, spacing: 70, end: 45, edge: 40}
+`, key
 }
 
 // jobWith returns a valid job with one value set to v (internal unit) and the key path of
@@ -110,7 +151,9 @@ func jobWith(t *testing.T, id int, v float64) (string, string) {
 	section, spans, supports := "IPE 300", "[6]", "[pinned, roller]"
 	overhang := "{left: 0, right: 0}"
 	load := "{udl: 5}"
+	caseName, extra := "G", ""
 	key := ""
+	n := int(v) // a count
 	switch id {
 	case rangeSpan:
 		spans, key = "["+mm(v)+"]", "beam.spans[0]"
@@ -144,10 +187,42 @@ func jobWith(t *testing.T, id int, v float64) (string, string) {
 		load, key = "{moment: \""+num(v)+" Nmm\", at: 3}", "cases.G.loads[0].moment"
 	case rangeAxial:
 		load, key = "{axial: \""+num(v)+" N\", at: 3}", "cases.G.loads[0].axial"
+	case rangePlate:
+		extra, key = "splice: {plates: {thicknesses: ["+mm(v)+"]}}\n", "splice.plates.thicknesses[0]"
+	case rangeGap:
+		extra, key = "splice: {gap: "+mm(v)+"}\n", "splice.gap"
+	case rangeList:
+		ts := make([]string, n)
+		for i := range ts {
+			ts[i] = num(4 + 0.25*float64(i))
+		}
+		extra, key = "splice: {plates: {thicknesses: ["+strings.Join(ts, ", ")+"]}}\n", "splice.plates.thicknesses"
+	case rangeTitle:
+		extra, key = "title: "+strings.Repeat("é", n)+"\n", "title" // characters, not bytes
+	case rangeName:
+		caseName = strings.Repeat("Q", n)
+		key = "cases." + caseName
+	case rangeStep:
+		extra, key = "scan: {step: "+mm(v)+"}\n", "scan.step"
+	case rangePositions:
+		// 800 m of spans and an overhang making the length (n + 1) × 4 mm: n positions at 4 mm
+		spans, supports = "[200, 200, 200, 200]", "[pinned, roller, roller, roller, roller]"
+		overhang = "{left: 0, right: " + mm(float64(4*(n+1)-800_000)) + "}"
+		extra, key = "scan: {step: \"4 mm\"}\n", "scan.step"
+	case rangeSplices:
+		extra, key = "limits: {splices: {max: "+num(v)+"}}\n", "limits.splices.max"
+	case rangeAlternatives:
+		extra, key = "scan: {alternatives: "+num(v)+"}\n", "scan.alternatives"
+	case rangeRate:
+		extra, key = "costs: {hole: "+num(v)+"}\n", "costs.hole"
+	case rangeClassFactor:
+		extra, key = "costs: {bolt_class_factor: {\"10.9\": "+num(v)+"}}\n", `costs.bolt_class_factor["10.9"]`
+	case rangePayload:
+		extra, key = "vehicles: [{name: lorry, max_length: 13.6, payload: "+num(v)+", cost: 800}]\n", "vehicles[0].payload"
 	default:
 		t.Fatalf("no job for range %d", id)
 	}
 	src := "beam:\n  section: " + section + "\n  spans: " + spans + "\n  overhang: " + overhang +
-		"\n  supports: " + supports + "\ncases: {G: {kind: permanent, loads: [" + load + "]}}\n"
+		"\n  supports: " + supports + "\ncases: {" + caseName + ": {kind: permanent, loads: [" + load + "]}}\n" + extra
 	return src, key
 }

@@ -110,3 +110,16 @@ func ancestorOrSelf(a, b string) bool {
 	}
 	return len(b) == len(a) || b[len(a)] == '.' || b[len(a)] == '['
 }
+
+// About reports whether a problem is at a key path, inside it ("beam.section" holds
+// "beam.section.welded.tw") or around it (a problem with "beam" is about "beam.section"; one
+// with the file as a whole, path "", is not), so that a caller's later checks can leave a
+// value that failed alone.
+func (p Problems) About(path string) bool {
+	for _, pr := range p {
+		if ancestorOrSelf(path, pr.Path) || pr.Path != "" && ancestorOrSelf(pr.Path, path) {
+			return true
+		}
+	}
+	return false
+}

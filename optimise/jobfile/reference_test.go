@@ -354,7 +354,7 @@ func allowedOf(t *testing.T, ref map[string]refEntry, path string) string {
 // The reference states every plausible range the job file is checked against, under the key
 // it bounds, in the words of the messages; and the largest number of spans the analysis takes.
 func TestReferenceStatesPlausibleRanges(t *testing.T) {
-	job, _ := parseReference(t, jobfile.Reference())
+	job, sf := parseReference(t, jobfile.Reference())
 	placeholder := regexp.MustCompile(`\.[A-Z]+(\.|\[|$)`)
 	ranges := jobfile.PlausibleRanges()
 	require.NotEmpty(t, ranges)
@@ -363,6 +363,14 @@ func TestReferenceStatesPlausibleRanges(t *testing.T) {
 			path := placeholder.ReplaceAllString(key, ".*$1")
 			assert.Contains(t, allowedOf(t, job, path), r.Text, "%s: %s", key, r.What)
 		}
+		for _, key := range r.SpliceKeys {
+			assert.Contains(t, allowedOf(t, sf, key), r.Text, "splice file %s: %s", key, r.What)
+		}
+	}
+	// the conventions name the ranges of the sizes a user most often slips on
+	for _, text := range []string{"plates 4 mm to 100 mm", "a gap of at most 50 mm", "titles of at most 200 characters",
+		"lists of at most 100 entries", "at most 200000 scan positions"} {
+		assert.Contains(t, strings.Join(strings.Fields(jobfile.Reference()), " "), text)
 	}
 	assert.Contains(t, allowedOf(t, job, "beam.spans"), fmt.Sprintf("at most %d spans and overhangs", beam.MaxRegions))
 }

@@ -39,7 +39,7 @@ func TestLoadSpliceFile(t *testing.T) {
 
 	w := sf.Web
 	assert.InEpsilon(t, 10.0, w.Thickness.MM(), tol)
-	assert.InEpsilon(t, 440.0, w.Depth.MM(), tol)
+	assert.InEpsilon(t, 400.0, w.Depth.MM(), tol)
 	assert.Equal(t, 2, w.Columns)
 	assert.Equal(t, 5, w.Rows)
 	assert.InEpsilon(t, 80.0, w.Pitch.MM(), tol)

@@ -3,9 +3,11 @@ package jobfile
 import (
 	"cmp"
 	"maps"
+	"math"
 	"slices"
 	"strconv"
 	"strings"
+	"unicode/utf8"
 )
 
 // LoadJob decodes and checks a job file in one pass: every decoding problem (syntax, unknown
@@ -103,6 +105,9 @@ type beamLength struct {
 func (l beamLength) String() string { return Metres(l.mm).String() }
 
 func (c *checker) job(j *Job) {
+	if j.Has("title") {
+		c.textLength(j.Where("title"), rangeTitle, j.Title)
+	}
 	length := c.beam(&j.Beam)
 	switch {
 	case j.Forces != nil:
@@ -299,6 +304,8 @@ func (c *checker) cases(j *Job, length beamLength) []string {
 		switch {
 		case strings.TrimSpace(e.Key) == "":
 			c.add(e.Loc, "a case needs a name")
+		case utf8.RuneCountInString(e.Key) > MaxNameLength:
+			c.textLength(e.Loc, rangeName, e.Key)
 		case e.Key == SelfWeightCase && selfWeight:
 			how := "self_weight: true"
 			if j.Beam.SelfWeight == nil {
@@ -440,6 +447,8 @@ func (c *checker) combinations(cb *Combinations, caseNames []string) {
 				c.add(x.Where("name"), "a second combination named %q (extra[%d])", clip(x.Name), first)
 			} else if strings.TrimSpace(x.Name) == "" {
 				c.add(x.Where("name"), "a combination needs a name")
+			} else {
+				c.textLength(x.Where("name"), rangeName, x.Name)
 			}
 			seen[x.Name] = i
 		}
@@ -494,7 +503,7 @@ func (c *checker) spliceOptions(s *SpliceOptions) {
 			c.add(p.Where("grade"), "the plate grade is empty; write a steel grade such as S355")
 		}
 		list(c, p.Meta, "thicknesses", "plate thicknesses", p.Thicknesses, func(at Loc, t Millimetres) {
-			c.positive(at, "a plate thickness", t.MM(), t.String())
+			c.plateThickness(at, "a plate thickness", t)
 		})
 	}
 	list(c, s.Meta, "flange_plates", "flange plate arrangements", s.FlangePlates, func(at Loc, f string) {
@@ -503,8 +512,31 @@ func (c *checker) spliceOptions(s *SpliceOptions) {
 		}
 	})
 	if s.Gap != nil {
-		c.nonNegative(s.Where("gap"), "the gap", s.Gap.MM(), s.Gap.String())
+		c.gap(s.Where("gap"), *s.Gap)
 	}
+}
+
+// textLength checks the length of a text in characters against a plausible range.
+func (c *checker) textLength(at Loc, id int, text string) bool {
+	return c.plausible(at, id, float64(utf8.RuneCountInString(text)))
+}
+
+// plateThickness checks a cover plate thickness: more than 0, and in the plausible range.
+func (c *checker) plateThickness(at Loc, what string, t Millimetres) {
+	if !(t > 0) {
+		c.positive(at, what, t.MM(), t.String())
+		return
+	}
+	c.plausible(at, rangePlate, t.MM())
+}
+
+// gap checks the gap between the beam ends: not negative, and in the plausible range.
+func (c *checker) gap(at Loc, g Millimetres) {
+	if g < 0 {
+		c.nonNegative(at, "the gap", g.MM(), g.String())
+		return
+	}
+	c.plausible(at, rangeGap, g.MM())
 }
 
 // list checks a present list is not empty, has no repeated entry, and each entry passes each.
@@ -514,6 +546,9 @@ func list[T comparable](c *checker, m Meta, key, what string, xs []T, each func(
 	}
 	if len(xs) == 0 {
 		c.add(m.Where(key), "the list of %s is empty", what)
+	}
+	if !c.plausible(m.Where(key), rangeList, float64(len(xs))) {
+		return
 	}
 	seen := make(map[T]int)
 	for i, x := range xs {
@@ -586,11 +621,17 @@ func (c *checker) limits(l *Limits, length beamLength) {
 		}
 	}
 	if s := l.Splices; s != nil {
-		if s.Min != nil && *s.Min < 0 {
-			c.add(s.Where("min"), "splices.min must not be negative, got %d", *s.Min)
-		}
-		if s.Max != nil && *s.Max < 0 {
-			c.add(s.Where("max"), "splices.max must not be negative, got %d", *s.Max)
+		for _, k := range []struct {
+			key string
+			v   *int
+		}{{"min", s.Min}, {"max", s.Max}} {
+			switch {
+			case k.v == nil:
+			case *k.v < 0:
+				c.add(s.Where(k.key), "splices.%s must not be negative, got %d", k.key, *k.v)
+			default:
+				c.plausible(s.Where(k.key), rangeSplices, float64(*k.v))
+			}
 		}
 		if s.Min != nil && s.Max != nil && *s.Min > *s.Max {
 			c.add(s.Where("min"), "splices.min (%d) exceeds splices.max (%d)", *s.Min, *s.Max)
@@ -646,17 +687,23 @@ func (c *checker) vehicles(vs []Vehicle) {
 				c.add(v.Where("name"), "a second vehicle named %q (vehicles[%d])", clip(v.Name), first)
 			} else if strings.TrimSpace(v.Name) == "" {
 				c.add(v.Where("name"), "a vehicle needs a name")
+			} else {
+				c.textLength(v.Where("name"), rangeName, v.Name)
 			}
 			seen[v.Name] = i
 		}
 		if v.Has("max_length") {
 			c.positive(v.Where("max_length"), "max_length", v.MaxLength.MM(), v.MaxLength.String())
 		}
-		if v.Has("payload") {
+		switch {
+		case !v.Has("payload"):
+		case !(v.Payload > 0):
 			c.positive(v.Where("payload"), "payload", v.Payload.KG(), v.Payload.String())
+		default:
+			c.plausible(v.Where("payload"), rangePayload, v.Payload.KG())
 		}
 		if v.Has("cost") {
-			c.nonNegative(v.Where("cost"), "cost", v.Cost, formatNumber(v.Cost))
+			c.rate(v.Where("cost"), "cost", v.Cost)
 		}
 	}
 }
@@ -669,13 +716,17 @@ func (c *checker) costs(k *Costs, s *SpliceOptions) {
 		if !isBoltSize(e.Key) {
 			c.add(e.Loc, "bolt size %q is not a metric size such as M20", clip(e.Key))
 		}
-		c.nonNegative(e.Loc, "a bolt rate", e.Value, formatNumber(e.Value))
+		c.rate(e.Loc, "a bolt rate", e.Value)
 	}
 	for _, e := range k.BoltClassFactor {
 		if !slices.Contains(BoltClasses(), e.Key) {
 			c.add(e.Loc, "unknown bolt class %q%s", clip(e.Key), oneOf(e.Key, BoltClasses()))
 		}
-		c.positive(e.Loc, "a class factor", e.Value, formatNumber(e.Value))
+		if e.Value > 0 {
+			c.plausible(e.Loc, rangeClassFactor, e.Value)
+		} else {
+			c.positive(e.Loc, "a class factor", e.Value, formatNumber(e.Value))
+		}
 	}
 	rates := []struct {
 		key string
@@ -684,7 +735,7 @@ func (c *checker) costs(k *Costs, s *SpliceOptions) {
 		{"splice", k.Splice}, {"lift", k.Lift}}
 	for _, r := range rates {
 		if r.v != nil {
-			c.nonNegative(k.Where(r.key), r.key, *r.v, formatNumber(*r.v))
+			c.rate(k.Where(r.key), r.key, *r.v)
 		}
 	}
 	if len(k.Bolt) == 0 || s == nil || s.Bolts == nil {
@@ -698,19 +749,46 @@ func (c *checker) costs(k *Costs, s *SpliceOptions) {
 	}
 }
 
+// rate checks a rate or a cost: not negative, and in the plausible range.
+func (c *checker) rate(at Loc, what string, v float64) {
+	if v < 0 {
+		c.nonNegative(at, what, v, formatNumber(v))
+		return
+	}
+	c.plausible(at, rangeRate, v)
+}
+
 func (c *checker) scan(s *Scan, length beamLength) {
 	if s == nil {
 		return
 	}
 	if s.Step != nil {
-		c.positive(s.Where("step"), "the scan step", s.Step.MM(), s.Step.String())
-		if length.ok && s.Step.MM() > length.mm {
-			c.add(s.Where("step"), "the scan step %s exceeds the beam length %s", *s.Step, length)
+		at := s.Where("step")
+		switch step := s.Step.MM(); {
+		case !(step > 0):
+			c.positive(at, "the scan step", step, s.Step.String())
+		case !c.plausible(at, rangeStep, step):
+		case length.ok && step > length.mm:
+			c.add(at, "the scan step %s exceeds the beam length %s", *s.Step, length)
+		case length.ok && ScanPositions(length.mm, step) > MaxCandidates:
+			c.add(at, "a scan of %d positions (a step of %s on the %s beam) is outside the plausible range (%s); take a coarser step",
+				ScanPositions(length.mm, step), s.Step, length, plausibleRange(rangePositions).Text)
 		}
 	}
-	if s.Alternatives != nil && *s.Alternatives < 0 {
-		c.add(s.Where("alternatives"), "alternatives must not be negative, got %d", *s.Alternatives)
+	if a := s.Alternatives; a != nil {
+		if *a < 0 {
+			c.add(s.Where("alternatives"), "alternatives must not be negative, got %d", *a)
+		} else {
+			c.plausible(s.Where("alternatives"), rangeAlternatives, float64(*a))
+		}
 	}
+}
+
+// ScanPositions is the number of candidate positions on a beam of the given length [mm] at
+// a step [mm]: every step from the left end, strictly inside the beam. The scan places them
+// so (optimise.Grid), and refuses more than MaxCandidates.
+func ScanPositions(length, step float64) int {
+	return int(math.Ceil(length/step-1e-9)) - 1
 }
 
 func (c *checker) spliceFile(sf *SpliceFile) {
@@ -729,7 +807,7 @@ func (c *checker) spliceFile(sf *SpliceFile) {
 	}
 	c.enum(sf.Meta, "holes", "hole type", sf.Holes, []string{HolesNormal, HolesOversize})
 	if sf.Has("gap") {
-		c.nonNegative(sf.Where("gap"), "the gap", sf.Gap.MM(), sf.Gap.String())
+		c.gap(sf.Where("gap"), sf.Gap)
 	}
 	c.flangeSpec(&sf.Flange)
 	c.webSpec(&sf.Web)
@@ -745,7 +823,10 @@ func (c *checker) sizes(m Meta, sizes map[string]Millimetres) {
 }
 
 func (c *checker) plateSpec(p *PlateSpec) {
-	c.sizes(p.Meta, map[string]Millimetres{"thickness": p.Thickness, "width": p.Width})
+	c.sizes(p.Meta, map[string]Millimetres{"width": p.Width})
+	if p.Has("thickness") {
+		c.plateThickness(p.Where("thickness"), "thickness", p.Thickness)
+	}
 }
 
 func (c *checker) flangeSpec(f *FlangeSpec) {
@@ -767,7 +848,10 @@ func (c *checker) webSpec(w *WebSpec) {
 	if !w.Has("") {
 		return
 	}
-	c.sizes(w.Meta, map[string]Millimetres{"thickness": w.Thickness, "depth": w.Depth, "end": w.End, "edge": w.Edge})
+	c.sizes(w.Meta, map[string]Millimetres{"depth": w.Depth, "end": w.End, "edge": w.Edge})
+	if w.Has("thickness") {
+		c.plateThickness(w.Where("thickness"), "thickness", w.Thickness)
+	}
 	c.rowsAndPitch(w.Meta, "columns", w.Columns, "spacing", w.Spacing)
 	c.rowsAndPitch(w.Meta, "rows", w.Rows, "pitch", w.Pitch)
 }

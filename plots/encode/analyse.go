@@ -45,6 +45,9 @@ func SideName(s beam.Side) string {
 
 // WriteAnalysis writes an analysis in a format: "json", "csv" or "text".
 func WriteAnalysis(w io.Writer, format string, o *optimise.BeamOutcome) error {
+	if format != "json" && format != "csv" {
+		w = TextWriter(w)
+	}
 	if o.Case != nil {
 		return writeCase(w, format, o.Setup, *o.Case)
 	}
@@ -89,10 +92,10 @@ func writeCase(w io.Writer, format string, s *optimise.Setup, r beam.CaseResult)
 		}
 		return WriteJSON(w, out)
 	case "csv":
-		rows := make([][]string, len(r.Stations))
+		rows := make([][]Cell, len(r.Stations))
 		for i, st := range r.Stations {
-			rows[i] = []string{Number(st.X * ToM), SideName(st.Side), Number(r.Effects.M[i] * ToKNm),
-				Number(r.Effects.V[i] * ToKN), Number(r.Effects.N[i] * ToKN), Number(r.Effects.W[i])}
+			rows[i] = []Cell{Decimal(st.X * ToM), Text(SideName(st.Side)), Decimal(r.Effects.M[i] * ToKNm),
+				Decimal(r.Effects.V[i] * ToKN), Decimal(r.Effects.N[i] * ToKN), Decimal(r.Effects.W[i])}
 		}
 		return WriteCSV(w, []string{"x_m", "side", "M_kNm", "V_kN", "N_kN", "w_mm"}, rows)
 	}
@@ -130,9 +133,9 @@ func sideMark(st []beam.Station, i int) string {
 // writeBeamHeader prints what was analysed: file, title, beam, supports, cases and combinations.
 func writeBeamHeader(w io.Writer, s *optimise.Setup, what string) {
 	fmt.Fprintf(w, "spanbreak %s: %s\n", Version(), what)
-	fmt.Fprintf(w, "Input:    %s\n", s.File)
+	fmt.Fprintf(w, "Input:    %s\n", Printable(s.File))
 	if s.Title != "" {
-		fmt.Fprintf(w, "Title:    %s\n", s.Title)
+		fmt.Fprintf(w, "Title:    %s\n", Printable(s.Title))
 	}
 	sw := "self weight off"
 	if s.SelfWeight > 0 {

@@ -22,6 +22,7 @@ func WriteCheck(w io.Writer, format string, jc *optimise.JobCheck) error {
 	if format == "json" {
 		return WriteJSON(w, sum)
 	}
+	w = TextWriter(w)
 	writeCheckText(w, sum)
 	writeMemberText(w, &jc.Member)
 	fmt.Fprintf(w, "\n%s\n", Caution)
@@ -358,9 +359,9 @@ func writeCheckText(w io.Writer, s JobSummary) {
 	if s.Forces.Mode == "imported" {
 		what = "its forces table reads"
 	}
-	fmt.Fprintf(w, "spanbreak %s: check of %s: the job is valid and %s\n", s.Version, s.Input, what)
+	fmt.Fprintf(w, "spanbreak %s: check of %s: the job is valid and %s\n", s.Version, Printable(s.Input), what)
 	if s.Title != "" {
-		fmt.Fprintf(w, "Title:     %s\n", s.Title)
+		fmt.Fprintf(w, "Title:     %s\n", Printable(s.Title))
 	}
 	sec := s.Section
 	kind := "catalogue, " + sec.Source

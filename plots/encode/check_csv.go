@@ -29,22 +29,28 @@ func WriteCheckCSV(w io.Writer, jc *optimise.JobCheck) error {
 
 // checkTable collects the rows, marking those whose key (or an enclosing key) took a default.
 type checkTable struct {
-	rows     [][]string
+	rows     [][]Cell
 	defaults map[string]bool
 }
 
-// add appends one row; the row is a default where key or any of also is in the defaults.
+// add appends one row with a text value; the row is a default where key or any of also is in
+// the defaults.
 func (t *checkTable) add(key, value, unit string, also ...string) {
+	t.cell(key, Text(value), unit, also...)
+}
+
+// cell appends one row with a typed value.
+func (t *checkTable) cell(key string, value Cell, unit string, also ...string) {
 	d := t.defaults[key]
 	for _, k := range also {
 		d = d || t.defaults[k]
 	}
-	t.rows = append(t.rows, []string{key, value, unit, strconv.FormatBool(d)})
+	t.rows = append(t.rows, []Cell{Text(key), value, Text(unit), Boolean(d)})
 }
 
 // num adds a number, rounded by the one rule of the encoders.
 func (t *checkTable) num(key string, v float64, unit string, also ...string) {
-	t.add(key, Number(v), unit, also...)
+	t.cell(key, Decimal(v), unit, also...)
 }
 
 // limit adds a limit that may be absent (an empty value).
@@ -56,7 +62,7 @@ func (t *checkTable) limit(key string, v *float64, unit string) {
 	t.num(key, *v, unit)
 }
 
-func checkRows(s JobSummary) [][]string {
+func checkRows(s JobSummary) [][]Cell {
 	t := &checkTable{defaults: map[string]bool{}}
 	for _, p := range s.Defaults {
 		t.defaults[p] = true

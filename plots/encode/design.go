@@ -15,7 +15,7 @@ func WriteDesign(w io.Writer, format string, o *optimise.DesignOutcome) error {
 	if format == "json" {
 		return WriteJSON(w, Design(o))
 	}
-	return writeDesignText(w, o, o.Result, o.SpliceFile)
+	return writeDesignText(TextWriter(w), o, o.Result, o.SpliceFile)
 }
 
 // --- JSON (DESIGN.md section 7) -----------------------------------------------------------
@@ -163,6 +163,9 @@ type CheckDoc struct {
 	Formula     string `json:"formula"`
 	Substituted string `json:"substituted"`
 	Note        string `json:"note,omitempty"`
+	// Impossible says why the check could not be made (a bolt off its part); utilisation
+	// then holds the cap, splice.UtilisationCap, not a ratio.
+	Impossible string `json:"impossible,omitempty"`
 }
 
 type quantityDoc struct {
@@ -222,9 +225,20 @@ func Checks(cs []splice.Check) []CheckDoc {
 	out := make([]CheckDoc, len(cs))
 	for i, c := range cs {
 		out[i] = CheckDoc{ID: c.ID, Clause: c.Clause, State: c.State, Demand: Num(c.Demand), Resistance: Num(c.Resistance),
-			Unit: c.Unit, Utilisation: Num(c.Utilisation), Pass: c.Pass, Formula: c.Formula, Substituted: c.Substituted, Note: c.Note}
+			Unit: c.Unit, Utilisation: Num(c.Utilisation), Pass: c.Pass, Formula: c.Formula, Substituted: c.Substituted, Note: c.Note,
+			Impossible: c.Impossible}
 	}
 	return out
+}
+
+// UtilisationText is a check's utilisation as the text outputs print it, "utilisation
+// 0.812", or "not possible: " and the reason when the geometry cannot exist (the utilisation
+// then holds a placeholder, splice.UtilisationCap).
+func UtilisationText(c splice.Check) string {
+	if c.Impossible != "" {
+		return "not possible: " + c.Impossible
+	}
+	return fmt.Sprintf("utilisation %.3f", c.Utilisation)
 }
 
 // Design is the JSON document of a sized or checked splice.
@@ -259,9 +273,9 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 	p, g, a := dc.Problem, r.Geometry, r.Actions
 	m := p.Member
 	fmt.Fprintf(w, "spanbreak %s: bolted cover-plate splice, EN 1993-1-8:2005 / EN 1993-1-1:2005\n", Version())
-	fmt.Fprintf(w, "Input:     %s\n", dc.Input)
+	fmt.Fprintf(w, "Input:     %s\n", Printable(dc.Input))
 	if spliceFile != "" {
-		fmt.Fprintf(w, "Splice:    %s (checked as given)\n", spliceFile)
+		fmt.Fprintf(w, "Splice:    %s (checked as given)\n", Printable(spliceFile))
 	}
 	if dc.Position != nil {
 		fmt.Fprintf(w, "Position:  x = %.3f m\n", Clean(*dc.Position))
@@ -376,14 +390,18 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 		if c.Substituted != "" {
 			fmt.Fprintf(w, "     %s\n", c.Substituted)
 		}
-		fmt.Fprintf(w, "     %s %s ≤ %s %s: utilisation %.3f, %s\n", designNumber(c.Demand), c.Unit, designNumber(c.Resistance), c.Unit, c.Utilisation, mark)
+		fmt.Fprintf(w, "     %s %s ≤ %s %s: %s, %s\n", designNumber(c.Demand), c.Unit, designNumber(c.Resistance), c.Unit, UtilisationText(c), mark)
 		if c.Note != "" {
 			fmt.Fprintf(w, "     note: %s\n", c.Note)
 		}
 	}
 
 	gv := r.Governing
-	fmt.Fprintf(w, "\nGoverning: %s (%s), utilisation %.3f — ", gv.ID, gv.Clause, r.Utilisation)
+	governing := fmt.Sprintf("utilisation %.3f", r.Utilisation)
+	if gv.Impossible != "" {
+		governing = UtilisationText(gv)
+	}
+	fmt.Fprintf(w, "\nGoverning: %s (%s), %s — ", gv.ID, gv.Clause, governing)
 	switch {
 	case r.Pass:
 		fmt.Fprintf(w, "every check passes\n")

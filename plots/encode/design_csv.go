@@ -2,7 +2,6 @@ package encode
 
 import (
 	"io"
-	"strconv"
 
 	"spanbreak/optimise"
 )
@@ -16,10 +15,10 @@ var designCSVHeader = []string{"id", "clause", "state", "demand", "resistance", 
 // passes. The rest of the sheet (forces, geometry, cost) is in the JSON and text outputs.
 func WriteDesignCSV(w io.Writer, o *optimise.DesignOutcome) error {
 	checks := o.Result.Checks
-	rows := make([][]string, len(checks))
+	rows := make([][]Cell, len(checks))
 	for i, c := range checks {
-		rows[i] = []string{c.ID, c.Clause, c.State, Number(c.Demand), Number(c.Resistance), c.Unit,
-			Number(c.Utilisation), strconv.FormatBool(c.Pass)}
+		rows[i] = []Cell{Text(c.ID), Text(c.Clause), Text(c.State), Decimal(c.Demand), Decimal(c.Resistance), Text(c.Unit),
+			Decimal(c.Utilisation), Boolean(c.Pass)}
 	}
 	return WriteCSV(w, designCSVHeader, rows)
 }

@@ -5,7 +5,6 @@ import (
 	"fmt"
 	"io"
 	"math"
-	"strconv"
 	"strings"
 
 	"spanbreak/optimise"
@@ -296,16 +295,17 @@ func Batch(outcomes []optimise.BatchOutcome) BatchDoc {
 
 // WriteCandidatesCSV writes one row per scanned position.
 func WriteCandidatesCSV(w io.Writer, r *optimise.Outcome) error {
-	rows := make([][]string, 0, len(r.Candidates))
+	rows := make([][]Cell, 0, len(r.Candidates))
 	for _, c := range r.Candidates {
-		row := []string{Number(c.X * ToM), strconv.FormatBool(c.Feasible), "", "", "", "", "", "", "", "", "", "", "", "", c.Reason}
+		row := make([]Cell, 15)
+		row[0], row[1], row[14] = Decimal(c.X*ToM), Boolean(c.Feasible), Text(c.Reason)
 		if c.Zone == nil {
 			d, f := c.Design, c.Forces.ULS
-			row[8], row[9], row[10], row[11], row[12], row[13] = Number(d.Utilisation), d.Governing, Number(f.MMax*ToKNm),
-				Number(f.MMin*ToKNm), Number(f.V*ToKN), d.Summary
+			row[8], row[9], row[10], row[11], row[12], row[13] = Decimal(d.Utilisation), Text(d.Governing), Decimal(f.MMax*ToKNm),
+				Decimal(f.MMin*ToKNm), Decimal(f.V*ToKN), Text(d.Summary)
 			if c.Feasible {
-				row[2], row[3], row[4], row[5] = strconv.Itoa(c.Rank), Number(d.Cost), strconv.Itoa(d.Bolts), strconv.Itoa(d.Holes)
-				row[6], row[7] = Number(d.PlateMass), Number(d.Mass())
+				row[2], row[3], row[4], row[5] = Integer(c.Rank), Decimal(d.Cost), Integer(d.Bolts), Integer(d.Holes)
+				row[6], row[7] = Decimal(d.PlateMass), Decimal(d.Mass())
 			}
 		}
 		rows = append(rows, row)
@@ -316,9 +316,9 @@ func WriteCandidatesCSV(w io.Writer, r *optimise.Outcome) error {
 
 // WriteLayoutsCSV writes one row per layout.
 func WriteLayoutsCSV(w io.Writer, r *optimise.Outcome) error {
-	var rows [][]string
+	var rows [][]Cell
 	for _, j := range layoutDocs(r) {
-		rows = append(rows, append([]string{j.Kind, strconv.FormatBool(j.Recommended)}, layoutCSVRow(j)...))
+		rows = append(rows, append([]Cell{Text(j.Kind), Boolean(j.Recommended)}, layoutCSVRow(j)...))
 	}
 	return WriteCSV(w, layoutCSVHeader("kind", "recommended"), rows)
 }
@@ -328,37 +328,37 @@ func layoutCSVHeader(first ...string) []string {
 		"cost_splices", "cost_transport", "cost_erection", "cost_total")
 }
 
-func layoutCSVRow(j LayoutDoc) []string {
-	var pieces, masses []string
+func layoutCSVRow(j LayoutDoc) []Cell {
+	var pieces, masses []float64
 	for _, p := range j.Pieces {
-		pieces = append(pieces, Number(float64(p.Length)))
-		masses = append(masses, Number(float64(p.Mass)))
+		pieces = append(pieces, float64(p.Length))
+		masses = append(masses, float64(p.Mass))
 	}
-	var xs []string
+	var xs []float64
 	for _, x := range j.Splices {
-		xs = append(xs, Number(float64(x)))
+		xs = append(xs, float64(x))
 	}
 	vehicle := ""
 	if j.Vehicle != nil {
 		vehicle = *j.Vehicle
 	}
 	c := j.Cost
-	return []string{strconv.Itoa(len(j.Splices)), strings.Join(xs, ";"), strings.Join(pieces, ";"), strings.Join(masses, ";"),
-		vehicle, strconv.Itoa(j.Trips), Number(float64(c.Splices)), Number(float64(c.Transport)), Number(float64(c.Erection)), Number(float64(c.Total))}
+	return []Cell{Integer(len(j.Splices)), Decimals(xs), Decimals(pieces), Decimals(masses),
+		Text(vehicle), Integer(j.Trips), Decimal(float64(c.Splices)), Decimal(float64(c.Transport)), Decimal(float64(c.Erection)), Decimal(float64(c.Total))}
 }
 
 // WriteBatchCSV writes the best layout of each job of a batch, or its error.
 func WriteBatchCSV(w io.Writer, outcomes []optimise.BatchOutcome) error {
-	var rows [][]string
+	var rows [][]Cell
 	for _, o := range outcomes {
 		if o.Err != nil {
-			row := make([]string, 13)
-			row[0], row[1], row[12] = o.File, o.Title, o.Err.Error()
+			row := make([]Cell, 13)
+			row[0], row[1], row[12] = Text(o.File), Text(o.Title), Text(o.Err.Error())
 			rows = append(rows, row)
 			continue
 		}
 		j := layoutDoc(o.Outcome.Recommended(), string(o.Outcome.Pick.Kind), true)
-		rows = append(rows, append(append([]string{o.File, o.Title}, layoutCSVRow(j)...), ""))
+		rows = append(rows, append(append([]Cell{Text(o.File), Text(o.Title)}, layoutCSVRow(j)...), Cell{}))
 	}
 	return WriteCSV(w, append(layoutCSVHeader("file", "title"), "error"), rows)
 }
@@ -395,10 +395,11 @@ func massLimit(kg float64) string {
 // WriteOptimiseText writes an optimisation for reading: limits, the recommendation, the
 // layouts, the admissible stretches and the best positions.
 func WriteOptimiseText(w io.Writer, r *optimise.Outcome) {
+	w = TextWriter(w)
 	fmt.Fprintf(w, "spanbreak %s: splice positions and layouts\n", Version())
-	fmt.Fprintf(w, "Input:    %s\n", r.Setup.File)
+	fmt.Fprintf(w, "Input:    %s\n", Printable(r.Setup.File))
 	if r.Setup.Title != "" {
-		fmt.Fprintf(w, "Title:    %s\n", r.Setup.Title)
+		fmt.Fprintf(w, "Title:    %s\n", Printable(r.Setup.Title))
 	}
 	fmt.Fprintf(w, "Beam:     %s, length %.3f m, %.1f kg/m of steel\n", r.Setup.Section.Name, r.Setup.Model.Length*ToM, r.Setup.Section.Mass)
 	splices := fmt.Sprintf("%d or more", r.Setup.MinSplices)
@@ -674,6 +675,7 @@ func writeCandidateSummary(w io.Writer, r *optimise.Outcome) {
 
 // WriteBatchText writes the summary table of a batch.
 func WriteBatchText(w io.Writer, outcomes []optimise.BatchOutcome) {
+	w = TextWriter(w)
 	fmt.Fprintf(w, "spanbreak %s: best layout of each job\n\n", Version())
 	tw := Table(w)
 	fmt.Fprintln(tw, "file\ttitle\tsplices\tat [m]\tvehicle\ttrips\ttotal\tstatus")
@@ -685,7 +687,7 @@ func WriteBatchText(w io.Writer, outcomes []optimise.BatchOutcome) {
 			if errors.As(o.Err, &inf) {
 				status = "no layout within the limits (below)"
 			}
-			fmt.Fprintf(tw, "%s\t%s\t\t\t\t\t\t%s\n", o.File, o.Title, status)
+			fmt.Fprintf(tw, "%s\t%s\t\t\t\t\t\t%s\n", Printable(o.File), Printable(o.Title), status)
 			msg := o.Err.Error()
 			if o.Outcome != nil && len(o.Outcome.Diagnosis) > 0 {
 				msg += "\n  why: " + o.Outcome.Diagnosis[0].Message
@@ -698,7 +700,7 @@ func WriteBatchText(w io.Writer, outcomes []optimise.BatchOutcome) {
 		if vehicle == "" {
 			vehicle = "-"
 		}
-		fmt.Fprintf(tw, "%s\t%s\t%d\t%s\t%s\t%d\t%s\tok\n", o.File, o.Title, len(l.Splices), positions(l.Splices), vehicle,
+		fmt.Fprintf(tw, "%s\t%s\t%d\t%s\t%s\t%d\t%s\tok\n", Printable(o.File), Printable(o.Title), len(l.Splices), positions(l.Splices), vehicle,
 			l.Trips, money(l.Cost.Total))
 	}
 	tw.Flush()

@@ -2,6 +2,7 @@ package encode
 
 import (
 	"fmt"
+	"io"
 	"math"
 	"strconv"
 
@@ -66,4 +67,30 @@ type ReportResultDoc struct {
 // ReportResult is the document of result.json.
 func ReportResult(o *optimise.Outcome) ReportResultDoc {
 	return ReportResultDoc{Optimise(o), ChosenSplices(o.Chosen)}
+}
+
+// WriteReportSummary writes what `report` prints once the folder is written: the job, the
+// recommended layout, the number of files and the folder, and the caution.
+func WriteReportSummary(w io.Writer, r *optimise.Outcome, files int, folder, caution string) {
+	w = TextWriter(w)
+	fmt.Fprintf(w, "spanbreak %s: report on %s\n", Version(), Printable(r.Setup.File))
+	if r.Infeasible != nil {
+		fmt.Fprintf(w, "No layout fits the limits:\n")
+		for _, l := range r.Diagnosis.Lines() {
+			fmt.Fprintf(w, "- %s\n", l)
+		}
+	} else {
+		rec := r.Recommended()
+		fmt.Fprintf(w, "Recommended: %d splice(s)", len(rec.Splices))
+		for i, x := range rec.Splices {
+			sep := ","
+			if i == 0 {
+				sep = ":"
+			}
+			fmt.Fprintf(w, "%s S%d at %.3f m", sep, i+1, x*ToM)
+		}
+		fmt.Fprintf(w, "; total cost %.0f\n", rec.Cost.Total)
+	}
+	fmt.Fprintf(w, "Wrote %d files to %s\n", files, Printable(folder))
+	fmt.Fprintf(w, "\n%s\n", caution)
 }

@@ -5,6 +5,8 @@ import (
 	"encoding/csv"
 	"encoding/json"
 	"io"
+	"strconv"
+	"strings"
 	"text/tabwriter"
 )
 
@@ -15,15 +17,67 @@ func WriteJSON(w io.Writer, v any) error {
 	return enc.Encode(v)
 }
 
-// WriteCSV writes a header and rows (RFC 4180).
-func WriteCSV(w io.Writer, header []string, rows [][]string) error {
+// Cell is one CSV cell: a number, written as it is, or text. A spreadsheet runs a cell that
+// begins with =, +, - or @ as a formula (and a leading tab or carriage return hides what
+// follows), so text cells that begin so — a vehicle named "=HYPERLINK(...)", a title, a
+// reason — get a leading apostrophe, the mark spreadsheets read as "this is text"; a leading
+// apostrophe is doubled so that the mark can be told from the text. Number cells are never
+// changed: a negative moment stays a number. The zero Cell is an empty cell.
+type Cell struct{ s string }
+
+// formulaStarts are the first characters that make a spreadsheet read a text cell as a
+// formula or hide it, and the apostrophe that marks text. optimise/forcetable writes its
+// governing names by the same rule.
+const formulaStarts = "=+-@\t\r'"
+
+// Text is a text cell: control characters escaped as TextWriter does (the line feeds a
+// quoted CSV cell may hold are kept), then neutralised if a spreadsheet would run it.
+func Text(s string) Cell {
+	s = escape(s, true)
+	if s != "" && strings.IndexByte(formulaStarts, s[0]) >= 0 {
+		s = "'" + s
+	}
+	return Cell{s}
+}
+
+// Decimal is a number cell, rounded as Number rounds.
+func Decimal(v float64) Cell { return Cell{Number(v)} }
+
+// Decimals is a cell of numbers separated by semicolons, "4.995;7.005".
+func Decimals(vs []float64) Cell {
+	parts := make([]string, len(vs))
+	for i, v := range vs {
+		parts[i] = Number(v)
+	}
+	return Cell{strings.Join(parts, ";")}
+}
+
+// Integer is a whole-number cell.
+func Integer(n int) Cell { return Cell{strconv.Itoa(n)} }
+
+// Boolean is a true/false cell.
+func Boolean(b bool) Cell { return Cell{strconv.FormatBool(b)} }
+
+// String returns the cell as written.
+func (c Cell) String() string { return c.s }
+
+// WriteCSV writes a header (the program's own column names) and rows of cells (RFC 4180).
+func WriteCSV(w io.Writer, header []string, rows [][]Cell) error {
 	cw := csv.NewWriter(w)
 	if err := cw.Write(header); err != nil {
 		return err
 	}
-	if err := cw.WriteAll(rows); err != nil {
-		return err
+	rec := make([]string, 0, len(header))
+	for _, row := range rows {
+		rec = rec[:0]
+		for _, c := range row {
+			rec = append(rec, c.s)
+		}
+		if err := cw.Write(rec); err != nil {
+			return err
+		}
 	}
+	cw.Flush()
 	return cw.Error()
 }
 
