@@ -79,6 +79,9 @@ type Outcome struct {
 	Infeasible *LimitError   // the limit no layout can meet, when none can
 	Diagnosis  Diagnosis     // why no layout fits, when Infeasible is set; empty otherwise
 	Notes      []string
+	// Placed is set on an outcome made by WithLayout: its one layout, the recommended one, was
+	// placed by hand and priced by the search's rules, not found by the search.
+	Placed bool
 }
 
 // Recommended returns the cheapest layout; the zero Layout when no layout fits (Infeasible).
