@@ -83,7 +83,7 @@ type CostDoc struct {
 
 // LayoutDoc is one layout: where the splices go, the pieces, the vehicle and the cost.
 type LayoutDoc struct {
-	Kind        string     `json:"kind"` // "best" for its splice count, or "alternative"
+	Kind        string     `json:"kind"` // "best" for its splice count, "alternative", or "placed" by hand (view)
 	Recommended bool       `json:"recommended"`
 	Splices     []Num      `json:"splices"`
 	Pieces      []PieceDoc `json:"pieces"`
@@ -197,8 +197,12 @@ func layoutDoc(l optimise.Layout, kind string, recommended bool) LayoutDoc {
 
 func layoutDocs(r *optimise.Outcome) []LayoutDoc {
 	out := []LayoutDoc{}
+	kind := "best"
+	if r.Placed {
+		kind = "placed" // the one layout of Outcome.WithLayout, placed by hand
+	}
 	for i, l := range r.Layouts.ByCount {
-		out = append(out, layoutDoc(l, "best", i == r.Layouts.Recommended))
+		out = append(out, layoutDoc(l, kind, i == r.Layouts.Recommended))
 	}
 	for _, l := range r.Layouts.Alternatives {
 		out = append(out, layoutDoc(l, "alternative", false))
