@@ -485,7 +485,9 @@ func TestServeViewPrintsTheAddressAndStops(t *testing.T) {
 		return errors.New("no desktop here")
 	}
 	done := make(chan error, 1)
-	go func() { done <- serveView(ctx, viewOptions{JobFile: demoJob}, streams{Out: &out, Err: &errb, Now: fixedNow}, open) }()
+	go func() {
+		done <- serveView(ctx, viewOptions{JobFile: demoJob}, streams{Out: &out, Err: &errb, Now: fixedNow}, open)
+	}()
 	var url string
 	select {
 	case url = <-opened:
