@@ -8,16 +8,18 @@
   const NS = "http://www.w3.org/2000/svg";
 
   // The drawing's geometry in SVG user units: one column of panels sharing the x axis.
-  const W = 1000, LEFT = 64, RIGHT = 18, PW = W - LEFT - RIGHT;
+  // W is about the drawing's width in CSS pixels at 1280 × 800, so the text sizes are pixels.
+  const W = 800, LEFT = 60, RIGHT = 14, PW = W - LEFT - RIGHT;
   const PANELS = [
-    { id: "beam", h: 150 },
-    { id: "cost", h: 104 },
-    { id: "M", h: 118 },
-    { id: "V", h: 96 },
-    { id: "w", h: 88 },
+    { id: "beam", h: 140 },
+    { id: "cost", h: 88 },
+    { id: "M", h: 104 },
+    { id: "V", h: 84 },
+    { id: "w", h: 78 },
   ];
-  const GAP = 10;
-  const BEAM = { handle: 6, label1: 38, label2: 52, top: 62, bar: 20, support: 82 };
+  const GAP = 8;
+  const AXIS = 34; // below the last panel: the x axis and its label
+  const BEAM = { handle: 4, label1: 38, label2: 52, top: 60, bar: 18, support: 78 };
 
   const state = {
     beam: null,       // GET /api/beam
@@ -123,7 +125,7 @@
       state.panelY[p.id] = y;
       y += p.h + GAP;
     }
-    state.height = y + 26;
+    state.height = y + AXIS;
     chart.setAttribute("viewBox", "0 0 " + W + " " + state.height);
     const defs = svg("defs", {}, chart);
     const keep = svg("pattern", { id: "keep-hatch", width: 6, height: 6, patternUnits: "userSpaceOnUse", patternTransform: "rotate(45)" }, defs);
@@ -147,13 +149,13 @@
     if (state.beam.deflection) {
       drawEnvelope("w", "w [mm] SLS, down +", state.beam.sls.w_max, state.beam.sls.w_min, "band-sls", true);
     }
-    drawAxis(state.height - 26);
+    drawAxis(state.height - AXIS);
     drawOptimum();
   }
 
   function drawZones() {
     const g = state.layers.zones;
-    const top = 0, bottom = state.height - 26;
+    const top = 0, bottom = state.height - AXIS;
     for (const z of state.beam.keep_out) {
       if (!(z.to > z.from)) continue;
       const r = svg("rect", { class: "keep-out", x: X(z.from), y: top, width: Math.max(X(z.to) - X(z.from), 0.5), height: bottom - top,
@@ -189,6 +191,7 @@
     text(g, 4, y0 + 38, "at each", { class: "tick" });
     text(g, 4, y0 + 50, "position", { class: "tick" });
     const cs = state.result.candidates;
+    drawNoPass(g, cs, y0 + h);
     const costs = cs.filter((c) => c.feasible).map((c) => c.cost);
     if (costs.length === 0) {
       text(g, LEFT + PW / 2, y0 + h / 2, "no position admits a splice", { class: "cost-none", "text-anchor": "middle" });
@@ -208,7 +211,29 @@
       open = true;
     }
     svg("path", { class: "cost-line", d }, g);
-    text(g, LEFT + PW - 4, y0 + 11, "from " + money(min) + " to " + money(max), { class: "tick", "text-anchor": "end" });
+    cs.forEach((c, k) => {
+      const alone = c.feasible && !(cs[k - 1] && cs[k - 1].feasible) && !(cs[k + 1] && cs[k + 1].feasible);
+      if (alone) titled(svg("circle", { class: "cost-point", cx: X(c.x), cy: Y(c.cost), r: 2.5 }, g), m3(c.x) + " m: " + money(c.cost));
+    });
+    text(g, LEFT + PW - 4, y0 + 11, max > min ? "from " + money(min) + " to " + money(max) : money(min) + " everywhere it passes",
+      { class: "tick", "text-anchor": "end" });
+  }
+
+  // drawNoPass marks, along the bottom of the cost panel, each run of positions outside the
+  // keep-out zones where no splice of the design space passes, in words where it fits.
+  function drawNoPass(g, cs, bottom) {
+    const step = state.beam.step;
+    for (let k = 0; k < cs.length; k++) {
+      if (cs[k].feasible || cs[k].keep_out) continue;
+      let j = k;
+      while (j + 1 < cs.length && !cs[j + 1].feasible && !cs[j + 1].keep_out) j++;
+      const a = X(cs[k].x - step / 2), b = X(cs[j].x + step / 2);
+      const r = svg("rect", { class: "no-pass", x: a, y: bottom - 7, width: Math.max(b - a, 1), height: 7,
+        "data-from": cs[k].x, "data-to": cs[j].x }, g);
+      titled(r, "no splice passes from " + m3(cs[k].x) + " to " + m3(cs[j].x) + " m (" + (cs[k].governing || "") + ")");
+      if (b - a > 110) text(g, (a + b) / 2, bottom - 10, "no splice passes", { class: "no-pass-label", "text-anchor": "middle" });
+      k = j;
+    }
   }
 
   function drawEnvelope(id, label, hiVals, loVals, cls, down) {
@@ -251,7 +276,7 @@
       svg("line", { x1: X(x), x2: X(x), y1: y, y2: y + 4 }, g);
       text(g, X(x), y + 15, String(x), { "text-anchor": "middle" });
     }
-    text(g, LEFT + PW, y + 25, "x [m]", { "text-anchor": "end" });
+    text(g, LEFT + PW, y + 28, "x [m] from the left end", { "text-anchor": "end" });
   }
 
   function drawOptimum() {
@@ -295,7 +320,7 @@
     const focused = document.activeElement && document.activeElement.dataset ? document.activeElement.dataset.id : null;
     const keep = new Map();
     for (const m of g.querySelectorAll(".marker")) keep.set(m.dataset.id, m);
-    const top = state.panelY.beam + BEAM.handle, bottom = state.height - 26;
+    const top = state.panelY.beam + BEAM.handle, bottom = state.height - AXIS;
     const answer = state.shown === state.version ? state.last : null;
     sorted().forEach((s, k) => {
       const x = state.cands[s.i];
@@ -427,6 +452,7 @@
     $("add").addEventListener("click", addSplice);
     $("reset").addEventListener("click", () => resetToOptimum(true));
     $("reset").disabled = !state.optimum;
+    $("add").disabled = state.cands.length === 0;
     $("report-form").addEventListener("submit", (ev) => { ev.preventDefault(); writeReport(); });
   }
 
@@ -492,13 +518,16 @@
       const x1 = X(p.from), x2 = X(p.to), w = Math.max(x2 - x1, 0.5);
       svg("rect", { class: "body", x: x1, y: y0 + BEAM.top, width: w, height: BEAM.bar }, pg);
       if (p.breaks.length) svg("rect", { class: "hatch", x: x1, y: y0 + BEAM.top, width: w, height: BEAM.bar }, pg);
-      const words = "P" + (k + 1) + " · " + fixed(p.length, 3) + " m · " + fixed(p.mass_kg, 0) + " kg";
+      const name = "P" + (k + 1);
+      const words = name + " · " + fixed(p.length, 3) + " m · " + fixed(p.mass_kg, 0) + " kg";
       const cx = (x1 + x2) / 2;
-      const wide = w > 150;
-      text(pg, cx, y0 + BEAM.label1, wide ? words : "P" + (k + 1), { class: "piece-label", "text-anchor": "middle" });
+      // the longest label that fits the piece (about 6 px a character at 11 px)
+      const fits = (s) => s.length * 6.2 + 8 <= w;
+      const label = [words, name + " · " + fixed(p.length, 2) + " m", name].find(fits) || name;
+      text(pg, cx, y0 + BEAM.label1, label, { class: "piece-label", "text-anchor": "middle" });
       if (p.breaks.length) {
         const what = p.breaks.map((b) => b.label).join(", ");
-        text(pg, cx, y0 + BEAM.label2, w > 60 ? what : "✕", { class: "piece-break", "text-anchor": "middle" });
+        text(pg, cx, y0 + BEAM.label2, fits(what) ? what : "✕ " + p.breaks[0].label, { class: "piece-break", "text-anchor": "middle" });
       }
       titled(pg, words + (p.breaks.length ? ": " + p.breaks.map((b) => b.message).join("; ") : ", within every limit"));
     });
@@ -522,14 +551,16 @@
       total.dataset.value = "";
     }
     const diff = $("difference");
-    if (ev.difference !== null && ev.difference !== undefined && ev.optimum) {
+    const opt = ev.optimum;
+    const where = opt ? money(opt.cost.total) + " (" + opt.splices.length + " splice" + (opt.splices.length === 1 ? "" : "s") +
+      (opt.splices.length ? " at " + opt.splices.map((x) => fixed(x, 2)).join(", ") + " m" : "") + ")" : "";
+    if (ev.difference !== null && ev.difference !== undefined && opt) {
       const d = ev.difference;
       diff.textContent = (Math.abs(d) < 0.005 ? "equal to" : (d > 0 ? "+" + money(d) + " more than" : money(d) + " against")) +
-        " the optimum " + money(ev.optimum.cost.total) + " (" + ev.optimum.splices.length + " splice" +
-        (ev.optimum.splices.length === 1 ? "" : "s") + " at " + (ev.optimum.splices.map((x) => fixed(x, 2)).join(", ") || "none") + " m)";
+        " the optimum " + where;
       diff.dataset.value = String(d);
-    } else if (ev.optimum) {
-      diff.textContent = "optimum " + money(ev.optimum.cost.total) + "; this layout is not admissible";
+    } else if (opt) {
+      diff.textContent = "the optimum costs " + where;
       diff.dataset.value = "";
     } else {
       diff.textContent = "no layout fits this job's limits, so there is no optimum to compare with";
