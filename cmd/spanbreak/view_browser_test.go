@@ -152,7 +152,13 @@ func (p *browserPage) total() string {
 // screenshot saves the viewport as a PNG in the test's folder and returns its path.
 func (p *browserPage) screenshot(name string) string {
 	p.t.Helper()
-	png, err := chromedp.Run(p.ctx, chromedp.CaptureScreenshot())
+	return p.capture(name, chromedp.CaptureScreenshot())
+}
+
+// capture saves a screenshot action's PNG in the test's folder and returns its path.
+func (p *browserPage) capture(name string, shot chromedp.Action[[]byte]) string {
+	p.t.Helper()
+	png, err := chromedp.Run(p.ctx, shot)
 	require.NoError(p.t, err)
 	path := filepath.Join(p.dir, name)
 	require.NoError(p.t, os.WriteFile(path, png, 0o644))
@@ -349,7 +355,7 @@ func TestViewInTheBrowser(t *testing.T) {
 	}))
 	assert.Equal(t, "none", eval[string](p, `getComputedStyle(document.querySelector(".toolbar")).display`))
 	assert.Equal(t, "none", eval[string](p, `getComputedStyle(document.getElementById("report-box")).display`))
-	printed := p.screenshot("view-print.png")
+	printed := p.capture("view-print.png", chromedp.FullScreenshot(100)) // the whole page, as it flows on paper
 
 	p.mu.Lock()
 	defer p.mu.Unlock()
