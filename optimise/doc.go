@@ -69,6 +69,18 @@
 // min_piece_length, max_piece_length, the vehicles' length) or the stretch of beam without an
 // admissible position, with the job-file location.
 //
+// # Layouts placed by hand
+//
+// Outcome.Evaluate prices a layout at positions the caller chooses (the page of `spanbreak
+// view`): each position snaps to the nearest candidate of the scan, within half a step, and
+// takes the splice the scan sized there, and the layout is priced by LayoutProblem.Price, the
+// search's own arithmetic for pieces, masses, the vehicle tier and the trips, so the
+// recommended layout prices at exactly its reported total. Everything that makes a hand layout
+// inadmissible is listed with its job-file key: a position off the beam or the grid, in a
+// keep-out zone or where no splice passes, each limit each piece breaks, pieces that no one
+// vehicle takes, and the splice-count limits. Outcome.WithLayout turns an admissible one into
+// an outcome whose recommendation it is, for the report.
+//
 // # Identical splices
 //
 // Outcome.Uniform finds, for each splice count (by the same counting rule), the best layout in

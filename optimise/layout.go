@@ -237,3 +237,39 @@ func (s *search) layoutFrom(nodes []int, t *tier, trips int) Layout {
 	l.key = layoutKey{total: total, count: len(nodes), tie: l.Tie, nodes: l.Sites}
 	return l
 }
+
+// Price prices the layout through the given sites (indices into p.Sites, strictly
+// increasing) by the rules of the search, with its arithmetic: the pieces between them, the
+// cheapest vehicle tier that takes every piece within the piece limits, the fewest trips and
+// the cost. The search's best layout of those sites prices at exactly its reported cost. ok
+// is false when no tier takes every piece; the Layout then has its splices and pieces only.
+// The splice-count limits are not checked here.
+func (p *LayoutProblem) Price(sites []int) (l Layout, ok bool) {
+	p.validate()
+	for i, site := range sites {
+		if site < 0 || site >= len(p.Sites) || i > 0 && site <= sites[i-1] {
+			panic(fmt.Sprintf("optimise: Price: sites %v not increasing indices of %d sites", sites, len(p.Sites)))
+		}
+	}
+	s := newSearch(p)
+	path := s.withEnds(sites)
+	for _, t := range s.tiers {
+		if !s.validPath(path, t) {
+			continue
+		}
+		if c := s.layoutFrom(sites, t, s.trips(sites, t)); !ok || c.key.compare(l.key) < 0 {
+			l, ok = c, true
+		}
+	}
+	if ok {
+		return l, true
+	}
+	l = Layout{Sites: slices.Clone(sites), Proven: true}
+	for _, n := range sites {
+		l.Splices = append(l.Splices, p.Sites[n].X)
+	}
+	for k := 0; k+1 < len(path); k++ {
+		l.Pieces = append(l.Pieces, s.piece(path[k], path[k+1]))
+	}
+	return l, false
+}

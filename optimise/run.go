@@ -88,6 +88,9 @@ type Outcome struct {
 	Infeasible  *LimitError      // the limit no layout can meet, when none can
 	Diagnosis   Diagnosis        // why no layout fits, when Infeasible is set; empty otherwise
 	Notes       []string
+	// Placed is set on an outcome made by WithLayout: its one layout, the recommended one, was
+	// placed by hand and priced by the search's rules, not found by the search.
+	Placed bool
 }
 
 // Gap is the gap between the beam ends at a splice [mm].

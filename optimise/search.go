@@ -132,6 +132,16 @@ func (s *search) valid(i, j int, t *tier) bool {
 	return s.lengthOK(i, j, t) && s.mass(i, j) <= t.maxMass+massTol
 }
 
+// validPath reports whether every piece of a node path is valid on a tier.
+func (s *search) validPath(path []int, t *tier) bool {
+	for k := 0; k+1 < len(path); k++ {
+		if !s.valid(path[k], path[k+1], t) {
+			return false
+		}
+	}
+	return true
+}
+
 // piece describes the piece between nodes i and j.
 func (s *search) piece(i, j int) Piece {
 	l := s.length(i, j)

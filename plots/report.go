@@ -142,7 +142,11 @@ func (r *Report) build(in ReportInput) error {
 	if res.Infeasible != nil {
 		return nil // no layouts to chart, no splices to draw
 	}
-	r.Layouts = LayoutsOf(res, "Best layout for each number of splices", in.Currency)
+	title := "Best layout for each number of splices"
+	if res.Placed {
+		title = "The layout placed by hand"
+	}
+	r.Layouts = LayoutsOf(res, title, in.Currency)
 	lay, err := LayoutChart(r.Layouts)
 	if err != nil {
 		return err
@@ -695,21 +699,30 @@ func (w *reportWriter) ranking() {
 func (w *reportWriter) layouts() {
 	d, res := w.d, w.in.Outcome
 	d.heading(0, "Layouts", w.keepFigure("layouts")+3*bodyLead)
-	d.para("For each number of splices, the cheapest set of positions that keeps every piece within the length and " +
-		"mass limits, found by an exact search over the feasible candidates; transport takes the cheapest vehicle that " +
-		"carries the longest piece, with the fewest trips by mass.")
+	heading := "Best layout for each number of splices"
+	if res.Placed {
+		heading = "The layout placed by hand"
+		d.para("The splice positions of this report were placed by hand (spanbreak view), each at a candidate position " +
+			"of the scan with the splice sized there, and priced by the rules of the layout search: every piece within " +
+			"the length and mass limits, the cheapest vehicle that carries every piece, with the fewest trips by mass. " +
+			"The note in the job summary compares it with the optimiser's recommendation.")
+	} else {
+		d.para("For each number of splices, the cheapest set of positions that keeps every piece within the length and " +
+			"mass limits, found by an exact search over the feasible candidates; transport takes the cheapest vehicle that " +
+			"carries the longest piece, with the fewest trips by mass.")
+	}
 	w.figure(w.findFigure("layouts"))
 	is := func(kind optimise.LayoutKind, i int) bool {
 		return res.IsRecommended(optimise.LayoutRef{Kind: kind, Index: i})
 	}
 	var rows [][]string
 	for i, l := range res.Layouts.ByCount {
-		rows = append(rows, layoutRow(l, is(optimise.KindBest, i)))
+		rows = append(rows, layoutRow(l, is(optimise.KindBest, i) && !res.Placed))
 	}
 	cols := []column{{"splices", 0.8, true}, {"positions [m]", 2.6, false}, {"longest piece [m]", 1.1, true},
 		{"heaviest [kg]", 1, true}, {"vehicle × trips", 1.7, false}, {"splices", 0.9, true}, {"transport", 1.05, true},
 		{"erection", 0.95, true}, {"total [" + w.cur + "]", 1.1, true}}
-	d.heading(1, "Best layout for each number of splices", 60)
+	d.heading(1, heading, 60)
 	d.table(table{Columns: cols, Rows: rows, Highlight: func(i int) bool { return is(optimise.KindBest, i) }})
 	if len(res.Layouts.Alternatives) > 0 {
 		rows = nil
@@ -744,7 +757,11 @@ func (w *reportWriter) layouts() {
 		d.table(table{Columns: ucols, Rows: rows, Highlight: func(i int) bool { return is(optimise.KindUniform, i) }})
 	}
 	rec := res.Recommended()
-	d.heading(1, "Pieces of the recommended layout", 60)
+	if res.Placed {
+		d.heading(1, "Pieces of the layout placed by hand", 60)
+	} else {
+		d.heading(1, "Pieces of the recommended layout", 60)
+	}
 	rows = nil
 	for i, p := range rec.Pieces {
 		rows = append(rows, []string{fmt.Sprint(i + 1), formatClean(p.From/1e3, 3), formatClean(p.To/1e3, 3), formatClean(p.Length/1e3, 3),

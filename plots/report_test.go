@@ -226,3 +226,23 @@ func TestReportTracesForces(t *testing.T) {
 		assert.True(t, has(d.Region.Name))
 	}
 }
+
+// TestReportOfALayoutPlacedByHand: the report of Outcome.WithLayout describes the hand-placed
+// layout — its positions, its sheets, the comparison with the optimiser — and not the search's.
+func TestReportOfALayoutPlacedByHand(t *testing.T) {
+	_, res := demoRun(t)
+	e, err := res.Evaluate([]float64{13000, 26500})
+	require.NoError(t, err)
+	require.True(t, e.Feasible, "%v", e.Reasons)
+	placed, err := res.WithLayout(e)
+	require.NoError(t, err)
+	rep, err := BuildReport(ReportInput{Outcome: placed, Version: "test", Date: "2000-01-01", Caution: testCaution})
+	require.NoError(t, err)
+	for _, want := range []string{"Layout placed by hand", "The layout placed by hand", "Pieces of the layout placed by hand",
+		"placed by hand (spanbreak view): splices at 13, 26.5 m", "Calculation sheet: splice S1 at x = " + fmtM(13000),
+		"Calculation sheet: splice S2 at x = " + fmtM(26500)} {
+		assert.Contains(t, rep.Text, want)
+	}
+	assert.NotContains(t, rep.Text, "(recommended)", "the hand layout is not the optimiser's recommendation")
+	require.Len(t, rep.Sheets, 2)
+}

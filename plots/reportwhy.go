@@ -19,8 +19,12 @@ func (w *reportWriter) resultRows() [][2]string {
 	res := w.in.Outcome
 	if res.Infeasible == nil {
 		rec := res.Recommended()
+		label := "Recommended layout"
+		if res.Placed {
+			label = "Layout placed by hand"
+		}
 		rows := [][2]string{
-			{"Recommended layout", layoutWords(rec)},
+			{label, layoutWords(rec)},
 			{"Cost", fmt.Sprintf("%s %s: splices %s, transport %s, erection %s", money(rec.Cost.Total), w.cur,
 				money(rec.Cost.Splices), money(rec.Cost.Transport), money(rec.Cost.Erection))},
 		}

@@ -18,6 +18,7 @@ type recorded struct {
 	optimise *optimiseOptions
 	report   *reportOptions
 	sections *sectionsOptions
+	view     *viewOptions
 }
 
 // parseArgs runs one command line through the real command tree with runners that only
@@ -34,6 +35,7 @@ func parseArgs(t *testing.T, args ...string) (recorded, int, string) {
 		Optimise: func(o optimiseOptions, _ streams) error { got.optimise = &o; return nil },
 		Report:   func(o reportOptions, _ streams) error { got.report = &o; return nil },
 		Sections: func(o sectionsOptions, _ streams) error { got.sections = &o; return nil },
+		View:     func(o viewOptions, _ streams) error { got.view = &o; return nil },
 	}
 	var out, errb bytes.Buffer
 	code := executeWith(args, r, streams{Out: &out, Err: &errb})
@@ -87,6 +89,13 @@ func TestArgvToOptions(t *testing.T) {
 	got, code, stderr = parseArgs(t, "sections", "HEB", "--format", "json")
 	require.Equal(t, exitOK, code, stderr)
 	assert.Equal(t, sectionsOptions{Filter: "HEB", Format: "json"}, *got.sections)
+
+	got, code, stderr = parseArgs(t, "view", "job.yaml", "--port", "8123", "--no-open")
+	require.Equal(t, exitOK, code, stderr)
+	assert.Equal(t, viewOptions{JobFile: "job.yaml", Port: 8123, NoOpen: true}, *got.view)
+	got, code, stderr = parseArgs(t, "view", "job.yaml")
+	require.Equal(t, exitOK, code, stderr)
+	assert.Equal(t, viewOptions{JobFile: "job.yaml"}, *got.view, "a free port, and the browser opens")
 }
 
 // TestArgvMistakesAreUsage: a bad command line is exit 2 before any runner is called.
@@ -100,6 +109,8 @@ func TestArgvMistakesAreUsage(t *testing.T) {
 		{"check", "a.yaml", "--nope"},
 		{"init", "a", "b"},
 		{"demo", "extra"},
+		{"view"},
+		{"view", "a.yaml", "--port", "x"},
 		{"nocommand"},
 	} {
 		got, code, _ := parseArgs(t, args...)

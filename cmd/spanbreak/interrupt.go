@@ -112,6 +112,14 @@ func (p *writePhase) check() error {
 	}
 }
 
+// stopped is closed when a signal arrives; a phase of a nil handler is never stopped.
+func (p *writePhase) stopped() <-chan struct{} {
+	if p.g == nil {
+		return nil
+	}
+	return p.g.done
+}
+
 // step reports a finished step of the phase to the test hook, if any.
 func (p *writePhase) step(what string) {
 	if p.g != nil && p.g.staged != nil {

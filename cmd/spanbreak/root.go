@@ -49,6 +49,7 @@ splices to EN 1993-1-8 and finds where to break the beam for transport and erect
 		newDesignCommand(r.Design, ios),
 		newOptimiseCommand(r.Optimise, ios),
 		newReportCommand(r.Report, ios),
+		newViewCommand(r.View, ios),
 		newInitCommand(r.Init, ios),
 		newCheckCommand(r.Check, ios),
 		newJobFileHelpTopic(),

@@ -46,11 +46,12 @@ type runners struct {
 	Optimise func(optimiseOptions, streams) error
 	Report   func(reportOptions, streams) error
 	Sections func(sectionsOptions, streams) error
+	View     func(viewOptions, streams) error
 }
 
 func realRunners() runners {
 	return runners{Analyse: runAnalyse, Check: runCheck, Demo: runDemo, Design: runDesign, Init: runInit,
-		Optimise: runOptimise, Report: runReport, Sections: runSections}
+		Optimise: runOptimise, Report: runReport, Sections: runSections, View: runView}
 }
 
 // of returns the streams with a command's output and error writers (those the root sets from

@@ -81,7 +81,7 @@ type CostDoc struct {
 
 // LayoutDoc is one layout: where the splices go, the pieces, the vehicle and the cost.
 type LayoutDoc struct {
-	Kind        string      `json:"kind"` // "best" for its splice count, "alternative", or "uniform" (identical splices)
+	Kind        string      `json:"kind"` // "best" for its splice count, "alternative", "uniform" (identical splices), or "placed" by hand (view)
 	Recommended bool        `json:"recommended"`
 	Splices     []Num       `json:"splices"`
 	Pieces      []PieceDoc  `json:"pieces"`
@@ -222,6 +222,9 @@ func layoutDocs(r *optimise.Outcome) []LayoutDoc {
 	}
 	for i, l := range r.Layouts.ByCount {
 		add(optimise.KindBest, i, l, r.PlacedSplices(l))
+		if r.Placed {
+			out[len(out)-1].Kind = "placed" // the one layout of Outcome.WithLayout, placed by hand
+		}
 	}
 	for i, l := range r.Layouts.Alternatives {
 		add(optimise.KindAlternative, i, l, r.PlacedSplices(l))
