@@ -157,11 +157,15 @@ type SpliceDesigner struct {
 	Fixed *splice.Geometry
 	// Tf, Tw are the beam's flange and web thicknesses [mm], for the bolt grip.
 	Tf, Tw float64
+
+	sizer *splice.Sizer // Problem's sizer, which keeps the layouts between positions
 }
 
-// NewSpliceDesigner builds the designer of a job.
+// NewSpliceDesigner builds the designer of a job. Its Problem is not to be changed afterwards:
+// the designer keeps what the sizing of that problem does not owe to the forces.
 func (s *Setup) NewSpliceDesigner(exhaustive bool) *SpliceDesigner {
-	return &SpliceDesigner{Problem: s.Splice, Exhaustive: exhaustive, Tf: s.Section.Tf, Tw: s.Section.Tw}
+	return &SpliceDesigner{Problem: s.Splice, Exhaustive: exhaustive, Tf: s.Section.Tf, Tw: s.Section.Tw,
+		sizer: splice.NewSizer(s.Splice)}
 }
 
 // Design sizes the cheapest splice for the forces.
@@ -177,6 +181,8 @@ func (d *SpliceDesigner) Design(f PositionForces) (SpliceDesign, error) {
 		r, err = splice.Verify(p, *d.Fixed)
 	case d.Exhaustive:
 		r, err = splice.SizeExhaustive(p)
+	case d.sizer != nil:
+		r, err = d.sizer.Size(p.ULS, p.SLS)
 	default:
 		r, err = splice.Size(p)
 	}

@@ -61,6 +61,7 @@ type searcher struct {
 	gridR0F, gridR0W grid
 	r0F, r0W         []int // flangeFirstRows on gridR0F, webFirstRows on gridR0W
 	evals            int
+	parts            []boltParts // a Sizer's layouts of each bolt; nil: listed per call
 	nth              int
 	nfc              int
 	nwc              int
@@ -204,17 +205,28 @@ func (g *grid) at(ix ...int) int {
 
 // fastAcc collects utilisations the way contribution and Check.Pass do, without building checks.
 type fastAcc struct {
-	stop    bool // stop at the first failure
+	stop    bool    // stop at the first failure
+	limit   float64 // stop once the measure exceeds it (+Inf: never)
 	pass    bool
 	measure float64
 }
 
-func newAcc(stop bool) fastAcc { return fastAcc{stop: stop, pass: true} }
+func newAcc(stop bool) fastAcc { return fastAcc{stop: stop, limit: math.Inf(1), pass: true} }
+
+// newBoundedAcc collects every check until the measure exceeds limit; the measure only grows,
+// so a part stopped there measures more than limit.
+func newBoundedAcc(limit float64) fastAcc { return fastAcc{limit: limit, pass: true} }
 
 func (a *fastAcc) util(u float64, detailing bool) bool {
 	p := passes(u)
 	if !(detailing && p) && u > a.measure {
 		a.measure = u
+		if u > a.limit {
+			if !p {
+				a.pass = false
+			}
+			return false
+		}
 	}
 	if !p {
 		a.pass = false
@@ -227,6 +239,28 @@ func (a *fastAcc) util(u float64, detailing bool) bool {
 func (a *fastAcc) flange(x *flangeEval, g []flangeNum) bool {
 	for i := range g {
 		if !a.util(g[i].u(x), g[i].detailing) {
+			return false
+		}
+	}
+	return true
+}
+
+// flangeOf runs the checks of one group that are (detailing) or are not (forces) detailing
+// rules; false when one fails and the accumulator stops. Detailing rules depend on the
+// geometry alone, so a sizer keeps their part of the accumulator per layout.
+func (a *fastAcc) flangeOf(x *flangeEval, g []flangeNum, detailing bool) bool {
+	for i := range g {
+		if g[i].detailing == detailing && !a.util(g[i].u(x), g[i].detailing) {
+			return false
+		}
+	}
+	return true
+}
+
+// webOf is flangeOf for web checks.
+func (a *fastAcc) webOf(x *webEval, g []webNum, detailing bool) bool {
+	for i := range g {
+		if g[i].detailing == detailing && !a.util(g[i].u(x), g[i].detailing) {
 			return false
 		}
 	}
@@ -711,41 +745,77 @@ type partEval struct {
 // sizeInfeasible finds, when nothing passes, the splice with the lowest utilisation (cheapest
 // among equals). With the bolt fixed that is the larger of the lowest flange and lowest web
 // utilisations, made with the cheapest flange and web that reach it.
+//
+// The search is bounded without changing the answer: a bolt whose lowest web utilisation is
+// above the best splice so far cannot win, and a flange part stops being checked once its
+// utilisation exceeds both the lowest web utilisation and the lower of the lowest flange so far
+// and the best splice so far (its own measure only grows): it can then neither lower the bolt's
+// level nor be the cheapest part within it, unless the bolt loses anyway.
 func (s *searcher) sizeInfeasible() (Result, error) {
 	var best choice
 	var fls []flangeLayout
 	var wls []webLayout
+	var fe, we []partEval
 	for bi := range s.bolts {
 		b, u, e := &s.bolts[bi], &s.rates[bi], s.e
-		fls, wls = fls[:0], wls[:0]
-		s.forEachFlange(b, func(fl *flangeLayout) { fls = append(fls, *fl) })
-		s.forEachWeb(b, func(wl *webLayout) { wls = append(wls, *wl) })
+		var fdet, wdet []fastAcc
+		fls, wls, fdet, wdet = s.layouts(bi, fls, wls)
 		if len(fls) == 0 || len(wls) == 0 {
 			continue
 		}
-		fe := make([]partEval, len(fls))
-		minF := math.Inf(1)
-		for i := range fls {
-			x := s.scan.flange(e, b, &fls[i])
-			acc := newAcc(false)
-			acc.flange(x, s.groups.flangeRowFree())
-			acc.flange(x, s.groups.flangeRows())
-			s.evals++
-			fe[i] = partEval{measure: acc.measure, sc: u.score(flangeQty(&fls[i], e.gap)), idx: i}
-			minF = min(minF, acc.measure)
-		}
-		we := make([]partEval, len(wls))
+		we = we[:0]
 		minW := math.Inf(1)
 		for i := range wls {
 			x := s.scan.web(e, b, &wls[i])
 			acc := newAcc(false)
-			acc.web(x, s.groups.webClass())
-			acc.web(x, s.groups.webPlates())
+			if wdet != nil {
+				acc.pass, acc.measure = wdet[i].pass, wdet[i].measure
+			} else {
+				acc.webOf(x, s.groups.webClass(), true)
+				acc.webOf(x, s.groups.webPlates(), true)
+			}
+			acc.webOf(x, s.groups.webClass(), false)
+			acc.webOf(x, s.groups.webPlates(), false)
 			s.evals++
-			we[i] = partEval{measure: acc.measure, sc: u.score(webQty(&wls[i], e.gap)), idx: i}
+			we = append(we, partEval{measure: acc.measure, sc: u.score(webQty(&wls[i], e.gap)), idx: i})
 			minW = min(minW, acc.measure)
 		}
+		bound := math.Inf(1) // the best splice's utilisation so far
+		if best.found {
+			bound = best.measure
+		}
+		if minW > bound {
+			continue
+		}
+		fe = fe[:0]
+		minF := math.Inf(1)
+		for i := range fls {
+			limit := max(minW, min(minF, bound))
+			m := math.Inf(1) // more than the limit: out of every level that can win
+			var x *flangeEval
+			acc := newBoundedAcc(limit)
+			ok := true
+			if fdet != nil {
+				acc.pass, acc.measure = fdet[i].pass, fdet[i].measure
+				ok = acc.measure <= limit
+			}
+			if ok {
+				x = s.scan.flange(e, b, &fls[i])
+				if fdet == nil {
+					ok = acc.flangeOf(x, s.groups.flangeRowFree(), true) && acc.flangeOf(x, s.groups.flangeRows(), true)
+				}
+			}
+			if ok && acc.flangeOf(x, s.groups.flangeRowFree(), false) && acc.flangeOf(x, s.groups.flangeRows(), false) {
+				m = acc.measure
+			}
+			s.evals++
+			fe = append(fe, partEval{measure: m, sc: u.score(flangeQty(&fls[i], e.gap)), idx: i})
+			minF = min(minF, m)
+		}
 		level := max(minF, minW)
+		if level > bound || math.IsInf(level, 1) {
+			continue
+		}
 		fi := cheapestWithin(fe, level)
 		wi := cheapestWithin(we, level)
 		common := score{cost: u.splice}

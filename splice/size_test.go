@@ -72,6 +72,37 @@ func TestSizeEqualsExhaustive(t *testing.T) {
 	assert.Greater(t, none, 0)
 }
 
+// TestSizeEqualsExhaustiveWhenNothingPasses: with the random forces raised 1.5 to 4 times,
+// most positions have no passing splice; the bounded search for the closest attempt returns
+// exactly the exhaustive search's splice, cost, utilisation and governing check (seeded).
+func TestSizeEqualsExhaustiveWhenNothingPasses(t *testing.T) {
+	rng := rand.New(rand.NewSource(23))
+	n := 160
+	if testing.Short() {
+		n = 30
+	}
+	none := 0
+	for i := 0; i < n; i++ {
+		p := randomProblem(t, rng)
+		k := 1.5 + 2.5*rng.Float64()
+		p.ULS = Forces{MMax: k * p.ULS.MMax, MMin: k * p.ULS.MMin, V: k * p.ULS.V, NMax: k * p.ULS.NMax, NMin: k * p.ULS.NMin}
+		p.SLS = nil
+		a, err := Size(p)
+		require.NoError(t, err, "case %d", i)
+		b, err := SizeExhaustive(p)
+		require.NoError(t, err, "case %d", i)
+		require.Equal(t, b.Status, a.Status, "case %d", i)
+		require.Equal(t, b.Geometry, a.Geometry, "case %d", i)
+		require.Equal(t, b.Cost, a.Cost, "case %d", i)
+		require.Equal(t, b.Utilisation, a.Utilisation, "case %d", i)
+		require.Equal(t, b.Governing.ID, a.Governing.ID, "case %d", i)
+		if a.Status == NoFeasible {
+			none++
+		}
+	}
+	assert.Greater(t, none, n/2, "most positions have no passing splice")
+}
+
 // TestSizeEqualsExhaustiveDefaultSpace: a few positions over the whole default design space.
 func TestSizeEqualsExhaustiveDefaultSpace(t *testing.T) {
 	if testing.Short() {
