@@ -736,91 +736,83 @@ func (s *searcher) size() (Result, error) {
 	return s.sizeInfeasible()
 }
 
-type partEval struct {
-	measure float64
-	sc      score
-	idx     int
-}
-
 // sizeInfeasible finds, when nothing passes, the splice with the lowest utilisation (cheapest
 // among equals). With the bolt fixed that is the larger of the lowest flange and lowest web
-// utilisations, made with the cheapest flange and web that reach it.
+// utilisations (the level), made with the cheapest flange and web that reach it.
 //
-// The search is bounded without changing the answer: a bolt whose lowest web utilisation is
-// above the best splice so far cannot win, and a flange part stops being checked once its
-// utilisation exceeds both the lowest web utilisation and the lower of the lowest flange so far
-// and the best splice so far (its own measure only grows): it can then neither lower the bolt's
-// level nor be the cheapest part within it, unless the bolt loses anyway.
+// The search is bounded without changing the answer, in two steps per bolt and part (web,
+// then flange). First the part's level, its lowest utilisation: the parts are visited dearest
+// first (mostly the strongest, so that the lowest falls early), each stopped as soon as its
+// utilisation, which only grows, reaches the lowest so far or exceeds the best splice so far —
+// it can then lower neither. A bolt whose level is above the best splice so far cannot win.
+// Then the bolt's level, the larger of the two, and the cheapest part of each within it,
+// visited cheapest first (design-space order among equals) and each stopped once above the
+// level. Detailing rules, which depend on the geometry alone, are checked once per part, and
+// the parts listed once per Sizer (boltParts).
 func (s *searcher) sizeInfeasible() (Result, error) {
 	var best choice
-	var fls []flangeLayout
-	var wls []webLayout
-	var fe, we []partEval
-	for bi := range s.bolts {
-		b, u, e := &s.bolts[bi], &s.rates[bi], s.e
-		var fdet, wdet []fastAcc
-		fls, wls, fdet, wdet = s.layouts(bi, fls, wls)
-		if len(fls) == 0 || len(wls) == 0 {
+	for bi := len(s.bolts) - 1; bi >= 0; bi-- { // strongest bolts first: a low bound early (the order decides no tie)
+		u := &s.rates[bi]
+		bp := s.layouts(bi)
+		if len(bp.fls) == 0 || len(bp.wls) == 0 {
 			continue
-		}
-		we = we[:0]
-		minW := math.Inf(1)
-		for i := range wls {
-			x := s.scan.web(e, b, &wls[i])
-			acc := newAcc(false)
-			if wdet != nil {
-				acc.pass, acc.measure = wdet[i].pass, wdet[i].measure
-			} else {
-				acc.webOf(x, s.groups.webClass(), true)
-				acc.webOf(x, s.groups.webPlates(), true)
-			}
-			acc.webOf(x, s.groups.webClass(), false)
-			acc.webOf(x, s.groups.webPlates(), false)
-			s.evals++
-			we = append(we, partEval{measure: acc.measure, sc: u.score(webQty(&wls[i], e.gap)), idx: i})
-			minW = min(minW, acc.measure)
 		}
 		bound := math.Inf(1) // the best splice's utilisation so far
 		if best.found {
 			bound = best.measure
 		}
+		// stopLimit stops a part once its utilisation reaches low or exceeds the bound
+		stopLimit := func(low float64) float64 {
+			return math.Nextafter(min(low, math.Nextafter(bound, math.Inf(1))), math.Inf(-1))
+		}
+		// the web level, as the flange level below
+		minW := math.Inf(1)
+		for k := len(bp.worder) - 1; k >= 0; k-- {
+			s.evals++
+			if m, ok := s.webMeasure(bp, bp.worder[k], stopLimit(minW)); ok {
+				minW = m
+			}
+		}
 		if minW > bound {
 			continue
 		}
-		fe = fe[:0]
+		// the flange level: the lowest flange utilisation, each part stopped once its
+		// utilisation (which only grows) reaches the lowest so far or exceeds the bound, as it
+		// can then not lower it; dearest (mostly the strongest) parts first, so that it falls
+		// early
 		minF := math.Inf(1)
-		for i := range fls {
-			limit := max(minW, min(minF, bound))
-			m := math.Inf(1) // more than the limit: out of every level that can win
-			var x *flangeEval
-			acc := newBoundedAcc(limit)
-			ok := true
-			if fdet != nil {
-				acc.pass, acc.measure = fdet[i].pass, fdet[i].measure
-				ok = acc.measure <= limit
-			}
-			if ok {
-				x = s.scan.flange(e, b, &fls[i])
-				if fdet == nil {
-					ok = acc.flangeOf(x, s.groups.flangeRowFree(), true) && acc.flangeOf(x, s.groups.flangeRows(), true)
-				}
-			}
-			if ok && acc.flangeOf(x, s.groups.flangeRowFree(), false) && acc.flangeOf(x, s.groups.flangeRows(), false) {
-				m = acc.measure
-			}
+		for k := len(bp.forder) - 1; k >= 0; k-- {
+			i := bp.forder[k]
 			s.evals++
-			fe = append(fe, partEval{measure: m, sc: u.score(flangeQty(&fls[i], e.gap)), idx: i})
-			minF = min(minF, m)
+			if m, ok := s.flangeMeasure(bp, i, stopLimit(minF)); ok {
+				minF = m
+			}
 		}
 		level := max(minF, minW)
 		if level > bound || math.IsInf(level, 1) {
 			continue
 		}
-		fi := cheapestWithin(fe, level)
-		wi := cheapestWithin(we, level)
+		// the cheapest part within the level (design-space order among equals): one exists,
+		// the part at minF
+		fi := -1
+		for _, i := range bp.forder {
+			s.evals++
+			if _, ok := s.flangeMeasure(bp, i, level); ok {
+				fi = i
+				break
+			}
+		}
+		wi := -1
+		for _, i := range bp.worder {
+			s.evals++
+			if _, ok := s.webMeasure(bp, i, level); ok {
+				wi = i
+				break
+			}
+		}
 		common := score{cost: u.splice}
-		o := choice{found: true, bi: bi, fl: fls[fi], wl: wls[wi], measure: level,
-			sc: common.add(fe[fi].sc).add(we[wi].sc)}
+		o := choice{found: true, bi: bi, fl: bp.fls[fi], wl: bp.wls[wi], measure: level,
+			sc: common.add(bp.fsc[fi]).add(bp.wsc[wi])}
 		if best.betterInfeasible(&o) {
 			best = o
 		}
@@ -831,19 +823,34 @@ func (s *searcher) sizeInfeasible() (Result, error) {
 	return s.result(&best, NoFeasible), nil
 }
 
-// cheapestWithin returns the index of the cheapest part (first in design-space order among
-// equals, which is the order the parts were listed in) whose measure does not exceed level.
-func cheapestWithin(parts []partEval, level float64) int {
-	bi := -1
-	for i := range parts {
-		if parts[i].measure > level {
-			continue
-		}
-		if bi < 0 || parts[i].sc.cmp(parts[bi].sc) < 0 {
-			bi = i
-		}
+// flangeMeasure is the utilisation of flange part i of bp at the searcher's forces, and true,
+// when it does not exceed limit; false as soon as it does.
+func (s *searcher) flangeMeasure(bp *boltParts, i int, limit float64) (float64, bool) {
+	acc := newBoundedAcc(limit)
+	acc.pass, acc.measure = bp.fdet[i].pass, bp.fdet[i].measure
+	if acc.measure > limit {
+		return 0, false
 	}
-	return bi
+	x := flangeEval{e: s.e, b: &s.bolts[bp.bolt], l: &bp.fls[i]} // read only: no copy of the layout
+	if acc.flangeOf(&x, s.groups.flangeRowFree(), false) && acc.flangeOf(&x, s.groups.flangeRows(), false) {
+		return acc.measure, true
+	}
+	return 0, false
+}
+
+// webMeasure is flangeMeasure for web part i. The web evaluator analyses the part's bolt group
+// on s.scan's own copy of the layout.
+func (s *searcher) webMeasure(bp *boltParts, i int, limit float64) (float64, bool) {
+	acc := newBoundedAcc(limit)
+	acc.pass, acc.measure = bp.wdet[i].pass, bp.wdet[i].measure
+	if acc.measure > limit {
+		return 0, false
+	}
+	x := s.scan.web(s.e, &s.bolts[bp.bolt], &bp.wls[i])
+	if acc.webOf(x, s.groups.webClass(), false) && acc.webOf(x, s.groups.webPlates(), false) {
+		return acc.measure, true
+	}
+	return 0, false
 }
 
 // forEachFlange visits every drawable flange configuration in design-space order.

@@ -1,6 +1,9 @@
 package splice
 
-import "sync"
+import (
+	"slices"
+	"sync"
+)
 
 // Sizer sizes the splices of one problem (member, steels, design space, rates, everything but
 // the forces) at many sets of forces, as a scan along a beam does. It keeps what does not
@@ -13,13 +16,19 @@ type Sizer struct {
 	parts []boltParts // by bolt index of the resolved design space
 }
 
-// boltParts are the drawable layouts of one bolt, listed once, read only afterwards, with the
-// accumulated detailing checks of each (fdet, wdet), which depend on the geometry alone.
+// boltParts are the drawable layouts of one bolt, listed once, read only afterwards, with what
+// does not depend on the forces: the accumulated detailing checks of each (fdet, wdet), the
+// flange parts' scores and their order by score (cheapest first, design-space order among
+// equals).
 type boltParts struct {
 	once       sync.Once
+	bolt       int // the bolt index
 	fls        []flangeLayout
 	wls        []webLayout
 	fdet, wdet []fastAcc
+	fsc, wsc   []score
+	forder     []int
+	worder     []int
 }
 
 // NewSizer returns the sizer of p; p's forces are ignored.
@@ -45,40 +54,53 @@ func (z *Sizer) Size(uls Forces, sls *Forces) (Result, error) {
 	return s.size()
 }
 
-// layouts returns the drawable flange and web layouts of bolt bi in design-space order, and
-// the detailing part of their accumulators: from the sizer's store when the searcher has one
-// (filled on first use), else listed into the buffers given, without the accumulators.
-func (s *searcher) layouts(bi int, fls []flangeLayout, wls []webLayout) ([]flangeLayout, []webLayout, []fastAcc, []fastAcc) {
-	b := &s.bolts[bi]
-	list := func(fls []flangeLayout, wls []webLayout) ([]flangeLayout, []webLayout) {
-		s.forEachFlange(b, func(fl *flangeLayout) { fls = append(fls, *fl) })
-		s.forEachWeb(b, func(wl *webLayout) { wls = append(wls, *wl) })
-		return fls, wls
-	}
+// layouts returns the drawable flange and web layouts of bolt bi with what does not depend on
+// the forces: from the sizer's store when the searcher has one (filled on first use), else
+// listed for this search alone.
+func (s *searcher) layouts(bi int) *boltParts {
 	if s.parts == nil {
-		fls, wls = list(fls[:0], wls[:0])
-		return fls, wls, nil, nil
+		var bp boltParts
+		s.listParts(bi, &bp)
+		return &bp
 	}
 	bp := &s.parts[bi]
-	bp.once.Do(func() {
-		bp.fls, bp.wls = list(nil, nil)
-		var v evaluator // not s.scan: the search may hold it
-		bp.fdet = make([]fastAcc, len(bp.fls))
-		for i := range bp.fls {
-			x := v.flange(s.e, b, &bp.fls[i])
-			a := newAcc(false)
-			a.flangeOf(x, s.groups.flangeRowFree(), true)
-			a.flangeOf(x, s.groups.flangeRows(), true)
-			bp.fdet[i] = a
-		}
-		bp.wdet = make([]fastAcc, len(bp.wls))
-		for i := range bp.wls {
-			x := v.web(s.e, b, &bp.wls[i])
-			a := newAcc(false)
-			a.webOf(x, s.groups.webClass(), true)
-			a.webOf(x, s.groups.webPlates(), true)
-			bp.wdet[i] = a
-		}
-	})
-	return bp.fls, bp.wls, bp.fdet, bp.wdet
+	bp.once.Do(func() { s.listParts(bi, bp) })
+	return bp
+}
+
+// listParts fills bp for bolt bi.
+func (s *searcher) listParts(bi int, bp *boltParts) {
+	b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+	bp.bolt = bi
+	s.forEachFlange(b, func(fl *flangeLayout) { bp.fls = append(bp.fls, *fl) })
+	s.forEachWeb(b, func(wl *webLayout) { bp.wls = append(bp.wls, *wl) })
+	var v evaluator // not s.scan: the search may hold it
+	bp.fdet, bp.fsc = make([]fastAcc, len(bp.fls)), make([]score, len(bp.fls))
+	for i := range bp.fls {
+		x := v.flange(e, b, &bp.fls[i])
+		a := newAcc(false)
+		a.flangeOf(x, s.groups.flangeRowFree(), true)
+		a.flangeOf(x, s.groups.flangeRows(), true)
+		bp.fdet[i], bp.fsc[i] = a, u.score(flangeQty(&bp.fls[i], e.gap))
+	}
+	bp.wdet, bp.wsc = make([]fastAcc, len(bp.wls)), make([]score, len(bp.wls))
+	for i := range bp.wls {
+		x := v.web(e, b, &bp.wls[i])
+		a := newAcc(false)
+		a.webOf(x, s.groups.webClass(), true)
+		a.webOf(x, s.groups.webPlates(), true)
+		bp.wdet[i], bp.wsc[i] = a, u.score(webQty(&bp.wls[i], e.gap))
+	}
+	bp.forder, bp.worder = byScore(bp.fsc), byScore(bp.wsc)
+}
+
+// byScore returns the indices of sc ordered by score, cheapest first, in index order among
+// equals.
+func byScore(sc []score) []int {
+	order := make([]int, len(sc))
+	for i := range order {
+		order[i] = i
+	}
+	slices.SortStableFunc(order, func(i, j int) int { return sc[i].cmp(sc[j]) })
+	return order
 }
