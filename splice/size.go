@@ -56,8 +56,11 @@ type searcher struct {
 	rowFree flangeSlot    // the row-free flange checks, which run inside a flange scan
 	// Memos of the groups that do not depend on the bolt class, and the first admissible rows,
 	// each over a grid of design-space indices: 0 unknown, 1 pass, 2 fail.
-	gridA, gridW     grid
-	memoA, memoW     []int8 // groupFlangeRowFree on gridA, groupWebPlates on gridW
+	gridA, gridW grid
+	memoA, memoW []int8 // groupFlangeRowFree on gridA, groupWebPlates on gridW
+	// rowFreeU is the utilisation of groupFlangeRowFree's force checks on gridA, for the
+	// closest attempt (sizeInfeasible); allocated there, −1 unknown.
+	rowFreeU         []float64
 	gridR0F, gridR0W grid
 	r0F, r0W         []int // flangeFirstRows on gridR0F, webFirstRows on gridR0W
 	evals            int
@@ -751,6 +754,10 @@ func (s *searcher) size() (Result, error) {
 // the parts listed once per Sizer (boltParts).
 func (s *searcher) sizeInfeasible() (Result, error) {
 	var best choice
+	s.rowFreeU = slices.Grow(s.rowFreeU[:0], s.gridA.cells())[:s.gridA.cells()]
+	for i := range s.rowFreeU {
+		s.rowFreeU[i] = -1
+	}
 	for bi := len(s.bolts) - 1; bi >= 0; bi-- { // strongest bolts first: a low bound early (the order decides no tie)
 		u := &s.rates[bi]
 		bp := s.layouts(bi)
@@ -831,8 +838,20 @@ func (s *searcher) flangeMeasure(bp *boltParts, i int, limit float64) (float64, 
 	if acc.measure > limit {
 		return 0, false
 	}
-	x := flangeEval{e: s.e, b: &s.bolts[bp.bolt], l: &bp.fls[i]} // read only: no copy of the layout
-	if acc.flangeOf(&x, s.groups.flangeRowFree(), false) && acc.flangeOf(&x, s.groups.flangeRows(), false) {
+	b, fl := &s.bolts[bp.bolt], &bp.fls[i]
+	x := flangeEval{e: s.e, b: b, l: fl} // read only: no copy of the layout
+	// the row-free checks depend neither on the rows nor on the bolt class (the memoised
+	// group): once per cell of gridA, in full
+	k := s.gridA.at(b.key[0], fl.key[0], fl.key[1], fl.key[2], fl.key[3])
+	if s.rowFreeU[k] < 0 {
+		a := newAcc(false)
+		a.flangeOf(&x, s.groups.flangeRowFree(), false)
+		s.rowFreeU[k] = a.measure
+	}
+	if !acc.util(s.rowFreeU[k], false) {
+		return 0, false
+	}
+	if acc.flangeOf(&x, s.groups.flangeRows(), false) {
 		return acc.measure, true
 	}
 	return 0, false

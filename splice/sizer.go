@@ -11,9 +11,10 @@ import (
 // closest attempt where nothing passes visits in full. Its Size returns exactly what Size
 // returns for the problem with those forces. A Sizer is safe for concurrent use.
 type Sizer struct {
-	base  Problem
-	once  sync.Once
-	parts []boltParts // by bolt index of the resolved design space
+	base    Problem
+	once    sync.Once
+	parts   []boltParts // by bolt index of the resolved design space
+	scratch sync.Pool   // *[]float64: the closest attempt's row-free utilisations
 }
 
 // boltParts are the drawable layouts of one bolt, listed once, read only afterwards, with what
@@ -51,7 +52,15 @@ func (z *Sizer) Size(uls Forces, sls *Forces) (Result, error) {
 		panic("splice: a Sizer's design space resolved to a different number of bolts")
 	}
 	s.parts = z.parts
-	return s.size()
+	buf, _ := z.scratch.Get().(*[]float64)
+	if buf != nil {
+		s.rowFreeU = *buf
+	}
+	r, err := s.size()
+	if s.rowFreeU != nil {
+		z.scratch.Put(&s.rowFreeU)
+	}
+	return r, err
 }
 
 // layouts returns the drawable flange and web layouts of bolt bi with what does not depend on
