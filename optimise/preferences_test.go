@@ -38,7 +38,9 @@ func TestPreferencesJob(t *testing.T) {
 	assert.InDelta(t, 144-6*math.Sqrt2, s.Member.FlangeC, 1e-9)
 	assert.InDelta(t, 850-12*math.Sqrt2, s.Member.WebC, 1e-9)
 	// 4 bolt lines cannot take the gauge: (300 − 2×35 − 160)/2 = 35 mm < 2.4·d0 = 52.8 mm for M20
-	assert.Contains(t, strings.Join(s.Notes, "\n"), "splice.detailing.gauges[1].gauge = 160 mm cannot be detailed with 4 lines")
+	assert.Contains(t, strings.Join(s.Notes, "\n"), "splice.detailing.gauges[1].gauge = 160 mm cannot be detailed with 4 bolt lines (M20: 4 lines leave "+
+		"p2 = (300 − 2×35 − 160)/2 = 35 mm between the inner and outer lines, less than 2.4·d0 = 52.8 mm (EN 1993-1-8 Table 3.3)): "+
+		"those flanges are not tried")
 
 	o, err := Run(s, Settings{})
 	require.NoError(t, err)
@@ -120,4 +122,19 @@ func TestPreferenceNotes(t *testing.T) {
 	require.NoError(t, err)
 	assert.Equal(t, 80.0, s.Splice.Detailing.Gauge)
 	assert.Equal(t, "splice.detailing.gauges[1]", s.GaugeKey)
+	// IPE 300, b = 150 mm, gauge 100 mm: e2 = 25 mm ≥ 1.2 × 18 = 21.6 mm for M16 (d0 = 18 mm,
+	// EN 1090-2) but < 1.2 × 22 = 26.4 mm for M20 and every larger size (EN 1993-1-8 Table 3.3)
+	s, err = Prepare("job.yaml", []byte(agreementJob+"splice: {detailing: {gauge: 100}}\n"))
+	require.NoError(t, err)
+	notes := strings.Join(s.Notes, "\n")
+	assert.Contains(t, notes, "splice.detailing.gauge = 100 mm cannot be detailed with M20, M22, M24, M27, M30 bolts, which are not tried")
+	assert.Contains(t, notes, "splice.detailing.gauge = 100 mm cannot be detailed with 4 bolt lines (M16: ")
+	o, err := Run(s, Settings{})
+	require.NoError(t, err)
+	for _, c := range o.Candidates {
+		if c.Feasible {
+			assert.Equal(t, "M16", c.Design.Geometry.Bolt.Size)
+			assert.Equal(t, 100.0, c.Design.Geometry.Flange.Gauge)
+		}
+	}
 }

@@ -243,35 +243,49 @@ func (s *Setup) gauge(probs *jobfile.Problems) {
 	s.Notes = append(s.Notes, gaugeNotes(key, g, fits)...)
 }
 
-// gaugeNotes say which bolt sizes, and which layouts, a fixed gauge leaves out.
+// gaugeNotes say which bolt sizes, and which layouts (number of lines, with one flange
+// arrangement or with every one tried), a fixed gauge leaves out, each with the first rule
+// it breaks.
 func gaugeNotes(key string, g float64, fits []splice.GaugeFit) []string {
 	var out []string
-	var sizes []string
-	layouts := map[string]string{} // a layout that no size can take → the first size's reason
-	takes := map[string]bool{}
-	for _, f := range fits {
-		l := fmt.Sprintf("%d lines with %s", f.Columns, arrangementText(f.Arrangement))
-		if f.Reason == "" {
-			takes[l] = true
-			continue
-		}
-		if _, seen := layouts[l]; !seen {
-			layouts[l] = f.Size + ": " + f.Reason
-		}
+	fitsAny := func(keep func(splice.GaugeFit) bool) bool {
+		return slices.ContainsFunc(fits, func(f splice.GaugeFit) bool { return keep(f) && f.Reason == "" })
 	}
+	var sizes []string
 	for _, f := range fits {
-		if !slices.ContainsFunc(fits, func(o splice.GaugeFit) bool { return o.Size == f.Size && o.Reason == "" }) &&
-			!slices.Contains(sizes, f.Size) {
+		if !slices.Contains(sizes, f.Size) && !fitsAny(func(o splice.GaugeFit) bool { return o.Size == f.Size }) {
 			sizes = append(sizes, f.Size)
 		}
 	}
 	if len(sizes) > 0 {
 		out = append(out, fmt.Sprintf("%s = %s mm cannot be detailed with %s bolts, which are not tried", key, num(g), strings.Join(sizes, ", ")))
 	}
-	for _, l := range slices.Sorted(maps.Keys(layouts)) {
-		if !takes[l] {
-			out = append(out, fmt.Sprintf("%s = %s mm cannot be detailed with %s (%s): those flanges are not tried", key, num(g), l, layouts[l]))
+	type layout struct {
+		cols int
+		arr  splice.Arrangement
+	}
+	failed := map[int][]splice.GaugeFit{} // per number of lines, the first refusal of each arrangement no size can take
+	arrangements := map[int]int{}
+	var seen []layout
+	for _, f := range fits {
+		l := layout{f.Columns, f.Arrangement}
+		if slices.Contains(seen, l) {
+			continue
 		}
+		seen = append(seen, l)
+		arrangements[f.Columns]++
+		if !fitsAny(func(o splice.GaugeFit) bool { return o.Columns == l.cols && o.Arrangement == l.arr }) {
+			failed[f.Columns] = append(failed[f.Columns], f)
+		}
+	}
+	for _, cols := range slices.Sorted(maps.Keys(failed)) {
+		fs := failed[cols]
+		with := fmt.Sprintf("%d bolt lines", cols)
+		if len(fs) < arrangements[cols] {
+			with += " and " + arrangementText(fs[0].Arrangement)
+		}
+		out = append(out, fmt.Sprintf("%s = %s mm cannot be detailed with %s (%s: %s): those flanges are not tried",
+			key, num(g), with, fs[0].Size, fs[0].Reason))
 	}
 	return out
 }
