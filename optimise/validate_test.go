@@ -132,6 +132,12 @@ func TestCheckAndOptimiseAgree(t *testing.T) {
 				"an outer plate, 2 lines: the washers (Ø30 mm) under the flange reach the web's fillets: g/2 − Ø/2 = 18 mm is less than tw/2 + fillet = 18.6 mm; " +
 				"an outer plate, 4 lines: 4 lines leave p2 = (150 − 2×30 − 66)/2 = 12 mm between the inner and outer lines, less than 2.4·d0 = 43.2 mm (EN 1993-1-8 Table 3.3)"},
 		{"a gauge that fits", agreementJob + "splice: {detailing: {gauge: 90}}\n", ""},
+		// gauge 70 mm on IPE 300 fits an outer plate alone (M16 washers: 35 − 15 = 20 ≥ 3.55 + 15 mm) but
+		// not inner plates (35 − 25 = 10 mm < 1.2 × 18 mm to their edge), which 2 × tf = 21.4 mm needs
+		{"preferences that exclude each other", agreementJob +
+			"splice: {bolts: {sizes: [M16]}, plates: {thicknesses: [10, 12, 15, 20]}, detailing: {gauge: 70, min_plate_to_flange: 2}}\n",
+			"job.yaml:6:85: splice.detailing: the detailing preferences together leave no splice of the design space that can be " +
+				"detailed on IPE 300: each layout the gauge allows breaks another preference; relax one of them"},
 		{"a Latin-1 title", strings.Replace(agreementJob, "agreement", "caf\xe9", 1),
 			"job.yaml:1:11: byte 0xE9 is not UTF-8 text (is the file saved as Latin-1 or Windows-1252? save it as UTF-8)"},
 		{"a NUL byte", strings.Replace(agreementJob, "agreement", "a\x00b", 1),
