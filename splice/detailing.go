@@ -33,9 +33,10 @@ type Detailing struct {
 	Gauge float64
 	// MinPlateToFlange is the least flange cover-plate thickness, as a fraction of the beam's
 	// flange thickness tf: the outer plate alone, or with inner plates the outer and inner
-	// plates together, to + ti ≥ MinPlateToFlange·tf (common practice: the published
-	// guidance for bolted cover-plate column splices asks the combined outer and inner
-	// thickness to reach tf/2). Size leaves out thinner plates and the fit check (detail.fit)
+	// plates together, to + ti ≥ MinPlateToFlange·tf (common practice: "Steel Buildings in
+	// Europe, Part 5: Joint Design", on bolted bearing column splices, asks the combined
+	// external and internal cover thickness to reach tf/2; no EN 1993-1-8 clause sets such a
+	// rule). Size leaves out thinner plates and the fit check (detail.fit)
 	// reports the rule, Verify included. 0 (the default): no such rule.
 	MinPlateToFlange float64
 }

@@ -197,7 +197,8 @@ func TestWeldThroatRefused(t *testing.T) {
 // min_plate_to_flange: IPE 450 has tf = 14.6 mm (EN 10365), so 0.5·tf = 7.3 mm admits the
 // default list's thinnest plate, 8 mm; 0.6·tf = 8.76 mm makes 10 mm the thinnest outer plate;
 // with inner plates the outer and inner plates together must reach the ratio (common practice,
-// as the published guidance for bolted column splices asks of outer + inner covers):
+// as "Steel Buildings in Europe, Part 5: Joint Design", bearing column splices, note 9, asks
+// of external + internal flange covers: at least tf/2 together):
 // 1.2·tf = 17.52 mm admits 8 + 10 but not 8 + 8.
 func TestMinPlateToFlange(t *testing.T) {
 	rows := []struct {
