@@ -24,6 +24,9 @@ func (s *Setup) section(probs *jobfile.Problems) {
 			return
 		}
 		s.Section = sec
+		if w.WeldThroat != nil {
+			s.WeldThroat = w.WeldThroat.MM()
+		}
 		return
 	}
 	sec, err := beam.LookupSection(b.Section.Name)

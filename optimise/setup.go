@@ -33,6 +33,7 @@ type Setup struct {
 	Title string
 
 	Section    beam.Section
+	WeldThroat float64 // throat a of a welded section's web-to-flange welds, 0 when not given [mm]
 	Grade      beam.Grade
 	GradeTable beam.GradeTable
 	Model      beam.Model
@@ -54,6 +55,12 @@ type Setup struct {
 	PlateGrade string // name of the cover plates' steel
 	Costed     bool   // the job has a costs block; without one the splice rates are indicative
 	Rates      splice.Rates
+	// BoltSizes are the sizes the sizing tries: those of the design space within
+	// splice.bolts.min_size and max_size (Splice.Sizing.Space holds the list and the bounds).
+	BoltSizes []string
+	// GaugeKey is the key the fixed flange gauge (Splice.Detailing.Gauge) comes from,
+	// "splice.detailing.gauge" or "splice.detailing.gauges[1]"; "" when the sizing chooses it.
+	GaugeKey string
 
 	Limits     PieceLimits // from the job; a run's settings may add rigging
 	KeepOut    KeepOutSpec
@@ -143,7 +150,7 @@ func Prepare(file string, data []byte) (*Setup, error) {
 		return nil, probs.Err()
 	}
 	s.transport()
-	if s.Member, err = beam.NewMember(s.Section, s.Grade, beam.MemberSettings{Table: s.GradeTable}); err != nil {
+	if s.Member, err = beam.NewMember(s.Section, s.Grade, beam.MemberSettings{Table: s.GradeTable, WeldThroat: s.WeldThroat}); err != nil {
 		probs.Add(s.job.Beam.Where("section"), "%v", err)
 		return nil, probs.Err()
 	}
@@ -163,11 +170,14 @@ func Prepare(file string, data []byte) (*Setup, error) {
 	} else {
 		s.Zones = KeepOutZones(s.Model, s.Cases, s.KeepOut, s.Limits.MinLength)
 	}
+	s.Notes = notesOf(job)
+	if err := s.preferences(); err != nil {
+		return nil, err
+	}
 	if err := s.detailable(); err != nil {
 		return nil, err
 	}
 	s.Defaults = defaultsOf(job)
-	s.Notes = notesOf(job)
 	return s, nil
 }
 
@@ -270,11 +280,16 @@ func defaultsOf(job *jobfile.Job) []string {
 		"keep_out.point_loads", "splices.min", "splices.max", "deflection.span", "deflection.overhang"} {
 		given(l != nil && l.Has(k), "limits."+k)
 	}
+	if w := b.Section.Welded; w != nil {
+		given(w.WeldThroat != nil, "beam.section.welded.weld_throat")
+	}
 	o := job.Splice
-	for _, k := range []string{"category", "distribution", "gap", "bolts.sizes", "bolts.classes", "plates.grade",
-		"plates.thicknesses", "flange_plates", "minimum_forces"} {
+	for _, k := range []string{"category", "distribution", "gap", "bolts.sizes", "bolts.classes", "bolts.min_size",
+		"bolts.max_size", "plates.grade", "plates.thicknesses", "flange_plates", "minimum_forces",
+		"detailing.min_plate_to_flange"} {
 		given(o != nil && o.Has(k), "splice."+k)
 	}
+	given(o != nil && (o.Has("detailing.gauge") || o.Has("detailing.gauges")), "splice.detailing.gauge")
 	if c := job.Costs; given(c != nil, "costs") {
 		for _, r := range []struct {
 			key string
@@ -302,6 +317,10 @@ func notesOf(job *jobfile.Job) []string {
 	}
 	if job.Costs == nil {
 		out = append(out, "no costs block: splices are priced at invented indicative rates, for ranking only, and lifts cost nothing")
+	}
+	if w := job.Beam.Section.Welded; w != nil && w.WeldThroat == nil {
+		out = append(out, "beam.section.welded gives no weld_throat: the web-to-flange welds are ignored, so the web plates "+
+			"fill the clear web less the clearance and may reach the welds; give weld_throat (mm) to keep them clear")
 	}
 	return out
 }

@@ -30,6 +30,7 @@ func (s *Setup) spliceProblem() (splice.Problem, error) {
 	if err != nil {
 		probs.Add(job.Beam.Where("grade"), "%v", err)
 	}
+	member.WeldThroat = s.WeldThroat
 	p := splice.Problem{Member: member, Brief: true, Rates: s.rates()}
 	p.PlateSteel = s.steel(s.Grade)
 	z := splice.Sizing{Category: splice.CategoryA, Gap: splice.DefaultGap}
@@ -60,7 +61,9 @@ func (s *Setup) spliceProblem() (splice.Problem, error) {
 		}
 		if b := opts.Bolts; b != nil {
 			z.Space.Sizes, z.Space.Classes = b.Sizes, b.Classes
+			z.Space.MinSize, z.Space.MaxSize = b.MinSize, b.MaxSize
 		}
+		p.Detailing, s.GaugeKey = s.detailing(opts.Detailing)
 		if pl := opts.Plates; pl != nil {
 			if strings.TrimSpace(pl.Grade) != "" {
 				g, err := beam.LookupGrade(pl.Grade)
@@ -113,7 +116,48 @@ func (s *Setup) spliceProblem() (splice.Problem, error) {
 	if len(probs) > 0 {
 		return splice.Problem{}, probs.Err()
 	}
+	// unknown bounds and an empty result are reported at their keys by preferences
+	s.BoltSizes, _ = splice.FilterBoltSizes(z.Space.Sizes, z.Space.MinSize, z.Space.MaxSize)
 	return p, nil
+}
+
+// detailing converts splice.detailing into the sizing's detailing rules, resolving a table of
+// gauges by flange width for the job's section: the entry with the largest width not above
+// the flange width b (to sameWidth). It returns the key the gauge came from, "" when the
+// sizing chooses it.
+func (s *Setup) detailing(d *jobfile.Detailing) (splice.Detailing, string) {
+	var det splice.Detailing
+	if d == nil {
+		return det, ""
+	}
+	if d.MinPlateToFlange != nil {
+		det.MinPlateToFlange = *d.MinPlateToFlange
+	}
+	if d.Gauge != nil {
+		det.Gauge = d.Gauge.MM()
+		return det, "splice.detailing.gauge"
+	}
+	if i := s.gaugeEntry(d); i >= 0 {
+		det.Gauge = d.Gauges[i].Gauge.MM()
+		return det, fmt.Sprintf("splice.detailing.gauges[%d]", i)
+	}
+	return det, ""
+}
+
+// sameWidth is the tolerance on a flange width matched to an entry of splice.detailing.gauges
+// [mm].
+const sameWidth = 0.5
+
+// gaugeEntry is the index of the entry of splice.detailing.gauges for the job's section, −1
+// when every entry is for wider flanges.
+func (s *Setup) gaugeEntry(d *jobfile.Detailing) int {
+	best := -1
+	for i, e := range d.Gauges {
+		if e.Width.MM() <= s.Section.B+sameWidth && (best < 0 || e.Width > d.Gauges[best].Width) {
+			best = i
+		}
+	}
+	return best
 }
 
 // steel adapts a grade of the beam package to the splice package's strength lookup.

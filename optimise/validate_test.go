@@ -100,6 +100,44 @@ func TestCheckAndOptimiseAgree(t *testing.T) {
 		{"a trip that overflows the costs", agreementJob + "vehicles: [{name: lorry, max_length: 13.6, payload: 20000, cost: 1e17}]\n",
 			"job.yaml:6:66: vehicles[0].cost: a rate of 100000000000000000 is outside the plausible range (at most 1000000000); " +
 				"check the value and its unit"},
+		{"an unknown smallest bolt size", agreementJob + "splice: {bolts: {min_size: M18}}\n",
+			`job.yaml:6:28: splice.bolts.min_size: bolt size "M18" is not known (known: M12, M16, M20, M22, M24, M27, M30, M36)`},
+		{"bolt-size bounds that leave no size", agreementJob + "splice: {bolts: {sizes: [M16, M20], min_size: M24}}\n",
+			"job.yaml:6:47: splice.bolts.min_size: leaves no bolt size to try: none of the sizes M16, M20 (splice.bolts.sizes) " +
+				"lies at M24 or larger"},
+		{"bolt-size bounds on the default list", agreementJob + "splice: {bolts: {max_size: M12}}\n",
+			"job.yaml:6:28: splice.bolts.max_size: leaves no bolt size to try: none of the sizes M16, M20, M22, M24, M27, M30 " +
+				"(the default list) lies at M12 or smaller"},
+		{"bolt-size bounds that leave some", agreementJob + "splice: {bolts: {min_size: M20, max_size: M24}}\n", ""},
+		// IPE 300: tf = 10.7 mm (EN 10365); 2 × 10.7 = 21.4 mm
+		{"a least plate thickness no plate reaches", agreementJob +
+			"splice: {flange_plates: [outer], plates: {thicknesses: [10, 15, 20]}, detailing: {min_plate_to_flange: 2}}\n",
+			"job.yaml:6:104: splice.detailing.min_plate_to_flange: 2 asks the flange cover plates to be at least 2 × tf = 21.4 mm " +
+				"(tf = 10.7 mm of IPE 300): no plate of splice.plates.thicknesses (at most 20 mm) reaches it"},
+		{"a least plate thickness outer and inner plates reach", agreementJob +
+			"splice: {plates: {thicknesses: [10, 15, 20]}, detailing: {min_plate_to_flange: 2}}\n", ""},
+		// IPE 300, b = 150 mm; M16 (the smallest default size), d0 = 18 mm: e2 = (150 − 110)/2 = 20 mm < 1.2 × 18 = 21.6 mm
+		{"a gauge too wide for the flange", agreementJob + "splice: {detailing: {gauge: 110}}\n",
+			"job.yaml:6:29: splice.detailing.gauge: a gauge of 110 mm cannot be detailed on IPE 300 (flange b = 150 mm) with any " +
+				"bolt size and number of bolt lines tried; with M16 bolts (the smallest): " +
+				"an outer plate, 2 lines: e2 = (150 − 110)/2 = 20 mm to the edge of the 150 mm plate is less than 1.2·d0 = 21.6 mm (EN 1993-1-8 Table 3.3); " +
+				"an outer plate, 4 lines: 4 lines leave p2 = (150 − 2×30 − 110)/2 = -10 mm between the inner and outer lines, less than 2.4·d0 = 43.2 mm (EN 1993-1-8 Table 3.3); " +
+				"outer and inner plates, 2 lines: e2 = (150 − 110)/2 = 20 mm to the edge of the 150 mm plate is less than 1.2·d0 = 21.6 mm (EN 1993-1-8 Table 3.3); " +
+				"outer and inner plates, 4 lines: 4 lines leave p2 = (150 − 2×30 − 110)/2 = -10 mm between the inner and outer lines, less than 2.4·d0 = 43.2 mm (EN 1993-1-8 Table 3.3)"},
+		// washers Ø30 mm of M16 clear of the fillets: 66/2 − 15 = 18 mm < tw/2 + r = 3.55 + 15 = 18.55 mm
+		{"a gauge from the table too narrow for the washers", agreementJob +
+			"splice: {bolts: {sizes: [M16]}, flange_plates: [outer], detailing: {gauges: [{width: 140, gauge: 66}, {width: 200, gauge: 120}]}}\n",
+			"job.yaml:6:98: splice.detailing.gauges[0].gauge: a gauge of 66 mm cannot be detailed on IPE 300 (flange b = 150 mm) " +
+				"with any bolt size and number of bolt lines tried; with M16 bolts (the smallest): " +
+				"an outer plate, 2 lines: the washers (Ø30 mm) under the flange reach the web's fillets: g/2 − Ø/2 = 18 mm is less than tw/2 + fillet = 18.6 mm; " +
+				"an outer plate, 4 lines: 4 lines leave p2 = (150 − 2×30 − 66)/2 = 12 mm between the inner and outer lines, less than 2.4·d0 = 43.2 mm (EN 1993-1-8 Table 3.3)"},
+		{"a gauge that fits", agreementJob + "splice: {detailing: {gauge: 90}}\n", ""},
+		// gauge 70 mm on IPE 300 fits an outer plate alone (M16 washers: 35 − 15 = 20 ≥ 3.55 + 15 mm) but
+		// not inner plates (35 − 25 = 10 mm < 1.2 × 18 mm to their edge), which 2 × tf = 21.4 mm needs
+		{"preferences that exclude each other", agreementJob +
+			"splice: {bolts: {sizes: [M16]}, plates: {thicknesses: [10, 12, 15, 20]}, detailing: {gauge: 70, min_plate_to_flange: 2}}\n",
+			"job.yaml:6:85: splice.detailing: the detailing preferences together leave no splice of the design space that can be " +
+				"detailed on IPE 300: each layout the gauge allows breaks another preference; relax one of them"},
 		{"a Latin-1 title", strings.Replace(agreementJob, "agreement", "caf\xe9", 1),
 			"job.yaml:1:11: byte 0xE9 is not UTF-8 text (is the file saved as Latin-1 or Windows-1252? save it as UTF-8)"},
 		{"a NUL byte", strings.Replace(agreementJob, "agreement", "a\x00b", 1),

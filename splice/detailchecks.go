@@ -16,6 +16,7 @@ type rules struct {
 	haveWorst  bool
 	failedList []string
 	impossible string // the first rule whose provided distance or limit is zero or less
+	preference string // the detailing preference behind the layout, for the note; "" when none
 }
 
 func (r *rules) take(name string, dem, res float64, line string) {
@@ -86,6 +87,9 @@ func (r *rules) check(e *env, d *checkDef) Check {
 		if len(r.failedList) > 0 {
 			c.Note += "; failing: " + strings.Join(r.failedList, ", ")
 		}
+		if r.preference != "" {
+			c.Note += "; " + r.preference
+		}
 	}
 	return c
 }
@@ -109,7 +113,7 @@ func (x *flangeEval) spacingR(full bool) rules {
 	}
 	eMax := maxEdge(t, e.det.Sheltered)
 	pMax := maxPitch(t)
-	r := rules{full: full}
+	r := rules{full: full, preference: x.gaugePreference()}
 	y, n := l.lines()
 	r.atLeast("flange e1", l.e1, 1.2*d0, "1.2d0")
 	r.atMost("flange e1", l.e1, eMax, "4t + 40")
@@ -134,8 +138,20 @@ func (x *flangeEval) spacingR(full bool) rules {
 	return r
 }
 
+// gaugePreference says, for the notes of the detailing checks, that the flange gauge is the
+// preferred one (Detailing.Gauge); "" when the sizing chose it or the splice has another.
+func (x *flangeEval) gaugePreference() string {
+	g := x.e.det.Gauge
+	if !(g > 0) || math.Abs(x.l.g-g) > 1e-9 {
+		return ""
+	}
+	return sprintf("the gauge is the preferred %s mm (detailing preference)", mm(g))
+}
+
 // fit checks that the flange plates fit the section: outer plate no wider than the flange,
-// inner plates clear of the root fillets, washers under the flange clear of the fillets.
+// inner plates clear of the root fillets (or the welds of a welded section), washers under
+// the flange clear of the fillets, and the plates no thinner than the preferred minimum
+// (Detailing.MinPlateToFlange) where there is one.
 func (x *flangeEval) fit(d *checkDef, full bool) Check {
 	r := x.fitR(full)
 	return r.check(x.e, d)
@@ -146,12 +162,20 @@ func (x *flangeEval) fitU() float64 { return x.fitR(false).u }
 func (x *flangeEval) fitR(full bool) rules {
 	e, l, b := x.e, x.l, x.b
 	s := e.m.Section
-	r := rules{full: full}
+	r := rules{full: full, preference: x.gaugePreference()}
+	f, fn := e.m.fillet(), e.m.filletName()
 	r.atMost("flange outer plate width", l.bo, s.B, "b")
 	if l.inner {
-		r.atLeast("inner plate edge from web centre", l.innerEdge(), s.Tw/2+s.R+e.det.Clearance, "tw/2 + r + clearance")
+		r.atLeast("inner plate edge from web centre", l.innerEdge(), s.Tw/2+f+e.det.Clearance, "tw/2 + "+fn+" + clearance")
 	} else {
-		r.atLeast("washer edge from web centre", l.g/2-b.size.WasherOD/2, s.Tw/2+s.R, "tw/2 + r")
+		r.atLeast("washer edge from web centre", l.g/2-b.size.WasherOD/2, s.Tw/2+f, "tw/2 + "+fn)
+	}
+	if k := e.det.MinPlateToFlange; k > 0 {
+		name, t := "flange plate thickness to (preferred minimum)", l.to
+		if l.inner {
+			name, t = "flange plate thickness to + ti (preferred minimum)", l.to+l.ti
+		}
+		r.atLeast(name, t, k*s.Tf, fnum(k, -1)+"·tf")
 	}
 	return r
 }
@@ -195,7 +219,8 @@ func (x *webEval) fitU() float64 { return x.fitR(false).u }
 
 func (x *webEval) fitR(full bool) rules {
 	r := rules{full: full}
-	r.atMost("web plate depth", x.l.hp, x.e.m.webDepthClear()-2*x.e.det.Clearance, "h − 2tf − 2r − 2×clearance")
+	m := &x.e.m
+	r.atMost("web plate depth", x.l.hp, m.webDepthClear()-2*x.e.det.Clearance, "h − 2tf − 2"+m.filletName()+" − 2×clearance")
 	return r
 }
 

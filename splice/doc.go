@@ -35,8 +35,10 @@
 //
 // Checks (ids of DESIGN.md section 8, plus detail.fit, detail.preload and flange.beam.block):
 // Table 3.3 spacing (maxima for steel exposed to the weather unless Detailing.Sheltered);
-// fit of the plates between the root fillets and within the flange, washers clear of the
-// fillets; bolt shear per plane (Table 3.4) with the long-joint (3.8) and packing
+// fit of the plates between the root fillets (or the toes of a welded section's
+// web-to-flange welds, Member.WeldThroat) and within the flange, washers clear of the
+// fillets, and the least cover-plate thickness of Detailing.MinPlateToFlange where one is
+// set; bolt shear per plane (Table 3.4) with the long-joint (3.8) and packing
 // (3.6.1(12)) factors; bearing (Table 3.4) on the beam and the plates, where the load reverses
 // every end and inner term applies, the group resistance is n × the smallest bolt (3.7, the
 // branch that holds without conditions), and web bolts are checked component by component in
@@ -67,6 +69,12 @@
 // splice (ties: fewer bolts, then lighter plates, then the earlier entry of the sorted lists),
 // exactly as SizeExhaustive, or the best attempt with Status NoFeasible. Costs use Rates;
 // DefaultRates are invented indicative rates for ranking only.
+//
+// Detailing preferences narrow the search without changing it: a fixed flange gauge
+// (Detailing.Gauge; GaugeFits says which layouts cannot take it and why), a least cover-plate
+// thickness (Detailing.MinPlateToFlange) and bounds on the bolt sizes (DesignSpace.MinSize,
+// MaxSize; FilterBoltSizes). The layouts they forbid are left out of Size, SizeExhaustive
+// and the Catalogue alike; with none set the search is the one above.
 //
 // # One design at many positions
 //

@@ -32,7 +32,7 @@ type env struct {
 	gammaS  float64   // γM3,ser (B) or γM3 (C)
 	states  [3]string // the limit state of each stateKind: StateULS, the slip state (SLS in category B), StateDetailing
 	e       float64   // Young's modulus [N/mm²]
-	rFit    float64   // r + clearance [mm]
+	rFit    float64   // r (or the weld leg √2·a) + clearance [mm]
 	minimum MinimumAction
 }
 
@@ -63,7 +63,7 @@ func newEnv(p *Problem, cat Category, fc FrictionClass, holes HoleType, gap floa
 		e.states[stSlip] = StateSLS
 	}
 	e.act = designActions(p.Member, p.ULS, p.SLS, p.Distribution, p.Minimum, e.f, cat == CategoryB)
-	e.rFit = p.Member.Section.R + e.det.Clearance
+	e.rFit = p.Member.fillet() + e.det.Clearance
 	return e, nil
 }
 
@@ -101,7 +101,7 @@ func (e *env) notes(fl *flangeLayout, wl *webLayout) []string {
 			nmax*toKN, 0.05*npl*toKN))
 	}
 	if fl != nil && wl != nil && fl.inner && math.Min(fl.ti, wl.tp) > e.rFit {
-		out = append(out, fmt.Sprintf("inner flange plates (%g mm) and web plates (%g mm) are both thicker than r + clearance = %g mm: confirm by drawing that they do not clash", fl.ti, wl.tp, e.rFit))
+		out = append(out, fmt.Sprintf("inner flange plates (%g mm) and web plates (%g mm) are both thicker than %s + clearance = %g mm: confirm by drawing that they do not clash", fl.ti, wl.tp, e.m.filletName(), e.rFit))
 	}
 	return out
 }

@@ -39,6 +39,14 @@ type Member struct {
 	FuFlange float64 // fu of the flange [N/mm²]
 	FyWeb    float64 // fy of the web (thickness tw) [N/mm²]
 	FuWeb    float64 // fu of the web [N/mm²]
+	// WeldThroat is the throat a of the web-to-flange fillet welds of a welded section [mm],
+	// as beam.MemberSettings.WeldThroat: the height of the largest triangle inscribed in the
+	// weld's section (EN 1993-1-8 4.5.2(2)), so an equal-leg 90° fillet has legs s = √2·a.
+	// The web plates then stop short of the welds' toes on the web and the flange bolts'
+	// washers and the inner plates keep clear of their toes on the flange, as they keep clear
+	// of the root radius r of a rolled section. 0 (the default) ignores the welds, as the
+	// section's properties do. Not allowed for rolled sections.
+	WeldThroat float64
 }
 
 // NewMember looks up the flange and web strengths of a section in a steel grade.
@@ -71,6 +79,14 @@ func (m Member) validate() error {
 	if !(s.R >= 0) {
 		bad("r", s.R)
 	}
+	switch a := m.WeldThroat; {
+	case !(a >= 0) || math.IsInf(a, 0):
+		errs = append(errs, fmt.Errorf("section %s: weld throat a = %g mm must be zero or a positive size", s.Name, a))
+	case a > 0 && !s.Welded():
+		errs = append(errs, fmt.Errorf("section %s: weld throat a = %g mm given for a rolled section: only welded sections have web-to-flange welds", s.Name, a))
+	case a > 0 && !(s.H-2*s.Tf-2*m.fillet() > 0 && s.B-s.Tw-2*m.fillet() > 0):
+		errs = append(errs, fmt.Errorf("section %s: weld throat a = %g mm: welds of leg √2·a = %.1f mm leave no web between the flanges or no flange outstand", s.Name, a, m.fillet()))
+	}
 	if !(s.H > 2*s.Tf) {
 		errs = append(errs, fmt.Errorf("section %s: depth h = %g mm is not more than 2·tf = %g mm", s.Name, s.H, 2*s.Tf))
 	}
@@ -88,10 +104,29 @@ func (m Member) validate() error {
 	return errors.Join(errs...)
 }
 
-// webDepthClear is the depth between the root fillets, h − 2tf − 2r [mm].
+// webDepthClear is the depth of the web between the root fillets, h − 2tf − 2r, or between
+// the toes of the welds of a welded section, h − 2tf − 2√2·a [mm].
 func (m Member) webDepthClear() float64 {
 	s := m.Section
-	return s.H - 2*s.Tf - 2*s.R
+	return s.H - 2*s.Tf - 2*m.fillet()
+}
+
+// fillet is how far the material between web and flange reaches from the face of the web
+// along the flange, and from the face of the flange along the web [mm]: the root radius r of
+// a rolled section, the leg √2·a of the fillet welds of a welded one (0 when none is given).
+func (m Member) fillet() float64 {
+	if m.WeldThroat > 0 {
+		return math.Sqrt2 * m.WeldThroat
+	}
+	return m.Section.R
+}
+
+// filletName is the symbol of fillet in the sheet's formulas.
+func (m Member) filletName() string {
+	if m.WeldThroat > 0 {
+		return "√2·a"
+	}
+	return "r"
 }
 
 // youngModulus is E of EN 1993-1-1 3.2.6 [N/mm²].

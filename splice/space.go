@@ -4,7 +4,9 @@ import (
 	"cmp"
 	"errors"
 	"fmt"
+	"math"
 	"slices"
+	"strings"
 )
 
 // DesignSpace lists the choices Size searches. An empty list takes the default list
@@ -20,6 +22,9 @@ type DesignSpace struct {
 	FlangeRows    []int         // rows each side of the joint, 1 or more
 	WebColumns    []int         // columns each side of the joint, 1 or more
 	WebRows       []int         // rows, 2 or more
+	// MinSize and MaxSize bound the bolt sizes tried by diameter ("M20"; "" for no bound):
+	// Sizes, or the default list, is filtered by FilterBoltSizes.
+	MinSize, MaxSize string
 }
 
 // DefaultDesignSpace is M16–M30 in 8.8 and 10.9, plates 8–30 mm, both flange arrangements,
@@ -114,6 +119,13 @@ func (d DesignSpace) resolve(cat Category, steel Steel) (space, error) {
 	// in order of diameter (one size per diameter), without repeats
 	slices.SortStableFunc(s.sizes, func(a, b BoltSize) int { return cmp.Compare(a.D, b.D) })
 	s.sizes = slices.CompactFunc(s.sizes, func(a, b BoltSize) bool { return a.Name == b.Name })
+	if d.MinSize != "" || d.MaxSize != "" {
+		if lo, hi, err := sizeBounds(d.MinSize, d.MaxSize); err != nil {
+			errs = append(errs, err)
+		} else if s.sizes = withinBounds(s.sizes, lo, hi); len(s.sizes) == 0 && len(errs) == 0 {
+			errs = append(errs, fmt.Errorf("bolts: no size of %s lies %s", strings.Join(d.Sizes, ", "), boundsText(d.MinSize, d.MaxSize)))
+		}
+	}
 	s.classes = make([]BoltClass, 0, len(d.Classes))
 	for _, n := range d.Classes {
 		c, err := LookupBoltClass(n)
@@ -181,4 +193,65 @@ func (d DesignSpace) resolve(cat Category, steel Steel) (space, error) {
 		errs = append(errs, err)
 	}
 	return s, errors.Join(errs...)
+}
+
+// FilterBoltSizes returns the sizes of a list ("M20") whose diameter lies between the sizes lo
+// and hi, both included ("" for no bound), in the list's order. An unknown size in the list or
+// as a bound, or lo larger than hi, is an error; the result may be empty.
+func FilterBoltSizes(sizes []string, lo, hi string) ([]string, error) {
+	dlo, dhi, err := sizeBounds(lo, hi)
+	if err != nil {
+		return nil, err
+	}
+	out := make([]string, 0, len(sizes))
+	for _, n := range sizes {
+		b, err := LookupBoltSize(n)
+		if err != nil {
+			return nil, err
+		}
+		if len(withinBounds([]BoltSize{b}, dlo, dhi)) == 1 {
+			out = append(out, n)
+		}
+	}
+	return out, nil
+}
+
+// sizeBounds reads the bounds of a bolt-size filter as diameters [mm].
+func sizeBounds(lo, hi string) (dlo, dhi float64, err error) {
+	dlo, dhi = 0, math.Inf(1)
+	var errs []error
+	if lo != "" {
+		b, err := LookupBoltSize(lo)
+		if err != nil {
+			errs = append(errs, fmt.Errorf("bolts.min_size: %w", err))
+		}
+		dlo = b.D
+	}
+	if hi != "" {
+		b, err := LookupBoltSize(hi)
+		if err != nil {
+			errs = append(errs, fmt.Errorf("bolts.max_size: %w", err))
+		}
+		dhi = b.D
+	}
+	if len(errs) == 0 && dlo > dhi {
+		errs = append(errs, fmt.Errorf("bolts.min_size: %s is larger than max_size %s", lo, hi))
+	}
+	return dlo, dhi, errors.Join(errs...)
+}
+
+// withinBounds keeps the sizes of diameter dlo to dhi, in order.
+func withinBounds(sizes []BoltSize, dlo, dhi float64) []BoltSize {
+	return slices.DeleteFunc(slices.Clone(sizes), func(b BoltSize) bool { return b.D < dlo || b.D > dhi })
+}
+
+// boundsText says what the bounds of a bolt-size filter are, for messages.
+func boundsText(lo, hi string) string {
+	switch {
+	case lo != "" && hi != "":
+		return "from " + lo + " to " + hi
+	case lo != "":
+		return "at " + lo + " or larger"
+	}
+	return "at " + hi + " or smaller"
 }

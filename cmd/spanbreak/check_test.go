@@ -243,17 +243,68 @@ cases:
 	assert.Equal(t, optimise.DefaultAlternatives, s.Scan.Alternatives)
 	for _, p := range []string{"beam.grade", "beam.self_weight", "beam.overhang.left", "beam.overhang.right", "beam.hinges", "cases.G.pattern",
 		"combinations.rules", "combinations.uls", "combinations.sls", "combinations.overrides.gamma_G_sup",
-		"splice.category", "splice.gap", "splice.bolts.sizes", "limits.max_piece_length", "scan.step", "costs"} {
+		"splice.category", "splice.gap", "splice.bolts.sizes", "limits.max_piece_length", "scan.step", "costs",
+		"splice.bolts.min_size", "splice.bolts.max_size", "splice.detailing.gauge", "splice.detailing.min_plate_to_flange"} {
 		assert.Contains(t, s.Defaults, p)
 	}
+	assert.Nil(t, s.Splice.Detailing.Gauge)
+	assert.Nil(t, s.Splice.Detailing.MinPlateToFlange)
+	assert.Equal(t, s.Splice.BoltSizes, s.Splice.BoltSizesTried, "no bounds: every size of the list is tried")
 	assert.Len(t, s.Notes, 3, "no piece limits, no vehicles, no costs")
 
 	var out bytes.Buffer
 	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, minimal), Format: "text"}, outTo(&out)))
 	text := out.String()
 	for _, want := range []string{"S355 (default)", "EN 1993-1-1 Table 3.1 (default)", "γG,sup 1.35 (default)",
-		"category A (default)", "max piece length no limit (default)", "invented indicative rates", "CAUTION"} {
+		"category A (default)", "max piece length no limit (default)", "invented indicative rates", "CAUTION",
+		"flange gauge chosen by the sizing (default)", "flange cover plates no least thickness (default)"} {
 		assert.Contains(t, text, want)
+	}
+}
+
+// prefsJob has detailing preferences (invented data): an IPE 450 (b = 190 mm, tf = 14.6 mm,
+// EN 10365) with a gauge table, cover plates of at least 0.6·tf and bolts M20 to M24.
+const prefsJob = `beam:
+  section: IPE 450
+  spans: [8.0]
+  supports: [pinned, roller]
+cases:
+  G: {kind: permanent, loads: [{udl: 20}]}
+splice:
+  bolts: {min_size: M20, max_size: M24}
+  detailing:
+    gauges: [{width: 150, gauge: 90}, {width: 180, gauge: 100}, {width: 200, gauge: 120}]
+    min_plate_to_flange: 0.6
+`
+
+// check prints the detailing preferences it understood, in each format, and the sizes the
+// bounds leave: the 180 mm entry is the widest not above b = 190 mm; 0.6 × 14.6 = 8.76 mm.
+func TestCheckPrintsDetailingPreferences(t *testing.T) {
+	s := checkJSON(t, prefsJob)
+	d := s.Splice.Detailing
+	require.NotNil(t, d.Gauge)
+	assert.Equal(t, 100.0, *d.Gauge)
+	assert.Equal(t, "splice.detailing.gauges[1]", d.GaugeFrom)
+	require.NotNil(t, d.MinPlate)
+	assert.InDelta(t, 0.6*14.6, *d.MinPlate, 1e-6)
+	assert.Equal(t, []string{"M20", "M22", "M24"}, s.Splice.BoltSizesTried)
+	assert.Equal(t, "M20", s.Splice.BoltMinSize)
+	assert.NotContains(t, s.Defaults, "splice.detailing.gauge")
+
+	var out bytes.Buffer
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, prefsJob), Format: "text"}, outTo(&out)))
+	for _, want := range []string{
+		"bolts M20, M22, M24 (of M16, M20, M22, M24, M27, M30 (default), within min_size M20 and max_size M24)",
+		"flange gauge 100 mm (splice.detailing.gauges[1]; with 4 bolt lines between the two nearest the web)",
+		"at least 0.6 × tf = 0.6 × 14.6 = 8.76 mm (the outer plate, or outer and inner plates together)"} {
+		assert.Contains(t, out.String(), want)
+	}
+	out.Reset()
+	require.NoError(t, runCheck(checkOptions{JobFile: writeJob(t, prefsJob), Format: "csv"}, outTo(&out)))
+	for _, want := range []string{"splice.detailing.gauge,100,mm,false", "splice.detailing.gauge_from,splice.detailing.gauges[1],,false",
+		"splice.detailing.min_plate_to_flange,0.6,,false", "splice.detailing.min_plate_thickness,8.76,mm,false",
+		"splice.bolts.min_size,M20,,false", "splice.bolts.tried[2],M24,,true"} {
+		assert.Contains(t, out.String(), want)
 	}
 }
 

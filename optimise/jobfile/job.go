@@ -118,13 +118,17 @@ type Section struct {
 	Welded *Welded // plate sizes of a doubly symmetric welded I-section
 }
 
-// Welded is a doubly symmetric welded I-section [mm]; fillet welds are ignored.
+// Welded is a doubly symmetric welded I-section [mm]. Its properties ignore the fillet welds;
+// WeldThroat, when given, keeps the splice plates off them.
 type Welded struct {
 	Meta
 	H  Millimetres `yaml:"h,required"`  // overall depth
 	B  Millimetres `yaml:"b,required"`  // flange width
 	Tw Millimetres `yaml:"tw,required"` // web thickness
 	Tf Millimetres `yaml:"tf,required"` // flange thickness
+	// WeldThroat is the throat a of the web-to-flange fillet welds (EN 1993-1-8 4.5.2);
+	// nil: not given, the welds are ignored.
+	WeldThroat *Millimetres `yaml:"weld_throat"`
 }
 
 // DecodeYAMLNode reads a catalogue name or a {welded: {...}} mapping.
@@ -458,6 +462,23 @@ type SpliceOptions struct {
 	Distribution  string         `yaml:"distribution"`   // DistributionProportional or DistributionFlangesOnly
 	Gap           *Millimetres   `yaml:"gap"`            // between the beam ends
 	MinimumForces *MinimumForces `yaml:"minimum_forces"` // design forces at least these fractions of the beam's resistances
+	Detailing     *Detailing     `yaml:"detailing"`      // the office's detailing preferences
+}
+
+// Detailing holds the detailing preferences of the sizing; each one left out keeps the
+// sizing's own choice. Gauge and Gauges exclude each other.
+type Detailing struct {
+	Meta
+	Gauge            *Millimetres `yaml:"gauge"`               // flange gauge for every section
+	Gauges           []WidthGauge `yaml:"gauges"`              // flange gauge by the section's flange width
+	MinPlateToFlange *float64     `yaml:"min_plate_to_flange"` // least cover-plate thickness / tf
+}
+
+// WidthGauge is a preferred flange gauge for flanges at least Width wide.
+type WidthGauge struct {
+	Meta
+	Width Millimetres `yaml:"width,required"`
+	Gauge Millimetres `yaml:"gauge,required"`
 }
 
 // MinimumForces are fractions of the beam's own Mc,Rd, Vc,Rd and Npl,Rd that the design
@@ -469,11 +490,14 @@ type MinimumForces struct {
 	Axial  *float64 `yaml:"axial"`
 }
 
-// BoltOptions lists the bolt sizes ("M20") and property classes ("8.8") to try.
+// BoltOptions lists the bolt sizes ("M20") and property classes ("8.8") to try, and bounds
+// the sizes (either list, or its default) by diameter.
 type BoltOptions struct {
 	Meta
 	Sizes   []string `yaml:"sizes"`
 	Classes []string `yaml:"classes"`
+	MinSize string   `yaml:"min_size"` // smallest size tried, "" for no bound
+	MaxSize string   `yaml:"max_size"` // largest size tried, "" for no bound
 }
 
 // PlateOptions gives the cover plate grade and the thicknesses to try.

@@ -599,6 +599,48 @@ costs:
 			`13:17: costs.plate_per_kg: plate_per_kg must not be negative, got -2.4`,
 			`14:9: costs.hole: want a number, got "abc"`,
 			`15:9: costs.lift: an infinite value is not allowed`}},
+		{"weld throats", `beam:
+  section: {welded: {h: 900, b: 300, tw: 12, tf: 25, weld_throat: 2}}
+  spans: [6]
+  supports: [pinned, roller]
+cases: {G: {kind: permanent, loads: [{udl: 5}]}}
+`, []string{`2:67: beam.section.welded.weld_throat: a weld throat a of 2 mm is outside the plausible range (at least 3 mm)`}},
+		{"weld throat of zero", `beam:
+  section: {welded: {h: 900, b: 300, tw: 12, tf: 25, weld_throat: 0}}
+  spans: [6]
+  supports: [pinned, roller]
+cases: {G: {kind: permanent, loads: [{udl: 5}]}}
+`, []string{`2:67: beam.section.welded.weld_throat: the weld throat must be greater than 0, got 0 mm`}},
+		{"welds that fill the flange outstand", `beam:
+  section: {welded: {h: 900, b: 300, tw: 12, tf: 25, weld_throat: 110}}
+  spans: [6]
+  supports: [pinned, roller]
+cases: {G: {kind: permanent, loads: [{udl: 5}]}}
+`, []string{`2:67: beam.section.welded.weld_throat: welds of throat a = 110 mm have legs √2·a = 155.563 mm, which leave no web ` +
+			`between them (h − 2tf = 850 mm) or no flange outstand beside them ((b − tw)/2 = 144 mm)`}},
+		{"bolt-size bounds", minimal + `splice:
+  bolts: {min_size: "20", max_size: M2O}
+`, []string{`10:21: splice.bolts.min_size: bolt size "20" is not a metric size such as M20`,
+			`10:37: splice.bolts.max_size: bolt size "M2O" is not a metric size such as M20`}},
+		{"bolt-size bounds crossed", minimal + `splice: {bolts: {min_size: M27, max_size: M20}}
+`, []string{`9:28: splice.bolts.min_size: min_size M27 is larger than max_size M20`}},
+		{"detailing preferences", minimal + `splice:
+  detailing:
+    gauge: -5
+    gauges: [{width: 200, gauge: 120}, {width: 200, gauge: 90}, {width: 150, gauge: 150}, {gauge: 0}]
+    min_plate_to_flange: 3
+    min_plate: 1
+`, []string{`11:12: splice.detailing.gauge: a gauge must be greater than 0, got -5 mm`,
+			`12:13: splice.detailing.gauges: give gauge (one gauge for every section) or gauges (a gauge by flange width), not both`,
+			`12:48: splice.detailing.gauges[1].width: a second gauge for flanges 200 mm wide (gauges[0])`,
+			`12:85: splice.detailing.gauges[2].gauge: a gauge of 150 mm is not less than the flange width 150 mm it is for`,
+			`12:91: splice.detailing.gauges[3]: missing required key "width"`,
+			`12:99: splice.detailing.gauges[3].gauge: a gauge must be greater than 0, got 0 mm`,
+			`13:26: splice.detailing.min_plate_to_flange: min_plate_to_flange: 3 is not a ratio of cover-plate to flange thickness above 0 and at most 2`,
+			`14:5: splice.detailing: unknown key "min_plate" (allowed: gauge, gauges, min_plate_to_flange)`}},
+		{"an empty list of gauges", minimal + `splice: {detailing: {gauges: [], min_plate_to_flange: 0}}
+`, []string{`9:30: splice.detailing.gauges: the list of gauges is empty`,
+			`9:55: splice.detailing.min_plate_to_flange: min_plate_to_flange: 0 is not a ratio`}},
 		{"bolt size without a rate", minimal + `splice: {bolts: {sizes: [M20, M24]}}
 costs: {bolt: {M20: 3.2}}
 `, []string{`9:31: splice.bolts.sizes[1]: costs.bolt has no rate for M24 (rates for: M20)`}},

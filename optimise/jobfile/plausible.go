@@ -56,6 +56,15 @@ const (
 	// flange, 2000 mm: beyond the plate girders of buildings and bridges.
 	MaxWeldedDepth = 5000.0
 	MaxWeldedWidth = 2000.0
+	// MinWeldThroat is the thinnest throat of a web-to-flange fillet weld, 3 mm: EN 1993-1-8
+	// 4.5.2(2) asks a fillet weld's effective throat to be at least 3 mm (from memory).
+	MinWeldThroat = 3.0
+	// MaxGauge bounds a preferred flange gauge and the flange width it is for, 2000 mm: the
+	// widest flange of a welded section (MaxWeldedWidth).
+	MaxGauge = MaxWeldedWidth
+	// MaxPlateToFlange bounds splice.detailing.min_plate_to_flange, 2: a cover plate twice as
+	// thick as the flange it covers is beyond any office's rule (0.5 to 1 are usual).
+	MaxPlateToFlange = 2.0
 
 	// MinPlate is the thinnest cover plate, 4 mm, and MaxPlate the thickest, 100 mm. Below
 	// 4 mm material is sheet, whose bolted joints EN 1993-1-3 governs (from memory); above
@@ -124,6 +133,9 @@ const (
 	rangeRate
 	rangeClassFactor
 	rangePayload
+	rangeWeldThroat
+	rangeGauge
+	rangeGaugeWidth
 )
 
 // PlausibleRange is the range LoadJob (or LoadSpliceFile) accepts for one value.
@@ -196,6 +208,10 @@ func PlausibleRanges() []PlausibleRange {
 		{id: rangeRate, Keys: rates, What: "a rate", Max: MaxRate, show: plain},
 		{id: rangeClassFactor, Keys: []string{"costs.bolt_class_factor"}, What: "a class factor", Max: MaxClassFactor, show: plain},
 		{id: rangePayload, Keys: []string{"vehicles[].payload"}, What: "a payload", Min: MinPayload, Max: inf, show: kg},
+		{id: rangeWeldThroat, Keys: []string{"beam.section.welded.weld_throat"}, What: "a weld throat a", Min: MinWeldThroat, Max: inf, show: mm},
+		{id: rangeGauge, Keys: []string{"splice.detailing.gauge", "splice.detailing.gauges[].gauge"}, What: "a flange gauge",
+			Max: MaxGauge, show: mm},
+		{id: rangeGaugeWidth, Keys: []string{"splice.detailing.gauges[].width"}, What: "a flange width", Max: MaxGauge, show: mm},
 	}
 	for i := range ranges {
 		r := &ranges[i]

@@ -219,6 +219,12 @@ func jobWith(t *testing.T, id int, v float64) (string, string) {
 		extra, key = "costs: {bolt_class_factor: {\"10.9\": "+num(v)+"}}\n", `costs.bolt_class_factor["10.9"]`
 	case rangePayload:
 		extra, key = "vehicles: [{name: lorry, max_length: 13.6, payload: "+num(v)+", cost: 800}]\n", "vehicles[0].payload"
+	case rangeWeldThroat:
+		section, key = "{welded: {h: 900, b: 300, tw: 12, tf: 25, weld_throat: "+mm(v)+"}}", "beam.section.welded.weld_throat"
+	case rangeGauge:
+		extra, key = "splice: {detailing: {gauge: "+mm(v)+"}}\n", "splice.detailing.gauge"
+	case rangeGaugeWidth:
+		extra, key = "splice: {detailing: {gauges: [{width: "+mm(v)+", gauge: 100}]}}\n", "splice.detailing.gauges[0].width"
 	default:
 		t.Fatalf("no job for range %d", id)
 	}

@@ -234,15 +234,41 @@ func (c *checker) section(s Section) {
 		}
 		allGood = c.plausible(w.Where(dim.key), ranges[dim.key], dim.v.MM()) && allGood
 	}
+	throatGood := c.weldThroat(w)
 	if !allGood || c.failed(w.Meta.Loc) {
 		return
 	}
 	if 2*w.Tf >= w.H {
 		c.add(w.Where("tf"), "two flanges of tf = %s leave no web in h = %s", w.Tf, w.H)
+		return
 	}
 	if w.Tw >= w.B {
 		c.add(w.Where("tw"), "the web (tw = %s) is not narrower than the flange (b = %s)", w.Tw, w.B)
+		return
 	}
+	if !throatGood || w.WeldThroat == nil {
+		return
+	}
+	// the welds' legs √2·a must leave a web between them and a flange outstand beside them
+	leg := math.Sqrt2 * w.WeldThroat.MM()
+	if hw, out := w.H.MM()-2*w.Tf.MM(), (w.B.MM()-w.Tw.MM())/2; !(2*leg < hw && leg < out) {
+		c.add(w.Where("weld_throat"), "welds of throat a = %s have legs √2·a = %s, which leave no web between them "+
+			"(h − 2tf = %s) or no flange outstand beside them ((b − tw)/2 = %s)", *w.WeldThroat, Millimetres(leg),
+			Millimetres(hw), Millimetres(out))
+	}
+}
+
+// weldThroat checks a welded section's weld throat: more than 0 and in the plausible range.
+func (c *checker) weldThroat(w *Welded) bool {
+	if w.WeldThroat == nil {
+		return true
+	}
+	at := w.Where("weld_throat")
+	if a := *w.WeldThroat; !(a > 0) {
+		c.positive(at, "the weld throat", a.MM(), a.String())
+		return false
+	}
+	return c.plausible(at, rangeWeldThroat, w.WeldThroat.MM())
 }
 
 func (c *checker) supports(b *Beam, spansOK bool) {
@@ -497,6 +523,10 @@ func (c *checker) spliceOptions(s *SpliceOptions) {
 		list(c, b.Meta, "classes", "bolt classes", b.Classes, func(at Loc, class string) {
 			c.boltClass(at, class, s.Category)
 		})
+		c.boltBounds(b)
+	}
+	if d := s.Detailing; d != nil {
+		c.detailing(d)
 	}
 	if p := s.Plates; p != nil {
 		if p.Has("grade") && strings.TrimSpace(p.Grade) == "" {
@@ -560,6 +590,73 @@ func list[T comparable](c *checker, m Meta, key, what string, xs []T, each func(
 		seen[x] = i
 		each(at, x)
 	}
+}
+
+// boltBounds checks min_size and max_size: metric sizes, the smaller first.
+func (c *checker) boltBounds(b *BoltOptions) {
+	ok := true
+	for _, k := range []struct{ key, v string }{{"min_size", b.MinSize}, {"max_size", b.MaxSize}} {
+		if b.Has(k.key) && !isBoltSize(k.v) {
+			c.boltSize(b.Where(k.key), k.v)
+			ok = false
+		}
+	}
+	if ok && b.Has("min_size") && b.Has("max_size") && boltDiameter(b.MinSize) > boltDiameter(b.MaxSize) {
+		c.add(b.Where("min_size"), "min_size %s is larger than max_size %s", b.MinSize, b.MaxSize)
+	}
+}
+
+// boltDiameter is the diameter of a metric size that isBoltSize accepts [mm].
+func boltDiameter(size string) int {
+	d, _ := strconv.Atoi(strings.TrimPrefix(size, "M"))
+	return d
+}
+
+// detailing checks the detailing preferences that need no section: sizes and ratios in
+// range, gauge or gauges but not both, each gauge narrower than the flange it is for and each
+// width listed once. Whether a gauge can be detailed on the section is optimise's check.
+func (c *checker) detailing(d *Detailing) {
+	if g := d.Gauge; g != nil {
+		c.gauge(d.Where("gauge"), "a gauge", *g)
+	}
+	if d.Has("gauge") && d.Has("gauges") {
+		c.add(d.Where("gauges"), "give gauge (one gauge for every section) or gauges (a gauge by flange width), not both")
+	}
+	if d.Has("gauges") && len(d.Gauges) == 0 && !c.failed(d.Where("gauges")) {
+		c.add(d.Where("gauges"), "the list of gauges is empty")
+	}
+	if c.plausible(d.Where("gauges"), rangeList, float64(len(d.Gauges))) {
+		seen := make(map[Millimetres]int)
+		for i, e := range d.Gauges {
+			widthOK := e.Has("width") && e.Width > 0 && c.plausible(e.Where("width"), rangeGaugeWidth, e.Width.MM())
+			if e.Has("width") && !(e.Width > 0) {
+				c.positive(e.Where("width"), "a flange width", e.Width.MM(), e.Width.String())
+			}
+			gaugeOK := e.Has("gauge") && c.gauge(e.Where("gauge"), "a gauge", e.Gauge)
+			if widthOK {
+				if first, dup := seen[e.Width]; dup {
+					c.add(e.Where("width"), "a second gauge for flanges %s wide (gauges[%d])", e.Width, first)
+				}
+				seen[e.Width] = i
+			}
+			if widthOK && gaugeOK && e.Gauge >= e.Width {
+				c.add(e.Where("gauge"), "a gauge of %s is not less than the flange width %s it is for", e.Gauge, e.Width)
+			}
+		}
+	}
+	if r := d.MinPlateToFlange; r != nil && !(*r > 0 && *r <= MaxPlateToFlange) {
+		c.add(d.Where("min_plate_to_flange"), "min_plate_to_flange: %s is not a ratio of cover-plate to flange thickness "+
+			"above 0 and at most %s (0.5 to 1 are usual)", formatNumber(*r), formatNumber(MaxPlateToFlange))
+	}
+}
+
+// gauge checks a preferred flange gauge: more than 0, and in the plausible range.
+func (c *checker) gauge(at Loc, what string, g Millimetres) bool {
+	if !(g > 0) {
+		c.positive(at, what, g.MM(), g.String())
+		return false
+	}
+	return c.plausible(at, rangeGauge, g.MM())
 }
 
 func (c *checker) boltSize(at Loc, size string) {

@@ -73,6 +73,10 @@ type checkSection struct {
 	Iy        float64 `json:"Iy_cm4"`
 	MassPerM  float64 `json:"mass_kg_per_m"`
 	Catalogue bool    `json:"catalogue"`
+	// WeldThroat is the throat a of a welded section's web-to-flange welds and WeldLeg their
+	// leg √2·a [mm]; null for a rolled section or when the job gives none (welds ignored).
+	WeldThroat *float64 `json:"weld_throat"`
+	WeldLeg    *float64 `json:"weld_leg"`
 }
 
 type checkGrade struct {
@@ -154,6 +158,22 @@ type checkSplice struct {
 	FlangePlates  []string  `json:"flange_plates"`
 	Distribution  string    `json:"distribution"`
 	Gap           float64   `json:"gap"`
+	// BoltMinSize and BoltMaxSize bound the sizes ("" for no bound); BoltSizesTried are the
+	// sizes of BoltSizes within them, which the sizing tries.
+	BoltMinSize    string         `json:"bolt_min_size"`
+	BoltMaxSize    string         `json:"bolt_max_size"`
+	BoltSizesTried []string       `json:"bolt_sizes_tried"`
+	Detailing      checkDetailing `json:"detailing"`
+}
+
+// checkDetailing is what check understood of splice.detailing.
+type checkDetailing struct {
+	Gauge     *float64 `json:"gauge"`      // mm; null: the sizing chooses the gauge
+	GaugeFrom string   `json:"gauge_from"` // the job key it came from; "" when the sizing chooses it
+	// MinPlateToFlange is the ratio, MinPlate the least thickness ratio × tf of the outer plate
+	// alone or of the outer and inner plates together [mm]; null when there is no such rule.
+	MinPlateToFlange *float64 `json:"min_plate_to_flange"`
+	MinPlate         *float64 `json:"min_plate_thickness"`
 }
 
 type checkCosts struct {
@@ -212,6 +232,9 @@ func (s *checkBuilder) beam(st *optimise.Setup) error {
 	s.Section = checkSection{Name: sec.Name, Series: sec.Series, Source: sec.Source, H: sec.H, B: sec.B,
 		Tw: sec.Tw, Tf: sec.Tf, R: sec.R, A: Round(sec.A / 1e2), Iy: Round(sec.Iy / 1e4),
 		MassPerM: Round(sec.Mass), Catalogue: !sec.Welded()}
+	if a := st.WeldThroat; a > 0 {
+		s.Section.WeldThroat, s.Section.WeldLeg = ptr(Round(a)), ptr(Round(math.Sqrt2*a))
+	}
 	fyF, fuF, err := st.Grade.Strength(sec.Tf, st.GradeTable)
 	if err != nil {
 		return err
@@ -331,6 +354,14 @@ func (s *checkBuilder) splice(st *optimise.Setup) {
 	for _, a := range z.Space.Arrangements {
 		c.FlangePlates = append(c.FlangePlates, string(a))
 	}
+	c.BoltMinSize, c.BoltMaxSize, c.BoltSizesTried = z.Space.MinSize, z.Space.MaxSize, append([]string{}, st.BoltSizes...)
+	det := sp.Detailing
+	if det.Gauge > 0 {
+		c.Detailing.Gauge, c.Detailing.GaugeFrom = ptr(Round(det.Gauge)), st.GaugeKey
+	}
+	if k := det.MinPlateToFlange; k > 0 {
+		c.Detailing.MinPlateToFlange, c.Detailing.MinPlate = ptr(k), ptr(Round(k*st.Section.Tf))
+	}
 	s.Splice = c
 }
 
@@ -365,8 +396,12 @@ func writeCheckText(w io.Writer, s JobSummary) {
 	}
 	sec := s.Section
 	kind := "catalogue, " + sec.Source
-	if !sec.Catalogue {
-		kind = "welded from plates"
+	switch {
+	case sec.Catalogue:
+	case sec.WeldThroat != nil:
+		kind = fmt.Sprintf("welded from plates; web-to-flange welds a = %s mm, legs √2·a = %.1f mm", shortNum(*sec.WeldThroat), *sec.WeldLeg)
+	default:
+		kind = "welded from plates; web-to-flange welds ignored, no weld_throat" + mark("beam.section.welded.weld_throat")
 	}
 	fmt.Fprintf(w, "Section:   %s (%s): h %g, b %g, tw %g, tf %g, r %g mm; A %.1f cm², Iy %.0f cm⁴, %.1f kg/m\n",
 		sec.Name, kind, sec.H, sec.B, sec.Tw, sec.Tf, sec.R, sec.A, sec.Iy, sec.MassPerM)
@@ -415,11 +450,12 @@ func writeCheckText(w io.Writer, s JobSummary) {
 	}
 	fmt.Fprintf(w, "  category %s%s, friction class %s, gap %g mm%s, distribution %s%s\n",
 		sp.Category, mark("splice.category"), fc, sp.Gap, mark("splice.gap"), sp.Distribution, mark("splice.distribution"))
-	fmt.Fprintf(w, "  bolts %s%s in classes %s%s\n", strings.Join(sp.BoltSizes, ", "), mark("splice.bolts.sizes"),
+	fmt.Fprintf(w, "  bolts %s in classes %s%s\n", boltSizesText(sp, mark("splice.bolts.sizes")),
 		strings.Join(sp.BoltClasses, ", "), mark("splice.bolts.classes"))
 	fmt.Fprintf(w, "  plates %s%s, thicknesses %s mm%s; flange plates %s%s\n", sp.PlateGrade, mark("splice.plates.grade"),
 		joinShortNums(sp.Thicknesses, ", "), mark("splice.plates.thicknesses"), strings.Join(sp.FlangePlates, ", "), mark("splice.flange_plates"))
 
+	writeCheckDetailing(w, sp, s.Section, mark)
 	writeCheckCosts(w, s.Costs, mark)
 	fmt.Fprintf(w, "\nScan: candidates every %s m%s, %d alternative layouts%s\n", shortNum(s.Scan.Step), mark("scan.step"),
 		s.Scan.Alternatives, mark("scan.alternatives"))
@@ -429,6 +465,37 @@ func writeCheckText(w io.Writer, s JobSummary) {
 			fmt.Fprintf(w, "  - %s\n", n)
 		}
 	}
+}
+
+// boltSizesText lists the bolt sizes tried and, where bounds filtered them, the list and the
+// bounds: "M20, M22, M24 (of M16, M20, ... (default), within min_size M20 and max_size M24)".
+func boltSizesText(sp checkSplice, mark string) string {
+	var b []string
+	if sp.BoltMinSize != "" {
+		b = append(b, "min_size "+sp.BoltMinSize)
+	}
+	if sp.BoltMaxSize != "" {
+		b = append(b, "max_size "+sp.BoltMaxSize)
+	}
+	if len(b) == 0 {
+		return strings.Join(sp.BoltSizes, ", ") + mark
+	}
+	return strings.Join(sp.BoltSizesTried, ", ") + " (of " + strings.Join(sp.BoltSizes, ", ") + mark + ", within " + strings.Join(b, " and ") + ")"
+}
+
+// writeCheckDetailing prints the detailing preferences understood.
+func writeCheckDetailing(w io.Writer, sp checkSplice, sec checkSection, mark func(...string) string) {
+	d := sp.Detailing
+	gauge := "chosen by the sizing" + mark("splice.detailing.gauge")
+	if d.Gauge != nil {
+		gauge = fmt.Sprintf("%s mm (%s; with 4 bolt lines between the two nearest the web)", shortNum(*d.Gauge), d.GaugeFrom)
+	}
+	plate := "no least thickness" + mark("splice.detailing.min_plate_to_flange")
+	if d.MinPlateToFlange != nil {
+		plate = fmt.Sprintf("at least %s × tf = %s × %s = %s mm (the outer plate, or outer and inner plates together)",
+			shortNum(*d.MinPlateToFlange), shortNum(*d.MinPlateToFlange), shortNum(sec.Tf), shortNum(*d.MinPlate))
+	}
+	fmt.Fprintf(w, "  detailing: flange gauge %s; flange cover plates %s\n", gauge, plate)
 }
 
 // writeRoofRule names the rule on roof imposed loads where the job has roof imposed and snow

@@ -54,12 +54,12 @@ func (t *checkTable) num(key string, v float64, unit string, also ...string) {
 }
 
 // limit adds a limit that may be absent (an empty value).
-func (t *checkTable) limit(key string, v *float64, unit string) {
+func (t *checkTable) limit(key string, v *float64, unit string, also ...string) {
 	if v == nil {
-		t.add(key, "", unit)
+		t.add(key, "", unit, also...)
 		return
 	}
-	t.num(key, *v, unit)
+	t.num(key, *v, unit, also...)
 }
 
 func checkRows(s JobSummary) [][]Cell {
@@ -110,6 +110,10 @@ func checkBeamRows(t *checkTable, s JobSummary) {
 		v   float64
 	}{{"h", sec.H}, {"b", sec.B}, {"tw", sec.Tw}, {"tf", sec.Tf}, {"r", sec.R}} {
 		t.num("section."+d.key, d.v, "mm")
+	}
+	if !sec.Catalogue {
+		t.limit("beam.section.welded.weld_throat", sec.WeldThroat, "mm")
+		t.limit("section.weld_leg", sec.WeldLeg, "mm", "beam.section.welded.weld_throat")
 	}
 	t.num("section.A", sec.A, "cm2")
 	t.num("section.Iy", sec.Iy, "cm4")
@@ -226,6 +230,16 @@ func checkSpliceRows(t *checkTable, s JobSummary) {
 	}
 	t.add("splice.distribution", sp.Distribution, "")
 	t.num("splice.gap", sp.Gap, "mm")
+	t.add("splice.bolts.min_size", sp.BoltMinSize, "")
+	t.add("splice.bolts.max_size", sp.BoltMaxSize, "")
+	for i, v := range sp.BoltSizesTried {
+		t.add(fmt.Sprintf("splice.bolts.tried[%d]", i), v, "", "splice.bolts.sizes")
+	}
+	d := sp.Detailing
+	t.limit("splice.detailing.gauge", d.Gauge, "mm")
+	t.add("splice.detailing.gauge_from", d.GaugeFrom, "", "splice.detailing.gauge")
+	t.limit("splice.detailing.min_plate_to_flange", d.MinPlateToFlange, "")
+	t.limit("splice.detailing.min_plate_thickness", d.MinPlate, "mm", "splice.detailing.min_plate_to_flange")
 }
 
 func checkCostRows(t *checkTable, s JobSummary) {
