@@ -257,7 +257,7 @@ cases:
 	text := out.String()
 	for _, want := range []string{"S355 (default)", "EN 1993-1-1 Table 3.1 (default)", "γG,sup 1.35 (default)",
 		"category A (default)", "max piece length no limit (default)", "invented indicative rates", "CAUTION",
-		"flange gauge chosen by the sizing (default)", "flange cover plates no least thickness (default)"} {
+		"flange gauge chosen by the sizing (default)", "flange cover plates of any listed thickness (default)"} {
 		assert.Contains(t, text, want)
 	}
 }

@@ -490,7 +490,7 @@ func writeCheckDetailing(w io.Writer, sp checkSplice, sec checkSection, mark fun
 	if d.Gauge != nil {
 		gauge = fmt.Sprintf("%s mm (%s; with 4 bolt lines between the two nearest the web)", shortNum(*d.Gauge), d.GaugeFrom)
 	}
-	plate := "no least thickness" + mark("splice.detailing.min_plate_to_flange")
+	plate := "of any listed thickness" + mark("splice.detailing.min_plate_to_flange")
 	if d.MinPlateToFlange != nil {
 		plate = fmt.Sprintf("at least %s × tf = %s × %s = %s mm (the outer plate, or outer and inner plates together)",
 			shortNum(*d.MinPlateToFlange), shortNum(*d.MinPlateToFlange), shortNum(sec.Tf), shortNum(*d.MinPlate))
