@@ -135,10 +135,10 @@ func (c *Catalogue) Len() int {
 	return n
 }
 
-// Bolt returns the bolt of a bolt index (threads in the shear planes as the sizing assumes).
+// Bolt returns the bolt of a bolt index, with the sizing's shear-plane rule and system.
 func (c *Catalogue) Bolt(bolt int) Bolt {
 	b := &c.s.bolts[bolt]
-	return Bolt{Size: b.size.Name, Class: b.class.Name, ThreadsInShearPlane: b.threads}
+	return Bolt{Size: b.size.Name, Class: b.class.Name, ShearPlanes: b.rule, System: b.system}
 }
 
 // Order returns a splice's place in the sizing's order.
