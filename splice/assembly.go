@@ -575,12 +575,14 @@ type lengthFit struct {
 // fit chooses the length for a grip (Σ plies) in the chooser's system, or in ISO 4017 where
 // SelectAssembly falls back to it. When no length fits, length is the one a reader is shown:
 // the longest of the series when the protrusion needs more, otherwise the shortest whose
-// protrusion suffices (its thread does not reach the clamp).
+// protrusion suffices (its thread does not reach the clamp) — of the fully threaded form
+// where the partly threaded one falls back to it.
 func (c *assemblyChooser) fit(grip float64) lengthFit {
 	f := c.fitIn(c.data, grip)
 	if !f.ok && !f.tooLong && c.full != nil {
-		if g := c.fitIn(c.full, grip); g.ok {
-			g.isAlt = true
+		g := c.fitIn(c.full, grip)
+		g.isAlt = true
+		if g.ok || !g.tooLong {
 			return g
 		}
 	}

@@ -2,6 +2,7 @@ package splice
 
 import (
 	"fmt"
+	"math"
 	"strings"
 )
 
@@ -98,8 +99,9 @@ type GroupAssembly struct {
 	// Err says why no standard length fits the grip (an *AssemblyLengthError); the check
 	// detail.bolt.length then fails and every plane is taken in the thread.
 	Err error
-	// Mass is one assembly's mass [kg]: Assembly.Mass, or where no length fits that of a bolt
-	// of the length the check reports (for piece masses only).
+	// Mass is one assembly's mass [kg]: Assembly.Mass, or where no length fits that of the
+	// bolt the check reports, lengthened by the shortfall when the series is too short (for
+	// piece masses only).
 	Mass   float64
 	Planes []PlaneUse
 }
@@ -197,13 +199,28 @@ func newGroupFit(b *boltData, s *plyStack) groupFit {
 			g.fv[i] = b.fvShank
 		}
 	}
-	lm := g.length
-	if g.tooLong {
-		lm = g.requiredLength()
-	}
-	bolt, nut, washer := assemblyMasses(g.data, lm)
-	g.mass = bolt + nut + float64(b.asm.nh+b.asm.nn)*washer
+	g.mass = fitMass(b, &g.lengthFit)
 	return g
+}
+
+// fitMass is one assembly's mass [kg] at the length the fit reports (lengthFit.length); where
+// the grip is too long for the series, the longest bolt lengthened by the shortfall (at the
+// shank diameter, at the pitch diameter when fully threaded): so that the mass never falls as
+// the grip grows (TestAssemblyMassGrowsWithTheGrip).
+func fitMass(b *boltData, f *lengthFit) float64 {
+	d, extra := f.data, 0.0
+	if f.tooLong {
+		extra = max(0, f.requiredLength()-f.length)
+	}
+	bolt, nut, washer := assemblyMasses(d, f.length)
+	if extra > 0 {
+		dia := d.D
+		if d.rule.thread == threadFull {
+			dia = d.D - 0.649519*d.P
+		}
+		bolt += math.Pi / 4 * dia * dia * extra * steelDensity
+	}
+	return bolt + nut + float64(b.asm.nh+b.asm.nn)*washer
 }
 
 // groupAssembly describes a group's fit for the result.
