@@ -180,6 +180,19 @@ func (c *Catalogue) WebPart(bolt, w int) (WebSplice, int, float64) {
 	return c.bolts[bolt].wgeo[w], q.bolts, q.mass
 }
 
+// FlangeBoltMass returns the mass of a flange part's bolt assemblies, both flanges, both sides
+// of the joint [kg]: the assembly chosen for its plies, as Entry's Quantities.FlangeBoltMass.
+func (c *Catalogue) FlangeBoltMass(bolt, f int) float64 {
+	q := flangeQty(&c.bolts[bolt].flanges[f], c.s.e.gap)
+	return float64(q.bolts) * q.boltMass
+}
+
+// WebBoltMass returns the mass of a web part's bolt assemblies, both sides [kg].
+func (c *Catalogue) WebBoltMass(bolt, w int) float64 {
+	q := webQty(&c.bolts[bolt].webs[w], c.s.e.gap)
+	return float64(q.bolts) * q.boltMass
+}
+
 // Entry returns a whole splice's geometry, quantities and cost.
 func (c *Catalogue) Entry(ch Choice) Entry {
 	cb := &c.bolts[ch.Bolt]
