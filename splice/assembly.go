@@ -796,12 +796,7 @@ func (c *assemblyChooser) build(f *lengthFit, plies []float64) Assembly {
 func designation(a Assembly) string {
 	d := a.Data
 	var b strings.Builder
-	fmt.Fprintf(&b, "%s×%s", d.Size, mm(a.Length))
-	if d.System.Preloaded() {
-		fmt.Fprintf(&b, " %s %s (%s)", d.System, a.Spec.Class, d.BoltStandard)
-	} else {
-		fmt.Fprintf(&b, " %s %s", d.BoltStandard, a.Spec.Class)
-	}
+	b.WriteString(boltDesignation(a))
 	fmt.Fprintf(&b, ", nut %s", d.NutStandard)
 	switch w := a.HeadWashers + a.NutWashers; w {
 	case 0:
@@ -812,6 +807,15 @@ func designation(a Assembly) string {
 		fmt.Fprintf(&b, ", %d washers %s", w, d.WasherStandard)
 	}
 	return b.String()
+}
+
+// boltDesignation names the bolt of an assembly: "M20×80 HV 10.9 (EN 14399-4)", "M20×60 ISO 4017 8.8".
+func boltDesignation(a Assembly) string {
+	d := a.Data
+	if d.System.Preloaded() {
+		return fmt.Sprintf("%s×%s %s %s (%s)", d.Size, mm(a.Length), d.System, a.Spec.Class, d.BoltStandard)
+	}
+	return fmt.Sprintf("%s×%s %s %s", d.Size, mm(a.Length), d.BoltStandard, a.Spec.Class)
 }
 
 // assemblyMasses are the masses of one bolt of length l, one nut and one washer [kg] (see the

@@ -297,7 +297,13 @@ func lengthRules(n lengthNames, g *groupFit, full bool) rules {
 	r.atLeast(n.least, least, g.requiredLength(), "Σt,max + m + P")
 	r.atLeast(n.clamp, g.cMin, g.lo, "lg,max + n·P")
 	if full {
-		r.lines[0] = sprintf("%s×%s %s: l − Δl = %s − %s = %s", d.Size, mm(l), d.BoltStandard, mm(l), f2(d.LengthTolerance(l)), r.lines[0])
+		// the lines in the assembly's own terms, each still ending in its ok or FAILS
+		_, mark0, _ := strings.Cut(r.lines[0], " mm ")
+		_, mark1, _ := strings.Cut(r.lines[1], " mm ")
+		r.lines[0] = sprintf("%s×%s (%s) least length l − Δl = %s − %s = %s ≥ Σt,max + m + P = %s + %s + %s = %s mm %s",
+			d.Size, mm(l), d.BoltStandard, mm(l), f2(d.LengthTolerance(l)), mm(least), mm(g.cMax), mm(d.NutM), mm(d.P), mm(g.requiredLength()), mark0)
+		r.lines[1] = sprintf("clamp Σt,min = %s ≥ lg,max + n·P = %s + %s×%s = %s mm %s",
+			mm(g.cMin), mm(d.ThreadStart(l)), fnum(d.rule.clearThreads, 0), mm(d.P), mm(g.lo), mark1)
 	}
 	return r
 }

@@ -5,7 +5,7 @@ package splice
 type MaterialItem struct {
 	Item     string // "bolt", "nut", "washer" or "plate"
 	Part     string // "flange" or "web": where the item goes ("flange and web" in a sum)
-	Name     string // the assembly's designation for fasteners; "outer flange plate", "inner flange plate", "web plate"
+	Name     string // "M20×75 HV 10.9 (EN 14399-4)", "M20 nut EN 14399-4", "M20 washer EN 14399-6", "outer flange plate", "inner flange plate", "web plate"
 	Standard string // the product standard of a fastener; "" for plates
 	Size     string // "M20" for fasteners; "" for plates (see Thickness, Width, Length)
 	Grade    string // the bolt's property class (its nuts and washers too), or the plate's steel grade
@@ -29,8 +29,8 @@ type Materials struct {
 }
 
 // Materials lists what the splice takes to make, both flange splices and the web splice on
-// both sides of the joint: the bolt assemblies of each group by size, class and length with
-// their nuts and washers, and the cover plates with thickness × width × length (plateGrade is
+// both sides of the joint: the bolts of each group by size, class and length, their nuts and
+// washers (one line for the two groups where they are alike), and the cover plates with thickness × width × length (plateGrade is
 // the plates' steel grade, Problem.PlateSteel.Name), count and mass at 7850 kg/m³ (EN 1991-1-1
 // Table A.4). Packing plates are not listed: a splice gives their thickness, not their size.
 // The result must be a full one (not Problem.Brief), which carries the assemblies; a brief one
@@ -57,7 +57,7 @@ func (r Result) Materials(plateGrade string) Materials {
 		plate("flange", "inner flange plate", f.Inner.Thickness, f.Inner.Width, q.FlangePlateLength, 4)
 	}
 	plate("web", "web plate", g.Web.Thickness, g.Web.Depth, q.WebPlateLength, 2)
-	return m
+	return SumMaterials(m)
 }
 
 // assemblyItems are the bolts, nuts and washers of one bolt group.
@@ -70,10 +70,10 @@ func assemblyItems(a GroupAssembly, b Bolt) []MaterialItem {
 	as := a.Assembly
 	out := make([]MaterialItem, 0, len(as.Parts))
 	for _, p := range as.Parts {
-		it := MaterialItem{Item: p.Item, Part: a.Group, Name: as.Designation, Standard: p.Standard, Size: as.Data.Size,
-			Grade: class, Quantity: a.Count * p.Count, UnitMass: p.Mass}
+		it := MaterialItem{Item: p.Item, Part: a.Group, Name: as.Data.Size + " " + p.Item + " " + p.Standard, Standard: p.Standard,
+			Size: as.Data.Size, Grade: class, Quantity: a.Count * p.Count, UnitMass: p.Mass}
 		if p.Item == "bolt" {
-			it.Length = as.Length
+			it.Name, it.Length = boltDesignation(as), as.Length
 		}
 		out = append(out, it)
 	}
