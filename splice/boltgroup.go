@@ -250,17 +250,14 @@ func groupAssembly(b *boltData, s *plyStack, g *groupFit, count int) GroupAssemb
 	return out
 }
 
-// planeText describes a plane for the shear checks' sheets.
-func planeText(b *boltData, g *groupFit, s *plyStack, i int) string {
-	where := "shank"
+// planeText describes a plane for the shear checks' sheets, with Fv,Rd worked out.
+func planeText(b *boltData, g *groupFit, s *plyStack, i int, gammaM2 float64) string {
+	where, av, area, a := "shank", 0.6, "πd²/4", b.size.ShankArea()
 	if g.threaded[i] {
-		where = "thread"
+		where, av, area, a = "thread", b.class.AlphaV, "As", b.size.As
 	}
-	av, area, a := 0.6, "πd²/4", b.size.ShankArea()
-	if g.threaded[i] {
-		av, area, a = b.class.AlphaV, "As", b.size.As
-	}
-	return sprintf("%s at z = %s mm (%s, A = %s = %s mm², αv = %s): Fv,Rd = %s kN", s.plane[i], mm(g.z[i]), where, area, mm(a), f2(av), kN(g.fv[i]))
+	return sprintf("%s at z = %s mm on the %s (A = %s): Fv,Rd = %s×%s×%s/%s = %s kN", s.plane[i], mm(g.z[i]), where, area,
+		f2(av), fnum(b.class.Fub, 0), mm(a), f2(gammaM2), kN(g.fv[i]))
 }
 
 // ruleText says how the planes were placed.

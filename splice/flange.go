@@ -40,11 +40,11 @@ func (x *flangeEval) planeText() string {
 		return "one plane (outer plate alone), share 1"
 	}
 	ao, ai, sum := x.areas()
-	side := "outer plate"
+	side := "outer plate's"
 	if ai > ao {
-		side = "inner plates"
+		side = "inner plates'"
 	}
-	return sprintf("two planes; the %s' plane governs with share max(%s, %s)/%s = %s", side, mm(ao), mm(ai), mm(sum), f3(x.maxShare()))
+	return sprintf("two planes; the %s plane governs with share max(%s, %s)/%s = %s", side, mm(ao), mm(ai), mm(sum), f3(x.maxShare()))
 }
 
 func (x *flangeEval) nb() float64 { return float64(x.l.rows * x.l.cols) }
@@ -422,13 +422,18 @@ func (x *flangeEval) shear(d *checkDef, full bool) Check {
 	f, st := l.fit, e.flangeStack(l)
 	c.Formula = "Fv,Ed = Ff,Ed/n ≤ βLf·βp·min over the shear planes of Fv,Rd,i/s_i, s_i = the share of Ff,Ed through plane i, Fv,Rd,i = αv·fub·A/γM2 (A = As, αv of the class in the thread; A = πd²/4, αv = 0.6 on the shank)"
 	shares := x.planeShares()
-	planes := make([]string, n.np)
+	planes, ratios := make([]string, n.np), make([]string, n.np)
 	for i := range planes {
-		planes[i] = planeText(b, f, &st, i) + sprintf(", s = %s", f3(shares[i]))
+		planes[i] = planeText(b, f, &st, i, e.f.GammaM2) + sprintf(", s = %s", f3(shares[i]))
+		ratios[i] = sprintf("%s/%s", kN(f.fv[i]), f3(shares[i]))
 	}
-	c.Substituted = sprintf("Fv,Ed = %s/%d = %s kN; %s; %s (%s); %s × %s × %s = %s kN",
-		kN(e.act.Flange.Bolt), l.rows*l.cols, kN(demand), strings.Join(planes, "; "), x.planeText(), ruleText(b, f),
-		f3(n.bLf), f3(n.bp), kN(n.perBolt), kN(n.res))
+	per := sprintf("%s = %s kN", ratios[0], kN(n.perBolt))
+	if n.np > 1 {
+		per = sprintf("min(%s) = %s kN at %s", strings.Join(ratios, ", "), kN(n.perBolt), st.plane[n.gov])
+	}
+	c.Substituted = sprintf("Fv,Ed = %s/%d = %s kN; %s (%s); per bolt %s; %s × %s × %s = %s kN",
+		kN(e.act.Flange.Bolt), l.rows*l.cols, kN(demand), strings.Join(planes, "; "), ruleText(b, f),
+		per, f3(n.bLf), f3(n.bp), kN(n.perBolt), kN(n.res))
 	c.Inputs = []Input{in("n", x.nb(), "bolts"), in("n_p", float64(n.np), "planes"), in("s", n.share, ""), in("Lj", n.lj, "mm"), in("βLf", n.bLf, ""), in("tp", l.packing, "mm"),
 		in("βp", n.bp, ""), in("Fv,Rd", f.fv[n.gov]*toKN, "kN")}
 	c.Note = "per bolt, bolts share the flange force equally; each shear plane carries the force of the plate on its side (shares by area, as the plate checks); governed by " + st.plane[n.gov] + "; "

@@ -8,7 +8,7 @@ type MaterialItem struct {
 	Name     string // "M20×75 HV 10.9 (EN 14399-4)", "M20 nut EN 14399-4", "M20 washer EN 14399-6", "outer flange plate", "inner flange plate", "web plate"
 	Standard string // the product standard of a fastener; "" for plates
 	Size     string // "M20" for fasteners; "" for plates (see Thickness, Width, Length)
-	Grade    string // the bolt's property class (its nuts and washers too), or the plate's steel grade
+	Grade    string // a bolt's property class, its nuts' (partGrade) and washers' hardness, or a plate's steel grade
 	// Length is a bolt's nominal length or a plate's length along the beam [mm]; 0 for nuts and
 	// washers, and for a bolt no standard length fits (Name then says so).
 	Length           float64
@@ -71,7 +71,7 @@ func assemblyItems(a GroupAssembly, b Bolt) []MaterialItem {
 	out := make([]MaterialItem, 0, len(as.Parts))
 	for _, p := range as.Parts {
 		it := MaterialItem{Item: p.Item, Part: a.Group, Name: as.Data.Size + " " + p.Item + " " + p.Standard, Standard: p.Standard,
-			Size: as.Data.Size, Grade: class, Quantity: a.Count * p.Count, UnitMass: p.Mass}
+			Size: as.Data.Size, Grade: partGrade(p, class), Quantity: a.Count * p.Count, UnitMass: p.Mass}
 		if p.Item == "bolt" {
 			it.Name, it.Length = boltDesignation(as), as.Length
 		}
@@ -109,4 +109,33 @@ func SumMaterials(ms ...Materials) Materials {
 		}
 	}
 	return out
+}
+
+// partGrade is the grade a bill gives a fastener of an assembly with bolts of a class (from
+// memory): the bolt its class; the nut the property class that mates with it (ISO 898-2:
+// 5 for 4.6 to 5.8, 6 for 6.8, 8 for 8.8, 10 for 10.9; EN 14399-3/-4 nuts 8 or 10 and 10);
+// the washer its hardness (EN 14399-6 through-hardened 300–370 HV; ISO 7089 200 HV, or 300 HV
+// with 10.9 bolts).
+func partGrade(p AssemblyPart, class string) string {
+	switch p.Item {
+	case "nut":
+		switch class {
+		case "10.9":
+			return "10"
+		case "8.8":
+			return "8"
+		case "6.8":
+			return "6"
+		}
+		return "5"
+	case "washer":
+		switch {
+		case p.Standard == "EN 14399-6":
+			return "300–370 HV"
+		case class == "10.9":
+			return "300 HV"
+		}
+		return "200 HV"
+	}
+	return class
 }

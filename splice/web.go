@@ -56,7 +56,7 @@ func (x *webEval) shear(d *checkDef, full bool) Check {
 	f, st := x.l.fit, e.webStack(x.l)
 	c.Formula = "R = √(H² + V²) on the corner bolt (elastic group) ≤ 2·βLf·βp·min(Fv,Rd,1, Fv,Rd,2), Fv,Rd,i = αv·fub·A/γM2 of plane i (A = As, αv of the class in the thread; A = πd²/4, αv = 0.6 on the shank)"
 	c.Substituted = x.groupText() + sprintf("; %s; %s (%s); 2 × %s × %s × %s = %s kN",
-		planeText(b, f, &st, 0), planeText(b, f, &st, 1), ruleText(b, f), f3(bLf), f3(bp), kN(n.fv), kN(res))
+		planeText(b, f, &st, 0, e.f.GammaM2), planeText(b, f, &st, 1, e.f.GammaM2), ruleText(b, f), f3(bLf), f3(bp), kN(n.fv), kN(res))
 	c.Inputs = []Input{in("Mw", x.g.mw*toKNm, "kNm"), in("Nw", x.g.nw*toKN, "kN"), in("V", x.g.shear*toKN, "kN"), in("Lj", lj, "mm"), in("βLf", bLf, ""), in("βp", bp, "")}
 	c.Note = "two shear planes, each carrying half the bolt force; governed by " + st.plane[n.gov] + "; Lj is the longer group dimension (conservative); " + e.act.Web.State
 	return c

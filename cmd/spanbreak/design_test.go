@@ -60,13 +60,15 @@ func TestDesignDirectTextSheet(t *testing.T) {
 	for _, id := range []string{"detail.spacing", "detail.fit", "detail.preload", "flange.bolt.shear", "flange.bolt.bearing.beam",
 		"flange.bolt.bearing.plate", "flange.bolt.slip", "flange.plate.tension", "flange.plate.block", "flange.plate.compression",
 		"flange.plate.buckling", "flange.beam.net", "web.bolt.shear", "web.bolt.bearing.beam", "web.bolt.bearing.plate",
-		"web.bolt.slip", "web.plate.shear.gross", "web.plate.shear.net", "web.plate.block", "web.plate.combined", "web.beam.net-shear"} {
+		"web.bolt.slip", "web.plate.shear.gross", "web.plate.shear.net", "web.plate.block", "web.plate.combined", "web.beam.net-shear",
+		"detail.bolt.length"} {
 		assert.Contains(t, text, ". "+id+" — ", "every check on its own lines")
 	}
 	for _, want := range []string{
 		"IPE 500, S355", "EN 1993-1-8 Table 3.4", "utilisation", "pass",
 		"Fv,Rd = 0.50×1000×245/1.25 = 98.0 kN", // numbers substituted (M20 10.9, EN 1993-1-8 Table 3.4)
 		"Governing: ", "Quantities: ", "bolts", "holes", "kg of plate", "faying surface", "total",
+		"Bolt assemblies (EN 1090-2 8.2.2", "plies (head side first)", "shear planes (from the length)", "Bill of materials",
 		"CAUTION", "competent engineer", "national annex",
 	} {
 		assert.Contains(t, text, want)
