@@ -233,4 +233,3 @@ func summary(g splice.Geometry) string {
 	return fmt.Sprintf("%s %s; flanges %s, %d×%d bolts each side; web 2 × %g×%g, %d×%d bolts each side",
 		g.Bolt.Size, g.Bolt.Class, plates, fl.Columns, fl.Rows, g.Web.Thickness, g.Web.Depth, g.Web.Columns, g.Web.Rows)
 }
-

@@ -41,11 +41,11 @@ type DesignDoc struct {
 	// splice's bill of materials.
 	Assemblies []AssemblyDoc `json:"assemblies"`
 	Materials  MaterialsDoc  `json:"materials"`
-	Beam        sectionDoc  `json:"beam"`
-	Member      *MemberDoc  `json:"member"`
-	Notes       []string    `json:"notes"`
-	KeepOut     *KeepOutDoc `json:"keep_out"`
-	Caution     string      `json:"caution"`
+	Beam       sectionDoc    `json:"beam"`
+	Member     *MemberDoc    `json:"member"`
+	Notes      []string      `json:"notes"`
+	KeepOut    *KeepOutDoc   `json:"keep_out"`
+	Caution    string        `json:"caution"`
 }
 
 // KeepOutDoc is the keep-out zone a designed position lies in (from and to in m).
