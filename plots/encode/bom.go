@@ -215,10 +215,10 @@ func bomRows(name string, m splice.Materials) [][]Cell {
 
 // --- text ------------------------------------------------------------------------------------
 
-// AssemblyLines describes one group's assembly in lines of text (the calculation sheet's and
+// assemblyLines describes one group's assembly in lines of text (the calculation sheet's and
 // the report's): designation, plies and grip, length, thread and shank, each shear plane with
 // the area and αv its check uses, and the note.
-func AssemblyLines(a splice.GroupAssembly) []string {
+func assemblyLines(a splice.GroupAssembly) []string {
 	var plies []string
 	grip := 0.0
 	for _, p := range a.Plies {
@@ -279,7 +279,7 @@ func writeAssembliesText(w io.Writer, as []splice.GroupAssembly) error {
 	}
 	fmt.Fprintf(w, "  %s\n", assemblyHeading)
 	for _, a := range as {
-		for i, l := range AssemblyLines(a) {
+		for i, l := range assemblyLines(a) {
 			indent := "    "
 			if i > 0 {
 				indent = "      "
