@@ -139,28 +139,6 @@ func Materials(m splice.Materials) MaterialsDoc {
 	return d
 }
 
-// BillDoc is the bill of materials of the recommended layout: each splice's and the layout's.
-type BillDoc struct {
-	Splices []SpliceBillDoc `json:"splices"`
-	Layout  MaterialsDoc    `json:"layout"`
-}
-
-// SpliceBillDoc is one splice's bill (position m).
-type SpliceBillDoc struct {
-	Name      string       `json:"name"`
-	Position  Num          `json:"position"`
-	Materials MaterialsDoc `json:"materials"`
-}
-
-// Bill is the shape of a layout's bill.
-func Bill(b optimise.LayoutBill) BillDoc {
-	d := BillDoc{Splices: []SpliceBillDoc{}, Layout: Materials(b.Total)}
-	for _, s := range b.Splices {
-		d.Splices = append(d.Splices, SpliceBillDoc{Name: s.Name, Position: Num(s.Position * ToM), Materials: Materials(s.Materials)})
-	}
-	return d
-}
-
 // BOMHeader are the columns of bom.csv.
 var BOMHeader = []string{"splice", "item", "part", "description", "standard", "size", "class_or_grade",
 	"length_mm", "thickness_mm", "width_mm", "quantity", "unit_mass_kg", "total_mass_kg", "area_m2"}
