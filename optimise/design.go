@@ -204,7 +204,7 @@ func LoadSpliceFile(file string, data []byte) (splice.Geometry, error) {
 	}
 	fl, wb := sf.Flange, sf.Web
 	g := splice.Geometry{
-		Bolt:          splice.Bolt{Size: sf.Bolt.Size, Class: sf.Bolt.Class, ThreadsInShearPlane: sf.Bolt.ThreadsInShear()},
+		Bolt:          spliceBolt(sf.Bolt),
 		Category:      splice.Category(strings.ToUpper(strings.TrimSpace(sf.Category))),
 		FrictionClass: splice.FrictionClass(strings.ToUpper(strings.TrimSpace(sf.FrictionClass))),
 		Holes:         splice.HoleType(sf.Holes),
@@ -226,6 +226,13 @@ func LoadSpliceFile(file string, data []byte) (splice.Geometry, error) {
 		return splice.Geometry{}, err
 	}
 	return g, nil
+}
+
+// spliceBolt is a splice file's bolt in the splice package's terms (the file's names are
+// checked by jobfile).
+func spliceBolt(b jobfile.BoltSpec) splice.Bolt {
+	rule, _ := splice.ParseShearPlaneRule(b.ShearPlanes())
+	return splice.Bolt{Size: b.Size, Class: b.Class, ShearPlanes: rule, System: splice.AssemblySystem(b.System)}
 }
 
 // forcesWords says where the job's design forces come from.

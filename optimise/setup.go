@@ -290,11 +290,15 @@ func defaultsOf(job *jobfile.Job) []string {
 		given(o != nil && o.Has(k), "splice."+k)
 	}
 	given(o != nil && (o.Has("detailing.gauge") || o.Has("detailing.gauges")), "splice.detailing.gauge")
+	for _, k := range []string{"assemblies.system", "assemblies.shear_planes"} {
+		given(o != nil && o.Has(k), "splice."+k)
+	}
 	if c := job.Costs; given(c != nil, "costs") {
 		for _, r := range []struct {
 			key string
 			v   *float64
-		}{{"plate_per_kg", c.PlatePerKg}, {"hole", c.Hole}, {"faying_per_m2", c.FayingPerM2}, {"splice", c.Splice}, {"lift", c.Lift}} {
+		}{{"plate_per_kg", c.PlatePerKg}, {"hole", c.Hole}, {"faying_per_m2", c.FayingPerM2}, {"splice", c.Splice}, {"lift", c.Lift},
+			{"assembly_per_kg", c.AssemblyPerKg}} {
 			given(r.v != nil, "costs."+r.key)
 		}
 	}

@@ -65,3 +65,31 @@ func (o *Outcome) CandidateAt(x float64) *Candidate {
 	}
 	return nil
 }
+
+// SpliceBill is one splice's bill of materials.
+type SpliceBill struct {
+	Name      string  // as its sheet, "S1"
+	Position  float64 // [mm]
+	Materials splice.Materials
+}
+
+// LayoutBill is the bill of materials of the recommended layout: each splice's, from the left,
+// and their sum with identical items added up (splice.SumMaterials).
+type LayoutBill struct {
+	Splices []SpliceBill
+	Total   splice.Materials
+}
+
+// Bill is the bill of materials of the recommended layout, from its sheets (Outcome.Chosen);
+// empty when no layout fits or the layout has no splice.
+func (o *Outcome) Bill() LayoutBill {
+	var b LayoutBill
+	ms := make([]splice.Materials, 0, len(o.Chosen))
+	for _, sh := range o.Chosen {
+		m := sh.Result.Materials(o.Setup.Splice.PlateSteel.Name)
+		b.Splices = append(b.Splices, SpliceBill{Name: sh.Name, Position: sh.Position, Materials: m})
+		ms = append(ms, m)
+	}
+	b.Total = splice.SumMaterials(ms...)
+	return b
+}

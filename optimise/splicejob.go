@@ -2,7 +2,6 @@ package optimise
 
 import (
 	"fmt"
-	"math"
 	"strings"
 
 	"spanbreak/beam"
@@ -77,6 +76,13 @@ func (s *Setup) spliceProblem() (splice.Problem, error) {
 				z.Space.Thicknesses = append(z.Space.Thicknesses, t.MM())
 			}
 		}
+		if a := opts.Assemblies; a != nil {
+			rule, err := splice.ParseShearPlaneRule(a.ShearPlanes)
+			if err != nil {
+				probs.Add(a.Where("shear_planes"), "%v", err)
+			}
+			z.ShearPlanes, z.System = rule, splice.AssemblySystem(a.System)
+		}
 		for i, a := range opts.FlangePlates {
 			arr, err := splice.ParseArrangement(a)
 			if err != nil {
@@ -111,6 +117,14 @@ func (s *Setup) spliceProblem() (splice.Problem, error) {
 	}
 	if len(z.Space.Arrangements) == 0 {
 		z.Space.Arrangements = def.Arrangements
+	}
+	if z.System == splice.SystemHV {
+		for _, c := range z.Space.Classes {
+			if strings.TrimSpace(c) != "10.9" {
+				probs.Add(opts.Assemblies.Where("system"), "HV assemblies (EN 14399-4) are made in class 10.9 only; the bolt classes tried include %s: use HR, or splice.bolts.classes: [\"10.9\"]", c)
+				break
+			}
+		}
 	}
 	p.Sizing = z
 	if len(probs) > 0 {
@@ -180,6 +194,7 @@ func (s *Setup) rates() splice.Rates {
 		r.BoltClassFactor[e.Key] = e.Value
 	}
 	r.PlatePerKg, r.Hole, r.FayingPerM2, r.Splice = deref(c.PlatePerKg), deref(c.Hole), deref(c.FayingPerM2), deref(c.Splice)
+	r.AssemblyPerKg = deref(c.AssemblyPerKg)
 	return r
 }
 
@@ -199,8 +214,6 @@ type SpliceDesigner struct {
 	// Fixed, when set, is the one splice checked at every position instead of sizing one:
 	// a position is feasible where all its checks pass.
 	Fixed *splice.Geometry
-	// Tf, Tw are the beam's flange and web thicknesses [mm], for the bolt grip.
-	Tf, Tw float64
 
 	sizer *splice.Sizer // Problem's sizer, which keeps the layouts between positions
 }
@@ -208,8 +221,7 @@ type SpliceDesigner struct {
 // NewSpliceDesigner builds the designer of a job. Its Problem is not to be changed afterwards:
 // the designer keeps what the sizing of that problem does not owe to the forces.
 func (s *Setup) NewSpliceDesigner(exhaustive bool) *SpliceDesigner {
-	return &SpliceDesigner{Problem: s.Splice, Exhaustive: exhaustive, Tf: s.Section.Tf, Tw: s.Section.Tw,
-		sizer: splice.NewSizer(s.Splice)}
+	return &SpliceDesigner{Problem: s.Splice, Exhaustive: exhaustive, sizer: splice.NewSizer(s.Splice)}
 }
 
 // Design sizes the cheapest splice for the forces.
@@ -256,7 +268,7 @@ func (d *SpliceDesigner) Design(f PositionForces) (SpliceDesign, error) {
 	}
 	q := r.Quantities
 	out.Cost, out.Bolts, out.Holes, out.PlateMass, out.FayingArea = r.Cost.Total, q.Bolts, q.Holes, q.PlateMass, q.FayingArea
-	out.BoltMass = d.boltMass(r)
+	out.BoltMass = q.BoltMass
 	return out, nil
 }
 
@@ -269,47 +281,4 @@ func summary(g splice.Geometry) string {
 	}
 	return fmt.Sprintf("%s %s; flanges %s, %d×%d bolts each side; web 2 × %g×%g, %d×%d bolts each side",
 		g.Bolt.Size, g.Bolt.Class, plates, fl.Columns, fl.Rows, g.Web.Thickness, g.Web.Depth, g.Web.Columns, g.Web.Rows)
-}
-
-// boltMass estimates the mass of the splice's bolt assemblies [kg]: per assembly a hexagon
-// head and nut, two washers and a shank through the grip, from the proportions of EN 14399-4
-// HR bolts and EN 14399-6 washers — width across flats s = 1.6d, head k = 0.65d, nut m = 0.9d,
-// washer outside diameter 1.85d and thickness 4 mm (M ≤ 24) or 5 mm (from memory) — and
-// steel at 7850 kg/m³ (EN 1991-1-1 Table A.4). It is a small part of a piece's mass.
-func (d *SpliceDesigner) boltMass(r splice.Result) float64 {
-	g := r.Geometry
-	size, err := splice.LookupBoltSize(g.Bolt.Size)
-	if err != nil {
-		return 0
-	}
-	q := r.Quantities
-	return d.flangeBoltMass(size, g.Flange, q.FlangeBolts) + d.webBoltMass(size, g.Web, q.WebBolts)
-}
-
-// flangeBoltMass is the mass of a flange splice's bolt assemblies [kg], both flanges.
-func (d *SpliceDesigner) flangeBoltMass(size splice.BoltSize, fl splice.FlangeSplice, bolts int) float64 {
-	return float64(bolts) * boltAssemblyMass(size, d.Tf+fl.Outer.Thickness+fl.Inner.Thickness+fl.Packing)
-}
-
-// webBoltMass is the mass of a web splice's bolt assemblies [kg].
-func (d *SpliceDesigner) webBoltMass(size splice.BoltSize, w splice.WebSplice, bolts int) float64 {
-	return float64(bolts) * boltAssemblyMass(size, d.Tw+2*w.Thickness+2*w.Packing)
-}
-
-// boltAssemblyMass is the estimated mass of one bolt, nut and two washers for a grip [kg].
-func boltAssemblyMass(b splice.BoltSize, grip float64) float64 {
-	const density = 7.85e-6 // kg/mm³
-	dd := b.D
-	s, k, m := 1.6*dd, 0.65*dd, 0.9*dd
-	tw := 4.0
-	if dd > 24 {
-		tw = 5
-	}
-	hex := math.Sqrt(3) / 2 * s * s
-	shankArea := math.Pi * dd * dd / 4
-	washer := math.Pi / 4 * ((1.85*dd)*(1.85*dd) - b.D0Normal*b.D0Normal) * tw
-	protrusion := 0.5 * dd // thread beyond the nut (common practice: at least one full thread, here half a diameter)
-	shank := shankArea * (grip + 2*tw + m + protrusion)
-	nut := (hex - shankArea) * m
-	return density * (hex*k + nut + 2*washer + shank)
 }

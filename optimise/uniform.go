@@ -575,17 +575,13 @@ func (u *uniformSearch) part(kind, bolt, i int) *partInfo {
 	if pi := parts[bolt][i]; pi != nil {
 		return pi
 	}
-	size, err := splice.LookupBoltSize(u.cat.Bolt(bolt).Size)
-	if err != nil {
-		panic("optimise: a catalogue bolt without a size: " + err.Error())
-	}
 	pi := &partInfo{index: i, admits: map[int]bool{}}
 	if kind == 0 {
-		fl, n, plate := u.cat.FlangePart(bolt, i)
-		pi.plate, pi.boltsKg = plate, u.designer.flangeBoltMass(size, fl, n)
+		_, _, pi.plate = u.cat.FlangePart(bolt, i)
+		pi.boltsKg = u.cat.FlangeBoltMass(bolt, i)
 	} else {
-		wb, n, plate := u.cat.WebPart(bolt, i)
-		pi.plate, pi.boltsKg = plate, u.designer.webBoltMass(size, wb, n)
+		_, _, pi.plate = u.cat.WebPart(bolt, i)
+		pi.boltsKg = u.cat.WebBoltMass(bolt, i)
 	}
 	parts[bolt][i] = pi
 	return pi
@@ -853,7 +849,7 @@ func (u *uniformSearch) describe(l *UniformLayout) {
 	e := u.cat.Entry(l.Choice)
 	g, q := e.Geometry, e.Quantities
 	d := SpliceDesign{Feasible: true, Cost: e.Cost.Total, Bolts: q.Bolts, Holes: q.Holes, PlateMass: q.PlateMass,
-		BoltMass: u.designer.boltMass(splice.Result{Geometry: g, Quantities: q}), FayingArea: q.FayingArea,
+		BoltMass: q.BoltMass, FayingArea: q.FayingArea,
 		Summary: summary(g), Geometry: g}
 	for i, s := range l.Sites {
 		p := u.prob

@@ -119,7 +119,6 @@ func bruteUniform(t *testing.T, o *Outcome) (byCount []bruteLayout, designs []sp
 	p := o.layoutProblem()
 	cat, err := splice.NewCatalogue(o.Setup.Splice)
 	require.NoError(t, err)
-	d := o.Setup.NewSpliceDesigner(false)
 	best := map[int]bruteLayout{}
 	bestDesign := map[int]bruteDesign{}
 	for b := 0; b < cat.Bolts(); b++ {
@@ -130,7 +129,7 @@ func bruteUniform(t *testing.T, o *Outcome) (byCount []bruteLayout, designs []sp
 				q := e.Quantities
 				bd := bruteDesign{ch: ch, rank: [6]int64{micro(e.Cost.Total), int64(q.Bolts),
 					int64(math.Round(q.FlangePlateMass*1000)) + int64(math.Round(q.WebPlateMass*1000)), int64(b), int64(f), int64(w)}}
-				mass := q.PlateMass + d.boltMass(splice.Result{Geometry: e.Geometry, Quantities: q})
+				mass := q.PlateMass + q.BoltMass
 				dp := p
 				dp.Sites = nil
 				for i, s := range p.Sites {

@@ -21,6 +21,9 @@ type DrawingInput struct {
 	Section  beam.Section
 	Geometry splice.Geometry
 	Position float64 // splice position along the beam [mm], for the title block; <0 to omit
+	// Materials, when set, is the splice's bill of materials, drawn as a parts list above
+	// the title block.
+	Materials *splice.Materials
 }
 
 // maxDrawingHeight is the tallest the drawing may be: the text height of an A4 page less the
@@ -139,17 +142,89 @@ func SpliceDrawing(in DrawingInput) (*Figure, error) {
 	}
 	const margin, gap = 6, 8
 	noteH := vg.Length(len(notes))*(noteSize+3.5) + 8
+	var parts [][]string
+	if in.Materials != nil {
+		parts = partsList(*in.Materials)
+	}
+	partsH := vg.Length(0)
+	if len(parts) > 0 {
+		partsH = vg.Length(len(parts))*(noteSize+3.5) + 8 + gap
+	}
 	titleH := textStyle(sansBold(titleSize), black).Height(title) + 4
-	l := d.layout(figureWidth-2*margin, maxDrawingHeight-2*margin-titleH-noteH-gap)
+	l := d.layout(figureWidth-2*margin, maxDrawingHeight-2*margin-titleH-noteH-partsH-gap)
 	fig := &Figure{Name: "splice", Caption: "Dimensioned drawing of the chosen splice: elevation and plan of the top flange",
-		Width: figureWidth, Height: 2*margin + titleH + l.height + gap + noteH}
+		Width: figureWidth, Height: 2*margin + titleH + l.height + gap + partsH + noteH}
 	fig.paint = func(dc draw.Canvas) {
 		dc = draw.Crop(dc, margin, -margin, margin, -margin)
 		dc = drawTitle(dc, title)
-		d.drawViews(draw.Crop(dc, 0, 0, noteH+gap, 0), l)
+		d.drawViews(draw.Crop(dc, 0, 0, noteH+partsH+gap, 0), l)
+		if len(parts) > 0 {
+			drawPartsList(draw.Crop(dc, 0, 0, noteH+gap, -(dc.Max.Y-dc.Min.Y-noteH-partsH)), parts)
+		}
 		drawTitleBlock(draw.Crop(dc, 0, 0, 0, -(dc.Max.Y-dc.Min.Y-noteH)), notes)
 	}
 	return fig, nil
+}
+
+// partsList is the drawing's parts list: a header row, then one row a line of the bill
+// (bolts, nuts, washers, plates), then the holes and the bill's mass.
+func partsList(m splice.Materials) [][]string {
+	rows := [][]string{{"item", "part", "description", "size", "class / grade", "quantity", "each [kg]", "total [kg]"}}
+	total := 0.0
+	for _, it := range m.Items {
+		size := it.Size
+		if it.Item == "plate" {
+			size = fmt.Sprintf("%s × %s × %s", mm(it.Thickness), mm(it.Width), mm(it.Length))
+		}
+		rows = append(rows, []string{it.Item, it.Part, it.Name, size, it.Grade, fmt.Sprint(it.Quantity),
+			fixed(it.UnitMass, 3), fixed(it.TotalMass(), 2)})
+		total += it.TotalMass()
+	}
+	tail := fmt.Sprintf("%d holes", m.Holes)
+	if m.FayingArea > 0 {
+		tail += fmt.Sprintf(", %s m² of prepared faying surface", fixed(m.FayingArea, 2))
+	}
+	return append(rows, []string{"", "", tail, "", "", "", "in all", fixed(total, 1)})
+}
+
+// partsColumn is a column of the parts list: where its text starts, as a fraction of the
+// list's width, or for numbers (right) where it ends.
+type partsColumn struct {
+	at    float64
+	right bool
+}
+
+// partsColumns are the parts list's columns.
+func partsColumns() []partsColumn {
+	return []partsColumn{{0, false}, {0.075, false}, {0.205, false}, {0.5, false}, {0.635, false}, {0.80, true}, {0.90, true}, {1, true}}
+}
+
+// drawPartsList frames the parts list (rows[0] is the header).
+func drawPartsList(c draw.Canvas, rows [][]string) {
+	frame := []vg.Point{c.Min, {X: c.Max.X, Y: c.Min.Y}, c.Max, {X: c.Min.X, Y: c.Max.Y}, c.Min}
+	c.StrokeLines(lineStyle(black, 0.6), frame)
+	in := draw.Crop(c, 5, -5, 0, -4)
+	w := in.Max.X - in.Min.X
+	cols := partsColumns()
+	y := in.Max.Y
+	for i, r := range rows {
+		sty := textStyle(sans(noteSize), black)
+		if i == 0 {
+			sty.Font = sansBold(noteSize)
+		}
+		sty.YAlign = draw.YTop
+		for j, cell := range r {
+			s := sty
+			if cols[j].right {
+				s.XAlign = draw.XRight
+			}
+			in.FillText(s, vg.Point{X: in.Min.X + vg.Length(cols[j].at)*w, Y: y}, cell)
+		}
+		y -= noteSize + 3.5
+		if i == 0 {
+			c.StrokeLine2(thin(), c.Min.X, y+2, c.Max.X, y+2)
+		}
+	}
 }
 
 // notes are the title block lines: what is bolted with what.

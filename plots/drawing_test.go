@@ -102,6 +102,22 @@ func TestSpliceDrawingContent(t *testing.T) {
 		assert.True(t, has(want), "the drawing shows %q", want)
 	}
 
+	// with the bill: a parts list above the title block, the views still on the page
+	m := &splice.Materials{Items: []splice.MaterialItem{
+		{Item: "bolt", Part: "flange", Name: "M20×70 HV 10.9 (EN 14399-4)", Size: "M20", Grade: "10.9", Length: 70, Quantity: 24, UnitMass: 0.244},
+		{Item: "plate", Part: "flange", Name: "outer flange plate", Grade: "S355", Length: 470, Thickness: 15, Width: 210, Quantity: 2,
+			UnitMass: 15 * 210 * 470 * 7850e-9}}, Holes: 132, FayingArea: 1.25}
+	fig, err = SpliceDrawing(DrawingInput{Section: sec, Geometry: testGeometry(), Position: 19800, Materials: m})
+	require.NoError(t, err)
+	assert.LessOrEqual(t, fig.Height, maxDrawingHeight)
+	svg, err = fig.Bytes(SVG)
+	require.NoError(t, err)
+	text = string(svg)
+	for _, want := range []string{"M20×70 HV 10.9 (EN 14399-4)", "15 × 210 × 470", "S355", "each [kg]", "11.622", "23.24", // 15·210·470·7850e-9 = 11.622 kg each, two
+		"132 holes, 1.25 m² of prepared faying surface", "outer 15 × 210 × 470"} {
+		assert.True(t, has(want), "the drawing with its parts list shows %q", want)
+	}
+
 	// a deep welded girder falls back to a smaller scale and still fits a page
 	deep, err := beam.WeldedSection(1500, 500, 16, 40)
 	require.NoError(t, err)

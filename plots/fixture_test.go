@@ -134,7 +134,7 @@ func testLayouts() []Layout {
 // outer and inner flange plates, a two-column web group.
 func testGeometry() splice.Geometry {
 	return splice.Geometry{
-		Bolt:     splice.Bolt{Size: "M20", Class: "10.9", ThreadsInShearPlane: true},
+		Bolt:     splice.Bolt{Size: "M20", Class: "10.9", ShearPlanes: splice.PlanesInThread},
 		Category: splice.CategoryB, FrictionClass: "A", Holes: splice.NormalHoles, Gap: 10,
 		Flange: splice.FlangeSplice{
 			Outer: splice.Plate{Thickness: 15, Width: 210}, Inner: splice.Plate{Thickness: 15, Width: 85},

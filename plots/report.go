@@ -36,6 +36,7 @@ type Report struct {
 	Headings []Heading              // the numbered headings with the page each starts on
 	Figures  []*Figure              // every chart and drawing, for PNG and SVG files
 	Sheets   []optimise.SpliceSheet // the chosen layout's splices with their full checks
+	Bill     optimise.LayoutBill    // the chosen layout's bill of materials, splice by splice and in all
 	Scan     []ScanPoint            // the candidates as charted
 	Layouts  LayoutInput            // the layouts as charted
 	Charts   map[string]*Chart
@@ -114,6 +115,7 @@ func (r *Report) build(in ReportInput) error {
 	env := res.Envelopes
 	rec := res.Recommended()
 	r.Sheets = res.Chosen
+	r.Bill = res.Bill()
 	sheets := r.Sheets
 	envChart, err := EnvelopeChart(EnvelopeInput{
 		Title: "Envelopes along the beam, " + s.Section.Name + " " + s.Grade.Name, Envelopes: &env,
@@ -153,16 +155,16 @@ func (r *Report) build(in ReportInput) error {
 	}
 	r.Charts["layouts"] = lay
 	r.Figures = append(r.Figures, &lay.Figure)
-	for _, sh := range sheets {
+	for i, sh := range sheets {
 		f, err := SpliceDrawing(DrawingInput{
 			Title:   fmt.Sprintf("Splice %s at x = %s, %s", sh.Name, fmtM(sh.Position), s.Section.Name),
-			Section: s.Section, Geometry: sh.Result.Geometry, Position: sh.Position,
+			Section: s.Section, Geometry: sh.Result.Geometry, Position: sh.Position, Materials: &r.Bill.Splices[i].Materials,
 		})
 		if err != nil {
 			return err
 		}
 		f.Name = "splice-" + strings.ToLower(sh.Name)
-		f.Caption = fmt.Sprintf("Splice %s at x = %s: elevation and plan of the top flange, dimensions in mm", sh.Name, fmtM(sh.Position))
+		f.Caption = fmt.Sprintf("Splice %s at x = %s: elevation and plan of the top flange with its parts list, dimensions in mm", sh.Name, fmtM(sh.Position))
 		r.Figures = append(r.Figures, f)
 	}
 	return nil
@@ -196,6 +198,9 @@ func (r *Report) document(in ReportInput, pages int, toc []heading) (*pdfDoc, er
 		w.whyNoLayout()
 	} else {
 		w.layouts()
+	}
+	if w.hasBill() {
+		w.bill()
 	}
 	for i := range r.Sheets {
 		w.sheet(&r.Sheets[i])
@@ -274,6 +279,9 @@ func (w *reportWriter) sectionTitles() []string {
 	t := []string{"Job summary", "Beam and loads", "Envelopes", "The beam itself", "Limits", "Candidate positions", "Layouts"}
 	if w.in.Outcome.Infeasible != nil {
 		t[len(t)-1] = whyTitle
+	}
+	if w.hasBill() {
+		t = append(t, billTitle)
 	}
 	for _, sh := range w.r.Sheets {
 		t = append(t, sheetTitle(&sh))
@@ -838,6 +846,7 @@ func (w *reportWriter) sheet(sh *optimise.SpliceSheet) {
 			mm(r.WebGroup.Eccentricity), kNm(r.WebGroup.Moment), fixed(r.WebGroup.PolarMoment, 0),
 			kN(r.WebGroup.Corner.H), kN(r.WebGroup.Corner.V), kN(r.WebGroup.Corner.R))},
 	})
+	w.assemblies(r)
 	d.heading(1, "Summary of the checks", 80)
 	var rows [][]string
 	gov := -1
@@ -866,16 +875,125 @@ func (w *reportWriter) sheet(sh *optimise.SpliceSheet) {
 	q, cost := r.Quantities, r.Cost
 	d.heading(1, "Quantities and cost", 40)
 	d.keyValues([][2]string{
-		{"Bolts", fmt.Sprintf("%d assemblies (flanges %d, web %d), %d holes", q.Bolts, q.FlangeBolts, q.WebBolts, q.Holes)},
+		{"Bolts", fmt.Sprintf("%d assemblies (flanges %d, web %d), %s kg; %d holes", q.Bolts, q.FlangeBolts, q.WebBolts,
+			fixed(q.BoltMass, 1), q.Holes)},
 		{"Plates", fmt.Sprintf("%s kg (flanges %s, web %s); plate lengths: flange %s mm, web %s mm", fixed(q.PlateMass, 1),
 			fixed(q.FlangePlateMass, 1), fixed(q.WebPlateMass, 1), mm(q.FlangePlateLength), mm(q.WebPlateLength))},
 		{"Faying surfaces", fixed(q.FayingArea, 2) + " m²"},
 		{"Cost", fmt.Sprintf("%s %s: bolts %s, holes %s, plates %s, faying surfaces %s, per splice %s", fixed(cost.Total, 2), w.cur,
 			fixed(cost.Bolts, 2), fixed(cost.Holes, 2), fixed(cost.Plates, 2), fixed(cost.Faying, 2), fixed(cost.Splice, 2))},
 	})
+	for i := range w.r.Bill.Splices {
+		if b := &w.r.Bill.Splices[i]; b.Name == sh.Name {
+			d.heading(1, "Bill of materials", 80)
+			w.materials(b.Materials)
+		}
+	}
 	if f := w.findFigure("splice-" + strings.ToLower(sh.Name)); f != nil {
 		w.figure(f) // no heading: the drawing takes up to a whole page, its caption names it
 	}
+}
+
+// assemblies writes a sheet's bolt assemblies: for each bolt group its plies, the length
+// chosen, the thread and shank, and each shear plane with the area and αv its check uses.
+func (w *reportWriter) assemblies(r splice.Result) {
+	d := w.d
+	d.heading(1, "Bolt assemblies", 80)
+	d.small("Each group's bolt is the shortest standard length that leaves at least one thread pitch beyond the nut " +
+		"and brings the thread into the clamp (EN 1090-2 8.2.2), the head on the outer flange plate and on one web plate. " +
+		"The shear planes lie at the faces of the beam's flange and web, z from the head's bearing face; one beyond the " +
+		"guaranteed plain shank ls,min is in the thread (EN 1993-1-8 Table 3.4: A = As and the class's αv; on the shank " +
+		"A = πd²/4 and αv = 0.6).")
+	var rows, planes [][]string
+	for _, a := range r.Assemblies {
+		var plies []string
+		grip := 0.0
+		for _, p := range a.Plies {
+			plies = append(plies, fmt.Sprintf("%s %s", p.Name, mm(p.Thickness)))
+			grip += p.Thickness
+		}
+		as := a.Assembly
+		row := []string{a.Group, fmt.Sprint(a.Count), as.Designation, strings.Join(plies, " + "), mm(grip)}
+		if a.Err != nil {
+			row[2] = "no standard length: " + a.Err.Error()
+			row = append(row, "–", "–", "–", "–", "–")
+		} else {
+			row = append(row, fixed(as.ClampMax, 1)+" + "+mm(as.Data.NutM)+" + "+mm(as.Data.P)+" = "+fixed(as.RequiredLength, 1),
+				mm(as.Length), mm(as.ThreadLength), mm(as.ShankMin), fixed(as.Protrusion, 1))
+		}
+		rows = append(rows, row)
+		rule := map[splice.ShearPlaneRule]string{splice.PlanesFromLength: "from the length", splice.PlanesInThread: "thread assumed",
+			splice.PlanesOnShank: "shank assumed"}[a.Rule]
+		for _, p := range a.Planes {
+			at, area := "shank", "πd²/4"
+			if p.Threaded {
+				at, area = "thread", "As"
+			}
+			planes = append(planes, []string{a.Group, p.Name, fixed(p.Position, 1), at + " (" + rule + ")",
+				area + " = " + fixed(p.Area, 0), fixed(p.AlphaV, 2), fixed(p.FvRd*1e-3, 1)})
+		}
+	}
+	d.table(table{Columns: []column{{"bolts", 0.8, false}, {"n", 0.4, true}, {"assembly", 2.6, false},
+		{"plies, head side first [mm]", 2.2, false}, {"grip", 0.55, true}, {"Σt,max + m + P", 1.45, true}, {"l", 0.45, true},
+		{"b", 0.45, true}, {"ls,min", 0.75, true}, {"past nut", 0.8, true}}, Rows: rows})
+	d.small("n assemblies of the group in the splice; grip, lengths and the protrusion past the nut in mm: the length l " +
+		"needs Σt,max + m + P within its tolerance (EN 1090-2 8.2.2); b is the thread length, ls,min the plain shank from the head.")
+	d.table(table{Columns: []column{{"bolts", 0.8, false}, {"shear plane", 2, false}, {"z [mm]", 0.7, true}, {"on the", 1.7, false},
+		{"A [mm²]", 1, true}, {"αv", 0.5, true}, {"Fv,Rd [kN]", 0.8, true}}, Rows: planes})
+	for _, a := range r.Assemblies {
+		if n := a.Assembly.Note; n != "" {
+			d.small(fmt.Sprintf("Note (%s bolts): %s.", a.Group, n))
+		}
+	}
+	for _, s := range encode.AssemblySources(r.Assemblies) {
+		d.small("Dimensions: " + s + ".")
+	}
+}
+
+// materials writes a bill of materials as a table.
+func (w *reportWriter) materials(m splice.Materials) {
+	var rows [][]string
+	total := 0.0
+	for _, it := range m.Items {
+		size := it.Size
+		if it.Item == "plate" {
+			size = fmt.Sprintf("%s × %s × %s", mm(it.Thickness), mm(it.Width), mm(it.Length))
+		}
+		rows = append(rows, []string{it.Item, it.Part, it.Name, size, it.Grade, fmt.Sprint(it.Quantity), fixed(it.UnitMass, 3),
+			fixed(it.TotalMass(), 2)})
+		total += it.TotalMass()
+	}
+	w.d.table(table{Columns: []column{{"item", 0.7, false}, {"part", 1.2, false}, {"description", 2.5, false}, {"size [mm]", 1.3, false},
+		{"class / grade", 1, false}, {"qty", 0.55, true}, {"each [kg]", 0.8, true}, {"total [kg]", 0.8, true}}, Rows: rows})
+	s := fmt.Sprintf("%d holes drilled (every ply counted)", m.Holes)
+	if m.FayingArea > 0 {
+		s += fmt.Sprintf(", %s m² of prepared faying surface", fixed(m.FayingArea, 2))
+	}
+	w.d.small(fmt.Sprintf("%s; %s kg in all. Plates at 7850 kg/m³ (EN 1991-1-1 Table A.4); nut classes and washer hardness "+
+		"as they go with the bolt class (ISO 898-2, EN 14399-6, ISO 7089; from memory). Packing plates, where a splice has them, "+
+		"are not listed.", s, fixed(total, 1)))
+}
+
+// billTitle heads the layout's bill of materials.
+const billTitle = "Bill of materials"
+
+// hasBill reports whether the report has a bill of materials: a layout with splices.
+func (w *reportWriter) hasBill() bool {
+	return w.in.Outcome.Infeasible == nil && len(w.r.Bill.Splices) > 0
+}
+
+// bill writes the recommended layout's bill of materials: every splice's lines added up.
+func (w *reportWriter) bill() {
+	d := w.d
+	d.heading(0, billTitle, 120)
+	names := make([]string, len(w.r.Bill.Splices))
+	for i, s := range w.r.Bill.Splices {
+		names[i] = fmt.Sprintf("%s at %s", s.Name, fmtM(s.Position))
+	}
+	d.para(fmt.Sprintf("What the %s of the recommended layout (%s) take to make, identical lines added up: bolts by size, "+
+		"class and length with their nuts and washers, cover plates by thickness × width × length and grade. Each "+
+		"calculation sheet lists its splice's own; bom.csv has both.", spliceCount(len(names)), strings.Join(names, ", ")))
+	w.materials(w.r.Bill.Total)
 }
 
 func passWord(ok bool) string {
@@ -920,7 +1038,9 @@ func (w *reportWriter) closing() {
 	d.boxed("Caution", w.in.Caution)
 	d.para("References: EN 1990 (basis of design, combinations of actions, Table A1.1 ψ and Table A1.2(B) γ); " +
 		"EN 1993-1-1 (member and plate resistances, 6.2 and 6.3.1); EN 1993-1-8 (bolted connections: Tables 3.3, 3.4, " +
-		"3.2, clauses 3.6, 3.8, 3.9, 3.10.2); EN 1090-2 (hole clearances, Table 11; slip factors, Table 18); " +
+		"3.2, clauses 3.6, 3.8, 3.9, 3.10.2); EN 1090-2 (hole clearances, Table 11; slip factors, Table 18; bolt lengths, " +
+		"8.2.2); EN 14399-3, -4 and -6 (preloaded HR and HV assemblies); ISO 4014, ISO 4017, ISO 4032 and ISO 7089 " +
+		"(non-preloaded bolts, nuts and washers); ISO 898-1 (bolt stress areas); EN 1991-1-1 Table A.4 (steel density); " +
 		"EN 10365 and BS 4-1 (section dimensions); EN 10025 (steel grades). National annex values govern where they differ " +
 		"from the recommended values used here.")
 }

@@ -47,8 +47,10 @@ func TestReportStructure(t *testing.T) {
 	has := func(s string) bool { return strings.Contains(rep.Text, s) }
 	assert.True(t, has(fmt.Sprintf("page %d of %d", rep.Pages, rep.Pages)), "the last footer")
 
-	// top-level sections in order, one calculation sheet per splice of the recommended layout
-	want := []string{"Job summary", "Beam and loads", "Envelopes", "The beam itself", "Limits", "Candidate positions", "Layouts"}
+	// top-level sections in order, the layout's bill, one calculation sheet per splice of the
+	// recommended layout
+	want := []string{"Job summary", "Beam and loads", "Envelopes", "The beam itself", "Limits", "Candidate positions", "Layouts",
+		"Bill of materials"}
 	for i := range rec.Splices {
 		want = append(want, fmt.Sprintf("Calculation sheet: splice S%d at x = %s", i+1, fmtM(rec.Splices[i])))
 	}
@@ -70,7 +72,7 @@ func TestReportStructure(t *testing.T) {
 		}
 	}
 	// the contents on page 1 gives the pages the headings landed on
-	assert.True(t, has(fmt.Sprintf("8: %s: %d", want[7], pageOf(rep, want[7]))), "contents line of the first sheet")
+	assert.True(t, has(fmt.Sprintf("9: %s: %d", want[8], pageOf(rep, want[8]))), "contents line of the first sheet")
 	assert.Equal(t, 1, pageOf(rep, "Job summary"))
 	assert.LessOrEqual(t, pageOf(rep, "Caution and references"), rep.Pages)
 }
@@ -108,6 +110,16 @@ func TestReportTextHoldsTheResult(t *testing.T) {
 	assert.True(t, has("2000-01-01"))
 	assert.True(t, has("spanbreak test"))
 	assert.True(t, has(res.Setup.Zones[0].Reason))
+	// the bolt assemblies and the bills: the layout's and each splice's, and the parts lists
+	bill := res.Bill()
+	for _, it := range bill.Total.Items {
+		assert.True(t, has(it.Name), "the layout's bill lists %s", it.Name)
+	}
+	for _, a := range rep.Sheets[0].Result.Assemblies {
+		assert.True(t, has(a.Assembly.Designation), "the sheet names the %s assembly", a.Group)
+	}
+	assert.True(t, has("(from the length)"), "the planes table says how each plane was placed")
+	assert.True(t, has("Bill of materials"))
 	// the demo roof has a category H imposed load, snow and wind: the rule is named
 	assert.True(t, has("The imposed load on the roof (category H) is not combined with snow or wind (EN 1990 A1.2.1(3)"))
 }

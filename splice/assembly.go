@@ -4,6 +4,7 @@ import (
 	"errors"
 	"fmt"
 	"math"
+	"slices"
 	"strings"
 )
 
@@ -79,6 +80,10 @@ func AssemblySystems() []AssemblySystem {
 // ParseAssemblySystem reads a system name: "ISO 4014", "ISO 4017", "HR", "HV", or the bolt
 // standards "EN 14399-3" and "EN 14399-4" (case and spaces ignored).
 func ParseAssemblySystem(s string) (AssemblySystem, error) {
+	switch sys := AssemblySystem(s); sys {
+	case SystemISO4014, SystemISO4017, SystemHR, SystemHV:
+		return sys, nil
+	}
 	switch strings.ToUpper(strings.ReplaceAll(strings.TrimSpace(s), " ", "")) {
 	case "ISO4014":
 		return SystemISO4014, nil
@@ -160,7 +165,7 @@ const (
 )
 
 // ThreadLength is the thread length b of a bolt of nominal length l [mm].
-func (a AssemblyData) ThreadLength(l float64) float64 {
+func (a *AssemblyData) ThreadLength(l float64) float64 {
 	switch a.rule.thread {
 	case threadFixed:
 		return a.rule.bFixed
@@ -178,11 +183,11 @@ func (a AssemblyData) ThreadLength(l float64) float64 {
 
 // ThreadStart is lg,max = l − b, the distance from the head's bearing face to the first full
 // thread (the end of the run-out) [mm].
-func (a AssemblyData) ThreadStart(l float64) float64 { return l - a.ThreadLength(l) }
+func (a *AssemblyData) ThreadStart(l float64) float64 { return l - a.ThreadLength(l) }
 
 // ShankMin is ls,min, the guaranteed length of full-diameter plain shank from the head's
 // bearing face [mm]; a shear plane beyond it is in the thread.
-func (a AssemblyData) ShankMin(l float64) float64 {
+func (a *AssemblyData) ShankMin(l float64) float64 {
 	if a.rule.thread == threadFull {
 		return 0
 	}
@@ -192,7 +197,7 @@ func (a AssemblyData) ShankMin(l float64) float64 {
 // LengthTolerance is the lower deviation of the nominal length l, ISO 4759-1 (js15 or js17,
 // IT values of ISO 286-1) [mm]: ISO 4014/4017 product grade A (d ≤ 24 mm and l ≤ 10d or
 // 150 mm, the shorter) js15, grade B js17; EN 14399-3 and EN 14399-4 bolts js17.
-func (a AssemblyData) LengthTolerance(l float64) float64 {
+func (a *AssemblyData) LengthTolerance(l float64) float64 {
 	grade17 := true
 	if a.rule.gradeAB && a.D <= 24 && l <= min(10*a.D, 150) {
 		grade17 = false
@@ -204,27 +209,39 @@ func (a AssemblyData) LengthTolerance(l float64) float64 {
 // (from memory; the IT17 steps from 30 to 120 mm agree with the EN 14399-4 length table).
 // Beyond 500 mm, longer than any bolt here, the last step is kept.
 func itHalf(l float64, it17 bool) float64 {
-	steps := []struct{ upTo, it15, it17 float64 }{
-		{18, 0.70, 1.8}, {30, 0.84, 2.1}, {50, 1.00, 2.5}, {80, 1.20, 3.0}, {120, 1.40, 3.5},
-		{180, 1.60, 4.0}, {250, 1.85, 4.6}, {315, 2.10, 5.2}, {400, 2.30, 5.7}, {500, 2.50, 6.3},
-	}
-	step := steps[len(steps)-1]
-	for _, s := range steps {
-		if l <= s.upTo {
-			step = s
-			break
-		}
+	var it15, itB float64 // IT15, IT17 of the nominal size step
+	switch {
+	case l <= 18:
+		it15, itB = 0.70, 1.8
+	case l <= 30:
+		it15, itB = 0.84, 2.1
+	case l <= 50:
+		it15, itB = 1.00, 2.5
+	case l <= 80:
+		it15, itB = 1.20, 3.0
+	case l <= 120:
+		it15, itB = 1.40, 3.5
+	case l <= 180:
+		it15, itB = 1.60, 4.0
+	case l <= 250:
+		it15, itB = 1.85, 4.6
+	case l <= 315:
+		it15, itB = 2.10, 5.2
+	case l <= 400:
+		it15, itB = 2.30, 5.7
+	default:
+		it15, itB = 2.50, 6.3
 	}
 	if it17 {
-		return step.it17 / 2
+		return itB / 2
 	}
-	return step.it15 / 2
+	return it15 / 2
 }
 
 // ClampRange is the range of clamp length Σt (plies plus washers) a bolt of nominal length l
 // admits under EN 1090-2 8.2.2 (see the rules above) [mm]: lo = lg,max + n·P (n = 1
 // non-preloaded, 4 HR, 0 HV, derived), hi = l − tolerance − m − P.
-func (a AssemblyData) ClampRange(l float64) (lo, hi float64) {
+func (a *AssemblyData) ClampRange(l float64) (lo, hi float64) {
 	start := a.ThreadStart(l)
 	return start + a.rule.clearThreads*a.P, l - a.LengthTolerance(l) - a.NutM - a.P
 }
@@ -262,8 +279,8 @@ type Assembly struct {
 	AdmitMax       float64 //
 	Protrusion     float64 // l − Σt − m, nominal
 	Planes         []ShearPlane
-	// ThreadsInShearPlanes is true when any plane is in the thread: the value for
-	// Bolt.ThreadsInShearPlane. False with no shear plane (a single ply).
+	// ThreadsInShearPlanes is true when any plane is in the thread. False with no shear
+	// plane (a single ply).
 	ThreadsInShearPlanes bool
 	Parts                []AssemblyPart
 	Mass                 float64 // bolt + nut + washers [kg]
@@ -304,6 +321,53 @@ func (e *AssemblyLengthError) Error() string {
 
 // LookupAssemblyData returns the dimensions of a size ("M20") in a system.
 func LookupAssemblyData(system AssemblySystem, size string) (AssemblyData, error) {
+	d, err := tableAssemblyData(system, size)
+	if err != nil {
+		return AssemblyData{}, err
+	}
+	out := *d
+	out.Lengths = slices.Clone(d.Lengths)
+	return out, nil
+}
+
+// assemblyTable holds the dimensions of every system and size, built once at initialisation
+// and, like checkTable, read only: nothing writes to it afterwards, and the searches point
+// into it instead of building the dimensions for every position.
+var assemblyTable = buildAssemblyTable()
+
+type assemblyKey struct {
+	system AssemblySystem
+	size   string
+}
+
+func buildAssemblyTable() map[assemblyKey]*AssemblyData {
+	t := map[assemblyKey]*AssemblyData{}
+	for _, sys := range AssemblySystems() {
+		for _, size := range boltSizeNames() {
+			d, err := assemblyDataOf(sys, size)
+			if err != nil {
+				panic("splice: assembly dimensions: " + err.Error())
+			}
+			t[assemblyKey{sys, size}] = &d
+		}
+	}
+	return t
+}
+
+// tableAssemblyData is the table's entry of a system and size; it must not be changed.
+func tableAssemblyData(system AssemblySystem, size string) (*AssemblyData, error) {
+	bs, err := LookupBoltSize(size)
+	if err != nil {
+		return nil, err
+	}
+	if d, ok := assemblyTable[assemblyKey{system, bs.Name}]; ok {
+		return d, nil
+	}
+	return nil, fmt.Errorf("bolting assembly %q is not known (known: ISO 4014, ISO 4017, HR, HV)", system)
+}
+
+// assemblyDataOf computes the dimensions of a size in a system.
+func assemblyDataOf(system AssemblySystem, size string) (AssemblyData, error) {
 	bs, err := LookupBoltSize(size)
 	if err != nil {
 		return AssemblyData{}, err
@@ -411,7 +475,7 @@ func assemblyRow(size string) (assemblyDims, bool) {
 // isoSeries is the ISO 4014/4017 length series (5 mm steps to 70, 10 mm to 160, 20 mm to
 // 500) from lo to hi.
 func isoSeries(lo, hi float64) []float64 {
-	var out []float64
+	out := make([]float64, 0, 40)
 	for l := 20.0; l <= min(hi, 500); {
 		if l >= lo {
 			out = append(out, l)
@@ -431,7 +495,7 @@ func isoSeries(lo, hi float64) []float64 {
 // hrSeries is the HR length series as recalled (5 mm steps to 80, 10 mm to 200, 20 mm
 // beyond), from lo to hi.
 func hrSeries(lo, hi float64) []float64 {
-	var out []float64
+	out := make([]float64, 0, 40)
 	for l := 30.0; l <= hi; {
 		if l >= lo {
 			out = append(out, l)
@@ -449,7 +513,7 @@ func hrSeries(lo, hi float64) []float64 {
 }
 
 func stepSeries(lo, hi, step float64) []float64 {
-	var out []float64
+	out := make([]float64, 0, int((hi-lo)/step)+1)
 	for l := lo; l <= hi+1e-9; l += step {
 		out = append(out, l)
 	}
@@ -467,17 +531,124 @@ func SelectAssembly(spec AssemblySpec) (Assembly, error) {
 	if err != nil {
 		return Assembly{}, err
 	}
-	a, err := selectIn(r)
-	var le *AssemblyLengthError
-	if err != nil && errors.As(err, &le) && !le.TooLong && r.System == SystemISO4014 && r.autoSystem {
-		full := r
-		full.System = SystemISO4017
-		if b, ferr := selectIn(full); ferr == nil {
-			b.Note = "grip too short for a partly threaded ISO 4014 bolt of the series: fully threaded ISO 4017 used"
-			return b, nil
+	c, err := newAssemblyChooser(r)
+	if err != nil {
+		return Assembly{}, err
+	}
+	return c.assembly(r.Plies)
+}
+
+// assemblyChooser selects lengths for one resolved size, class, system and washer placement,
+// for any plies: the product data are looked up once.
+type assemblyChooser struct {
+	spec   resolvedSpec
+	data   *AssemblyData // in assemblyTable, as full
+	full   *AssemblyData // ISO 4017, for a grip too short for a defaulted ISO 4014 bolt
+	nh, nn int           // washers under the head and under the nut
+}
+
+func newAssemblyChooser(r resolvedSpec) (assemblyChooser, error) {
+	c := assemblyChooser{spec: r}
+	var err error
+	if c.data, err = tableAssemblyData(r.System, r.Size); err != nil {
+		return c, err
+	}
+	if r.System == SystemISO4014 && r.autoSystem {
+		if c.full, err = tableAssemblyData(SystemISO4017, r.Size); err != nil {
+			return c, err
 		}
 	}
-	return a, err
+	c.nh, c.nn = washerCounts(r.Washers)
+	return c, nil
+}
+
+// lengthFit is the outcome of the length selection for one grip.
+type lengthFit struct {
+	data               *AssemblyData // the system chosen (the ISO 4017 fall-back included)
+	grip               float64       // Σ plies
+	clamp, cMin, cMax  float64       // Σt with nominal, thinnest and thickest washers
+	length             float64       // chosen nominal length; when !ok, the one the check reports
+	lo, hi             float64       // its admissible clamp range, ClampRange(length)
+	ok, tooLong, isAlt bool          // isAlt: the ISO 4017 fall-back was taken
+}
+
+// fit chooses the length for a grip (Σ plies) in the chooser's system, or in ISO 4017 where
+// SelectAssembly falls back to it. When no length fits, length is the one a reader is shown:
+// the longest of the series when the protrusion needs more, otherwise the shortest whose
+// protrusion suffices (its thread does not reach the clamp) — of the fully threaded form
+// where the partly threaded one falls back to it.
+func (c *assemblyChooser) fit(grip float64) lengthFit {
+	f := c.fitIn(c.data, grip)
+	if !f.ok && !f.tooLong && c.full != nil {
+		g := c.fitIn(c.full, grip)
+		g.isAlt = true
+		if g.ok || !g.tooLong {
+			return g
+		}
+	}
+	return f
+}
+
+func (c *assemblyChooser) fitIn(data *AssemblyData, grip float64) lengthFit {
+	n := float64(c.nh + c.nn)
+	f := lengthFit{data: data, grip: grip, clamp: grip + n*data.WasherH, cMin: grip + n*data.WasherHMin, cMax: grip + n*data.WasherHMax}
+	const eps = 1e-9
+	protrusionOK := false
+	// hi grows with l along every series (TestAssemblyClampRangeGrows), so the lengths too short
+	// for the protrusion are skipped at once
+	first, _ := slices.BinarySearchFunc(data.Lengths, f.cMax, func(l, cMax float64) int {
+		if _, hi := data.ClampRange(l); cMax > hi+eps {
+			return -1
+		}
+		return 1
+	})
+	for _, l := range data.Lengths[first:] {
+		lo, hi := data.ClampRange(l)
+		if f.cMax > hi+eps {
+			continue
+		}
+		if !protrusionOK {
+			protrusionOK = true
+			f.length, f.lo, f.hi = l, lo, hi // reported if none fits
+		}
+		if f.cMin >= lo-eps {
+			f.length, f.lo, f.hi, f.ok = l, lo, hi, true
+			return f
+		}
+	}
+	if !protrusionOK {
+		l := data.Lengths[len(data.Lengths)-1]
+		f.length, f.tooLong = l, true
+		f.lo, f.hi = data.ClampRange(l)
+	}
+	return f
+}
+
+// requiredLength is Σt,max + m + P, the least actual length the protrusion rule needs [mm].
+func (f *lengthFit) requiredLength() float64 { return f.cMax + f.data.NutM + f.data.P }
+
+// lengthError is the *AssemblyLengthError of a fit that failed.
+func (f *lengthFit) lengthError() error {
+	d := f.data
+	return &AssemblyLengthError{System: d.System, Size: d.Size, Grip: f.grip, Clamp: f.cMax,
+		TooLong: f.tooLong, Shortest: d.Lengths[0], Longest: d.Lengths[len(d.Lengths)-1]}
+}
+
+// assembly selects the assembly for the plies (head side first).
+func (c *assemblyChooser) assembly(plies []float64) (Assembly, error) {
+	grip := 0.0
+	for _, t := range plies {
+		grip += t
+	}
+	f := c.fit(grip)
+	if !f.ok {
+		return Assembly{}, f.lengthError()
+	}
+	a := c.build(&f, plies)
+	if f.isAlt {
+		a.Note = "grip too short for a partly threaded ISO 4014 bolt of the series: fully threaded ISO 4017 used"
+	}
+	return a, nil
 }
 
 // resolvedSpec is a validated spec; autoSystem records that the system was defaulted.
@@ -487,9 +658,26 @@ type resolvedSpec struct {
 }
 
 func resolveAssemblySpec(spec AssemblySpec) (resolvedSpec, error) {
+	r, err := resolveBoltSystem(spec)
+	errs := []error{err}
+	r.Plies = append([]float64(nil), spec.Plies...)
+	if len(spec.Plies) == 0 {
+		errs = append(errs, errors.New("plies: at least one ply thickness is needed"))
+	}
+	for i, t := range spec.Plies {
+		if !(t > 0) || math.IsInf(t, 0) {
+			errs = append(errs, fmt.Errorf("plies[%d]: %g mm must be more than 0", i, t))
+		}
+	}
+	return r, errors.Join(errs...)
+}
+
+// resolveBoltSystem validates and completes everything of a spec but its plies: size, class,
+// system and washers.
+func resolveBoltSystem(spec AssemblySpec) (resolvedSpec, error) {
 	var errs []error
 	r := resolvedSpec{AssemblySpec: spec}
-	r.Plies = append([]float64(nil), spec.Plies...)
+	r.Plies = nil
 	bs, err := LookupBoltSize(spec.Size)
 	if err != nil {
 		errs = append(errs, fmt.Errorf("size: %w", err))
@@ -501,14 +689,6 @@ func resolveAssemblySpec(spec AssemblySpec) (resolvedSpec, error) {
 		errs = append(errs, fmt.Errorf("class: %w", classErr))
 	} else {
 		r.Class = class.Name
-	}
-	if len(spec.Plies) == 0 {
-		errs = append(errs, errors.New("plies: at least one ply thickness is needed"))
-	}
-	for i, t := range spec.Plies {
-		if !(t > 0) || math.IsInf(t, 0) {
-			errs = append(errs, fmt.Errorf("plies[%d]: %g mm must be more than 0", i, t))
-		}
 	}
 	if classErr == nil {
 		if r.System == "" {
@@ -522,10 +702,14 @@ func resolveAssemblySpec(spec AssemblySpec) (resolvedSpec, error) {
 				r.System = SystemHR
 			}
 		}
-		if _, perr := ParseAssemblySystem(string(r.System)); perr != nil {
+		sys, perr := ParseAssemblySystem(string(r.System))
+		if perr != nil {
 			errs = append(errs, fmt.Errorf("system: %w", perr))
-		} else if verr := checkSystemClass(r.System, spec.Preloaded, class); verr != nil {
-			errs = append(errs, verr)
+		} else {
+			r.System = sys
+			if verr := checkSystemClass(r.System, spec.Preloaded, class); verr != nil {
+				errs = append(errs, verr)
+			}
 		}
 	}
 	switch spec.Washers {
@@ -574,39 +758,17 @@ func washerCounts(w WasherPlacement) (head, nut int) {
 	return 0, 0
 }
 
-func selectIn(spec resolvedSpec) (Assembly, error) {
-	data, err := LookupAssemblyData(spec.System, spec.Size)
-	if err != nil {
-		return Assembly{}, err
-	}
-	nh, nn := washerCounts(spec.Washers)
-	n := float64(nh + nn)
-	grip := 0.0
-	for _, t := range spec.Plies {
-		grip += t
-	}
+// build completes the assembly of a fit that succeeded.
+func (c *assemblyChooser) build(f *lengthFit, plies []float64) Assembly {
+	data := *f.data
+	data.Lengths = slices.Clone(data.Lengths)
+	nh, nn := c.nh, c.nn
+	spec := c.spec.AssemblySpec
+	spec.System = data.System
 	a := Assembly{
-		Spec: spec.AssemblySpec, Data: data, HeadWashers: nh, NutWashers: nn, Grip: grip,
-		Clamp: grip + n*data.WasherH, ClampMin: grip + n*data.WasherHMin, ClampMax: grip + n*data.WasherHMax,
-	}
-	a.RequiredLength = a.ClampMax + data.NutM + data.P
-	const eps = 1e-9
-	found, protrusionOK := false, false
-	for _, l := range data.Lengths {
-		lo, hi := data.ClampRange(l)
-		if a.ClampMax > hi+eps {
-			continue
-		}
-		protrusionOK = true
-		if a.ClampMin >= lo-eps {
-			a.Length, a.AdmitMin, a.AdmitMax = l, lo, hi
-			found = true
-			break
-		}
-	}
-	if !found {
-		return Assembly{}, &AssemblyLengthError{System: data.System, Size: data.Size, Grip: grip, Clamp: a.ClampMax,
-			TooLong: !protrusionOK, Shortest: data.Lengths[0], Longest: data.Lengths[len(data.Lengths)-1]}
+		Spec: spec, Data: data, HeadWashers: nh, NutWashers: nn, Grip: f.grip,
+		Clamp: f.clamp, ClampMin: f.cMin, ClampMax: f.cMax, RequiredLength: f.requiredLength(),
+		Length: f.length, AdmitMin: f.lo, AdmitMax: f.hi,
 	}
 	l := a.Length
 	a.ThreadLength = min(data.ThreadLength(l), l)
@@ -614,13 +776,13 @@ func selectIn(spec resolvedSpec) (Assembly, error) {
 	a.ShankMin = data.ShankMin(l)
 	a.Protrusion = l - a.Clamp - data.NutM
 	z := float64(nh) * data.WasherHMax
-	for _, t := range spec.Plies[:len(spec.Plies)-1] {
+	for _, t := range plies[:len(plies)-1] {
 		z += t
 		p := ShearPlane{Position: z, Threaded: a.ThreadsAt(z)}
 		a.Planes = append(a.Planes, p)
 		a.ThreadsInShearPlanes = a.ThreadsInShearPlanes || p.Threaded
 	}
-	bolt, nut, washer := assemblyMasses(data, l)
+	bolt, nut, washer := assemblyMasses(&data, l)
 	a.Parts = []AssemblyPart{{Item: "bolt", Standard: data.BoltStandard, Count: 1, Mass: bolt},
 		{Item: "nut", Standard: data.NutStandard, Count: 1, Mass: nut}}
 	if nh+nn > 0 {
@@ -628,18 +790,13 @@ func selectIn(spec resolvedSpec) (Assembly, error) {
 	}
 	a.Mass = bolt + nut + float64(nh+nn)*washer
 	a.Designation = designation(a)
-	return a, nil
+	return a
 }
 
 func designation(a Assembly) string {
 	d := a.Data
 	var b strings.Builder
-	fmt.Fprintf(&b, "%s×%s", d.Size, mm(a.Length))
-	if d.System.Preloaded() {
-		fmt.Fprintf(&b, " %s %s (%s)", d.System, a.Spec.Class, d.BoltStandard)
-	} else {
-		fmt.Fprintf(&b, " %s %s", d.BoltStandard, a.Spec.Class)
-	}
+	b.WriteString(boltDesignation(a))
 	fmt.Fprintf(&b, ", nut %s", d.NutStandard)
 	switch w := a.HeadWashers + a.NutWashers; w {
 	case 0:
@@ -652,9 +809,18 @@ func designation(a Assembly) string {
 	return b.String()
 }
 
+// boltDesignation names the bolt of an assembly: "M20×80 HV 10.9 (EN 14399-4)", "M20×60 ISO 4017 8.8".
+func boltDesignation(a Assembly) string {
+	d := a.Data
+	if d.System.Preloaded() {
+		return fmt.Sprintf("%s×%s %s %s (%s)", d.Size, mm(a.Length), d.System, a.Spec.Class, d.BoltStandard)
+	}
+	return fmt.Sprintf("%s×%s %s %s", d.Size, mm(a.Length), d.BoltStandard, a.Spec.Class)
+}
+
 // assemblyMasses are the masses of one bolt of length l, one nut and one washer [kg] (see the
 // simplifications at the top of this file).
-func assemblyMasses(d AssemblyData, l float64) (bolt, nut, washer float64) {
+func assemblyMasses(d *AssemblyData, l float64) (bolt, nut, washer float64) {
 	hex := func(s float64) float64 { return math.Sqrt(3) / 2 * s * s }
 	circle := func(dia float64) float64 { return math.Pi * dia * dia / 4 }
 	d2 := d.D - 0.649519*d.P

@@ -102,7 +102,7 @@ func TestRandomGeometriesNeverPanic(t *testing.T) {
 	cats := []Category{CategoryA, CategoryB, CategoryC, "Z"}
 	for i := 0; i < 3000; i++ {
 		g := Geometry{
-			Bolt:     Bolt{Size: sizes[rng.Intn(len(sizes))], Class: classes[rng.Intn(len(classes))], ThreadsInShearPlane: rng.Intn(2) == 0},
+			Bolt:     Bolt{Size: sizes[rng.Intn(len(sizes))], Class: classes[rng.Intn(len(classes))], ShearPlanes: []ShearPlaneRule{PlanesFromLength, PlanesInThread, PlanesOnShank, "x"}[rng.Intn(4)]},
 			Category: cats[rng.Intn(len(cats))], FrictionClass: FrictionClass([]string{"A", "B", "D", ""}[rng.Intn(4)]),
 			Holes: []HoleType{NormalHoles, OversizeHoles, ""}[rng.Intn(3)], Gap: pick(-5, 0, 10, 30),
 			Flange: FlangeSplice{

@@ -135,10 +135,10 @@ func (c *Catalogue) Len() int {
 	return n
 }
 
-// Bolt returns the bolt of a bolt index (threads in the shear planes as the sizing assumes).
+// Bolt returns the bolt of a bolt index, with the sizing's shear-plane rule and system.
 func (c *Catalogue) Bolt(bolt int) Bolt {
 	b := &c.s.bolts[bolt]
-	return Bolt{Size: b.size.Name, Class: b.class.Name, ThreadsInShearPlane: b.threads}
+	return Bolt{Size: b.size.Name, Class: b.class.Name, ShearPlanes: b.rule, System: b.system}
 }
 
 // Order returns a splice's place in the sizing's order.
@@ -178,6 +178,19 @@ func (c *Catalogue) FlangePart(bolt, f int) (FlangeSplice, int, float64) {
 func (c *Catalogue) WebPart(bolt, w int) (WebSplice, int, float64) {
 	q := webQty(&c.bolts[bolt].webs[w], c.s.e.gap)
 	return c.bolts[bolt].wgeo[w], q.bolts, q.mass
+}
+
+// FlangeBoltMass returns the mass of a flange part's bolt assemblies, both flanges, both sides
+// of the joint [kg]: the assembly chosen for its plies, as Entry's Quantities.FlangeBoltMass.
+func (c *Catalogue) FlangeBoltMass(bolt, f int) float64 {
+	q := flangeQty(&c.bolts[bolt].flanges[f], c.s.e.gap)
+	return float64(q.bolts) * q.boltMass
+}
+
+// WebBoltMass returns the mass of a web part's bolt assemblies, both sides [kg].
+func (c *Catalogue) WebBoltMass(bolt, w int) float64 {
+	q := webQty(&c.bolts[bolt].webs[w], c.s.e.gap)
+	return float64(q.bolts) * q.boltMass
 }
 
 // Entry returns a whole splice's geometry, quantities and cost.

@@ -13,6 +13,7 @@ const (
 	IDSpacing           = "detail.spacing"            // EN 1993-1-8 Table 3.3
 	IDFit               = "detail.fit"                // added: plates within the section, nuts clear of the fillets
 	IDPreload           = "detail.preload"            // added: categories B and C need class 8.8 or 10.9
+	IDBoltLength        = "detail.bolt.length"        // added: a standard bolt length fits each group's grip (EN 1090-2 8.2.2)
 	IDFlangeBoltShear   = "flange.bolt.shear"         // Table 3.4 with 3.8 and 3.6.1(12)
 	IDFlangeBearingBeam = "flange.bolt.bearing.beam"  // Table 3.4, beam flange
 	IDFlangeBearingPl   = "flange.bolt.bearing.plate" // Table 3.4, flange cover plates

@@ -18,7 +18,7 @@ import (
 
 func workedGeometry() Geometry {
 	return Geometry{
-		Bolt:     Bolt{Size: "M20", Class: "10.9", ThreadsInShearPlane: true},
+		Bolt:     Bolt{Size: "M20", Class: "10.9", ShearPlanes: PlanesInThread},
 		Category: CategoryB, FrictionClass: "A", Holes: NormalHoles, Gap: 10,
 		Flange: FlangeSplice{Outer: Plate{Thickness: 15, Width: 200}, Inner: Plate{Thickness: 15, Width: 65},
 			Columns: 2, Rows: 3, Gauge: 130, Pitch: 80, End: 70},
@@ -120,6 +120,11 @@ func TestWorkedSpliceEveryCheck(t *testing.T) {
 		{IDPreload, 800, 1000, StateDetailing},
 		{IDSpacing, 26.4, 30, StateDetailing}, // worst rule: inner plate e2 = 30 ≥ 1.2 d0 = 26.4
 		{IDFit, 200, 200, StateDetailing},     // outer plate width = flange width
+		// HV M20 (EN 14399-4): flange grip 15 + 16 + 15 = 46 with two EN 14399-6 washers at
+		// h max 4.3: Σt,max + m + P = 54.6 + 16 + 2.5 = 73.1 mm (m from memory); l = 75 has
+		// the least length 75 − IT17/2 = 73.5 mm (EN 14399-4 Table 1, js17). The web's
+		// 10 + 10.2 + 10 needs 57.3 of l = 60 (least 58.5), a looser fit.
+		{IDBoltLength, 54.6 + 16 + 2.5, 75 - 1.5, StateDetailing},
 		// each shear plane carries the share of the plate on its side; the outer plate's
 		// Ao/ΣA = 3000/4950 = 0.606 is the larger: Fv,Rd/0.606 = 98.0/0.606 = 161.7 kN
 		{IDFlangeBoltShear, fc / n / 1e3, 0.5 * 1000 * 245 / 1.25 / (ao / sa) / 1e3, StateULS},

@@ -43,7 +43,7 @@ func TestFlangeBoltPlanesCarryTheirPlatesShare(t *testing.T) {
 	// Demand per bolt is Ff,Ed/n; the outer plane then carries s·Ff,Ed/n ≤ Fv,Rd, so
 	// utilisation = s·(Ff,Ed/n)/Fv,Rd.
 	assert.InEpsilon(t, s*shear.Demand/(fv/1e3), shear.Utilisation, 1e-9)
-	assert.Contains(t, shear.Formula, "larger share")
+	assert.Contains(t, shear.Formula, "s_i = the share of Ff,Ed through plane i")
 
 	// Slip (category B, SLS): Fs,Rd = ks·μ·Fp,C/γM3,ser = 1 × 0.5 × 0.7 × 1000 × 245 / 1.1 =
 	// 77.95 kN per surface; the outer surface governs.
@@ -154,7 +154,7 @@ func TestWebPlatesOversizeCompression(t *testing.T) {
 	p.Member = member(t, "IPE 600", steelS355())
 	p.PlateSteel = Steel{Name: "S235", Strength: func(t float64) (float64, float64, error) { return 235, 360, nil }}
 	g := workedGeometry()
-	g.Bolt = Bolt{Size: "M16", Class: "8.8", ThreadsInShearPlane: true}
+	g.Bolt = Bolt{Size: "M16", Class: "8.8", ShearPlanes: PlanesInThread}
 	g.Category = CategoryA
 	g.Holes = OversizeHoles
 	g.Web.Rows, g.Web.Pitch, g.Web.Depth = 2, 100, 500

@@ -18,6 +18,10 @@ type Rates struct {
 	Hole            float64            // per hole drilled, counted in every ply
 	FayingPerM2     float64            // per m² of prepared faying surface, categories B and C only
 	Splice          float64            // fixed per splice (handling, marking, assembly)
+	// AssemblyPerKg prices the bolt assemblies by their length: per kg of assembly (bolt, nut
+	// and washers of the length chosen for each group), added to the Bolt rate before the
+	// class factor. 0 (the default) prices assemblies by size and class alone.
+	AssemblyPerKg float64
 }
 
 // DefaultRates returns invented, indicative rates for ranking only; they are not market prices
@@ -64,6 +68,7 @@ func (r Rates) validate() error {
 	neg("hole", r.Hole)
 	neg("faying_per_m2", r.FayingPerM2)
 	neg("splice", r.Splice)
+	neg("assembly_per_kg", r.AssemblyPerKg)
 	return errors.Join(errs...)
 }
 
@@ -82,18 +87,19 @@ func sortedKeys(m map[string]float64) []string {
 	return slices.Sorted(maps.Keys(m))
 }
 
-// boltRate is the rate of one assembly of a size and class.
-func (r Rates) boltRate(size, class string) (float64, error) {
+// boltRate is the rate of one assembly of a size and class, and the rate per kg of assembly
+// with the class factor applied.
+func (r Rates) boltRate(size, class string) (perAssembly, perKg float64, err error) {
 	v, ok := r.Bolt[size]
 	if !ok {
 		have := slices.Sorted(maps.Keys(r.Bolt))
-		return 0, fmt.Errorf("costs.bolt: no rate for %s (rates given for %s)", size, strings.Join(have, ", "))
+		return 0, 0, fmt.Errorf("costs.bolt: no rate for %s (rates given for %s)", size, strings.Join(have, ", "))
 	}
 	f, ok := r.BoltClassFactor[class]
 	if !ok {
 		f = 1
 	}
-	return v * f, nil
+	return v * f, r.AssemblyPerKg * f, nil
 }
 
 // Quantities are what a splice takes to make: both flange splices, the web splice, both sides.
@@ -101,6 +107,9 @@ type Quantities struct {
 	Bolts             int     // bolt assemblies
 	FlangeBolts       int     //
 	WebBolts          int     //
+	BoltMass          float64 // bolt assemblies (bolt, nut, washers of the lengths chosen) [kg]
+	FlangeBoltMass    float64 // [kg]
+	WebBoltMass       float64 // [kg]
 	Holes             int     // holes drilled, every ply counted (beam and plates)
 	PlateMass         float64 // cover plates [kg]
 	FlangePlateMass   float64 // [kg]
@@ -119,6 +128,7 @@ type Cost struct {
 type partQty struct {
 	bolts, holes int
 	mass, faying float64 // kg, m²
+	boltMass     float64 // one assembly [kg]
 }
 
 func flangeQty(l *flangeLayout, gap float64) partQty {
@@ -132,21 +142,32 @@ func flangeQty(l *flangeLayout, gap float64) partQty {
 		vol += 2 * l.bi * l.ti
 	}
 	return partQty{
-		bolts:  bolts,
-		holes:  bolts * plies,
-		mass:   2 * vol * l.length * steelDensity,
-		faying: 2 * 2 * width * (l.length - gap) * 1e-6,
+		bolts:    bolts,
+		holes:    bolts * plies,
+		mass:     2 * vol * l.length * steelDensity,
+		faying:   2 * 2 * width * (l.length - gap) * 1e-6,
+		boltMass: l.fit.boltMass(),
 	}
 }
 
 func webQty(l *webLayout, gap float64) partQty {
 	bolts := 2 * l.rows * l.cols
 	return partQty{
-		bolts:  bolts,
-		holes:  3 * bolts,
-		mass:   2 * l.hp * l.tp * l.length * steelDensity,
-		faying: 2 * 2 * l.hp * (l.length - gap) * 1e-6,
+		bolts:    bolts,
+		holes:    3 * bolts,
+		mass:     2 * l.hp * l.tp * l.length * steelDensity,
+		faying:   2 * 2 * l.hp * (l.length - gap) * 1e-6,
+		boltMass: l.fit.boltMass(),
 	}
+}
+
+// boltMass is one assembly's mass [kg]; a layout without its assembly (a sizing bound that does
+// not price by mass, size.go) weighs nothing.
+func (g *groupFit) boltMass() float64 {
+	if g == nil {
+		return 0
+	}
+	return g.mass
 }
 
 // micro is one millionth of a currency unit: costs are summed in whole micro-units so that a sum
@@ -156,6 +177,7 @@ const micro = 1e6
 // unitRates are the rates in micro-units for one bolt.
 type unitRates struct {
 	bolt, hole    int64
+	boltPerKg     float64 // per kg of assembly (rounded per assembly)
 	plate, faying float64 // per kg, per m² (rounded per part)
 	splice        int64
 	preloaded     bool
@@ -185,8 +207,14 @@ func (s score) cmp(o score) int {
 	return cmp.Compare(s.mass, o.mass)
 }
 
+// byMass reports whether the price of an assembly depends on its mass (its length).
+func (u *unitRates) byMass() bool { return u.boltPerKg != 0 }
+
+// boltCost is the cost of one assembly of a part [micro-units].
+func (u *unitRates) boltCost(q partQty) int64 { return u.bolt + toMicro(u.boltPerKg*q.boltMass) }
+
 func (u *unitRates) score(q partQty) score {
-	c := u.bolt*int64(q.bolts) + u.hole*int64(q.holes) + toMicro(u.plate*q.mass)
+	c := u.boltCost(q)*int64(q.bolts) + u.hole*int64(q.holes) + toMicro(u.plate*q.mass)
 	if u.preloaded {
 		c += toMicro(u.faying * q.faying)
 	}
@@ -197,16 +225,18 @@ func (u *unitRates) score(q partQty) score {
 func costOf(u *unitRates, fq, wq partQty) (Quantities, Cost) {
 	q := Quantities{
 		Bolts: fq.bolts + wq.bolts, FlangeBolts: fq.bolts, WebBolts: wq.bolts,
+		FlangeBoltMass: float64(fq.bolts) * fq.boltMass, WebBoltMass: float64(wq.bolts) * wq.boltMass,
 		Holes:     fq.holes + wq.holes,
 		PlateMass: fq.mass + wq.mass, FlangePlateMass: fq.mass, WebPlateMass: wq.mass,
 		FayingArea: fq.faying + wq.faying,
 	}
 	c := Cost{
-		Bolts:  float64(u.bolt*int64(q.Bolts)) / micro,
+		Bolts:  float64(u.boltCost(fq)*int64(fq.bolts)+u.boltCost(wq)*int64(wq.bolts)) / micro,
 		Holes:  float64(u.hole*int64(q.Holes)) / micro,
 		Plates: float64(toMicro(u.plate*fq.mass)+toMicro(u.plate*wq.mass)) / micro,
 		Splice: float64(u.splice) / micro,
 	}
+	q.BoltMass = q.FlangeBoltMass + q.WebBoltMass
 	if u.preloaded {
 		c.Faying = float64(toMicro(u.faying*fq.faying)+toMicro(u.faying*wq.faying)) / micro
 	}

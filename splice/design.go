@@ -32,10 +32,14 @@ type Sizing struct {
 	FrictionClass FrictionClass // categories B and C
 	Holes         HoleType      // "" means normal
 	Gap           float64       // between the beam ends [mm]
-	// ShankInShearPlanes puts the shear planes through the unthreaded shank; the default
-	// (false) assumes threads in every plane, which is conservative.
-	ShankInShearPlanes bool
-	Space              DesignSpace
+	// ShearPlanes is where the shear checks take the bolts' shear planes: from the length
+	// chosen for each bolt group (PlanesFromLength, the default), or the thread or the shank
+	// in every plane (ShearPlaneRule).
+	ShearPlanes ShearPlaneRule
+	// System is the bolting assembly system of every bolt; "" takes the default of the
+	// category and class (see Bolt.System).
+	System AssemblySystem
+	Space  DesignSpace
 }
 
 // Status says what a Result is.
@@ -82,8 +86,11 @@ type Result struct {
 	WebGroup    WebGroup
 	Quantities  Quantities
 	Cost        Cost
-	Notes       []string
-	Evaluated   int // configurations the search evaluated (sizing only)
+	// Assemblies are the bolting assemblies of the flange and the web bolt groups, in that
+	// order (nil when Problem.Brief; the bolt masses are in Quantities all the same).
+	Assemblies []GroupAssembly
+	Notes      []string
+	Evaluated  int // configurations the search evaluated (sizing only)
 }
 
 // contribution is what a check adds to the splice's utilisation: detailing checks count only
@@ -177,6 +184,10 @@ func assemble(v *evaluator, e *env, b *boltData, fl *flangeLayout, wl *webLayout
 	fq, wq := flangeQty(fl, e.gap), webQty(wl, e.gap)
 	r.Quantities, r.Cost = costOf(u, fq, wq)
 	r.Quantities.FlangePlateLength, r.Quantities.WebPlateLength = fl.length, wl.length
+	if full {
+		fs, ws := e.flangeStack(fl), e.webStack(wl)
+		r.Assemblies = []GroupAssembly{groupAssembly(b, &fs, fl.fit, fq.bolts), groupAssembly(b, &ws, wl.fit, wq.bolts)}
+	}
 	r.Notes = e.notes(fl, wl)
 	return r
 }
@@ -207,11 +218,11 @@ func (p *Problem) validate() error {
 }
 
 func unitRatesOf(r *Rates, b *boltData, cat Category) (unitRates, error) {
-	br, err := r.boltRate(b.size.Name, b.class.Name)
+	br, perKg, err := r.boltRate(b.size.Name, b.class.Name)
 	if err != nil {
 		return unitRates{}, err
 	}
-	return unitRates{bolt: toMicro(br), hole: toMicro(r.Hole), plate: r.PlatePerKg, faying: r.FayingPerM2,
+	return unitRates{bolt: toMicro(br), boltPerKg: perKg, hole: toMicro(r.Hole), plate: r.PlatePerKg, faying: r.FayingPerM2,
 		splice: toMicro(r.Splice), preloaded: cat.Preloaded()}, nil
 }
 
@@ -258,7 +269,17 @@ func Verify(p Problem, g Geometry) (Result, error) {
 	if err != nil {
 		return Result{}, err
 	}
-	b := newBoltData(e, size, class, g.Bolt.ThreadsInShearPlane)
+	rule, err := ParseShearPlaneRule(string(g.Bolt.ShearPlanes))
+	if err != nil {
+		return Result{}, fmt.Errorf("bolt.shear_planes: %w", err)
+	}
+	b, err := newBoltData(e, size, class, rule, g.Bolt.System)
+	if err != nil {
+		return Result{}, fmt.Errorf("bolt.system: %w", err)
+	}
+	fs, ws := e.flangeStack(&fl), e.webStack(&wl)
+	ff, wf := newGroupFit(&b, &fs), newGroupFit(&b, &ws)
+	fl.fit, wl.fit = &ff, &wf
 	rates := p.Rates.resolved()
 	u, err := unitRatesOf(&rates, &b, cat)
 	if err != nil {

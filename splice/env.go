@@ -5,13 +5,18 @@ import (
 	"math"
 )
 
-// boltData caches one bolt size and class with the resistances that do not depend on the plies.
+// boltData caches one bolt size and class with the resistances that do not depend on the plies,
+// and the chooser of its assemblies (the plies decide the length: groupFit).
 type boltData struct {
 	size     BoltSize
 	class    BoltClass
-	threads  bool
+	rule     ShearPlaneRule
+	system   AssemblySystem // as given; "" for the default of the category and class
+	asm      assemblyChooser
 	d, d0    float64
-	fvPlane  float64 // Fv,Rd per shear plane [N]
+	fvThread float64 // Fv,Rd per shear plane in the thread [N]
+	fvShank  float64 // Fv,Rd per shear plane on the shank [N]
+	fvMax    float64 // the larger Fv,Rd per plane the rule allows (an upper bound for the sizing) [N]
 	fpC      float64 // Fp,C [N]
 	fsPerSur float64 // Fs,Rd per friction surface in the slip state [N] (0 for category A)
 	hf       float64 // bearing factor for the hole type
@@ -36,15 +41,29 @@ type env struct {
 	minimum MinimumAction
 }
 
-func newBoltData(e *env, size BoltSize, class BoltClass, threads bool) boltData {
-	b := boltData{size: size, class: class, threads: threads, d: size.D, d0: size.HoleDiameter(e.holes)}
-	b.fvPlane = ShearResistancePerPlane(size, class, threads, e.f.GammaM2)
+// newBoltData prepares a bolt; the error is an assembly system the class or category cannot
+// have (HV in class 8.8, a non-preloaded system in category B).
+func newBoltData(e *env, size BoltSize, class BoltClass, rule ShearPlaneRule, system AssemblySystem) (boltData, error) {
+	b := boltData{size: size, class: class, rule: rule, system: system, d: size.D, d0: size.HoleDiameter(e.holes)}
+	spec, err := assemblySpec(size, class, e.cat, system)
+	if err != nil {
+		return b, err
+	}
+	if b.asm, err = newAssemblyChooser(spec); err != nil {
+		return b, err
+	}
+	b.fvThread = ShearResistancePerPlane(size, class, true, e.f.GammaM2)
+	b.fvShank = ShearResistancePerPlane(size, class, false, e.f.GammaM2)
+	b.fvMax = max(b.fvThread, b.fvShank)
+	if rule == PlanesInThread {
+		b.fvMax = b.fvThread
+	}
 	b.fpC = PreloadForce(class.Fub, size.As)
 	if e.cat.Preloaded() {
 		b.fsPerSur = SlipResistance(e.holes.Ks(), 1, e.mu, b.fpC, e.gammaS)
 	}
 	b.hf = e.holes.BearingFactor()
-	return b
+	return b, nil
 }
 
 func newEnv(p *Problem, cat Category, fc FrictionClass, holes HoleType, gap float64, det Detailing) (*env, error) {

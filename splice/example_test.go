@@ -17,7 +17,9 @@ func steel(name string) splice.Steel {
 }
 
 // ExampleSize sizes the cheapest slip-resistant (category B) splice of an IPE 500 in S355 for
-// M = +400/−250 kNm, V = 300 kN, N = +100/−150 kN at ULS, over the default design space.
+// M = +400/−250 kNm, V = 300 kN, N = +100/−150 kN at ULS, over the default design space. The
+// shear planes follow the bolt lengths chosen (the default rule): where a plane lies on the
+// plain shank its bolt shear resistance is the higher one of EN 1993-1-8 Table 3.4.
 func ExampleSize() {
 	sec, err := beam.LookupSection("IPE 500")
 	if err != nil {
@@ -44,10 +46,26 @@ func ExampleSize() {
 	fmt.Printf("web: 2 × %g×%g mm, %d columns × %d rows\n", g.Web.Thickness, g.Web.Depth, g.Web.Columns, g.Web.Rows)
 	fmt.Printf("governing %s, utilisation %.3f\n", r.Governing.ID, r.Utilisation)
 	fmt.Printf("%d bolts, %.1f kg of plate, cost %.2f (indicative rates)\n", r.Quantities.Bolts, r.Quantities.PlateMass, r.Cost.Total)
+	for _, a := range r.Assemblies {
+		fmt.Printf("%s: %d × %s\n", a.Group, a.Count, a.Assembly.Designation)
+		for _, p := range a.Planes {
+			where := "shank"
+			if p.Threaded {
+				where = "thread"
+			}
+			fmt.Printf("  %s at %.1f mm: %s, Fv,Rd = %.1f kN\n", p.Name, p.Position, where, p.FvRd/1e3)
+		}
+	}
 	// Output:
 	// sized: bolts M20 10.9
 	// flange: outer 10×200 mm, inner plates true, 2 lines × 2 rows
-	// web: 2 × 10×415 mm, 2 columns × 4 rows
-	// governing flange.bolt.shear, utilisation 0.931
-	// 32 bolts, 58.5 kg of plate, cost 613.25 (indicative rates)
+	// web: 2 × 15×415 mm, 2 columns × 3 rows
+	// governing flange.bolt.slip, utilisation 0.978
+	// 28 bolts, 68.8 kg of plate, cost 599.71 (indicative rates)
+	// flange: 16 × M20×65 HV 10.9 (EN 14399-4), nut EN 14399-4, 2 washers EN 14399-6
+	//   outer plate / beam flange at 14.3 mm: shank, Fv,Rd = 150.8 kN
+	//   beam flange / inner plate at 30.3 mm: thread, Fv,Rd = 98.0 kN
+	// web: 12 × M20×70 HV 10.9 (EN 14399-4), nut EN 14399-4, 2 washers EN 14399-6
+	//   web plate / beam web at 19.3 mm: shank, Fv,Rd = 150.8 kN
+	//   beam web / web plate at 29.5 mm: shank, Fv,Rd = 150.8 kN
 }

@@ -40,11 +40,11 @@ func (x *flangeEval) planeText() string {
 		return "one plane (outer plate alone), share 1"
 	}
 	ao, ai, sum := x.areas()
-	side := "outer plate"
+	side := "outer plate's"
 	if ai > ao {
-		side = "inner plates"
+		side = "inner plates'"
 	}
-	return sprintf("two planes; the %s' plane governs with share max(%s, %s)/%s = %s", side, mm(ao), mm(ai), mm(sum), f3(x.maxShare()))
+	return sprintf("two planes; the %s plane governs with share max(%s, %s)/%s = %s", side, mm(ao), mm(ai), mm(sum), f3(x.maxShare()))
 }
 
 func (x *flangeEval) nb() float64 { return float64(x.l.rows * x.l.cols) }
@@ -360,8 +360,40 @@ func (x *flangeEval) beamNet(d *checkDef, full bool) Check {
 }
 
 type shearNums struct {
-	lj, bLf, bp, share, res float64
-	np                      int
+	lj, bLf, bp, share, perBolt, res float64
+	np, gov                          int // planes, and the governing one
+}
+
+// planeShares are the shares of the flange force through the outer plane and, with inner
+// plates, the inner plane.
+func (x *flangeEval) planeShares() [2]float64 {
+	if !x.l.inner {
+		return [2]float64{1, 0}
+	}
+	ao, ai, sum := x.areas()
+	return [2]float64{ao / sum, ai / sum}
+}
+
+// boltShear is one bolt's shear resistance in flange-force terms, before βLf and βp: each
+// shear plane carries the share of the plate on its side, so the bolt gives way at the least
+// Fv,Rd,i/s_i over its planes (Fv,Rd,i from the plane's thread or shank, groupFit); gov is
+// that plane.
+func (x *flangeEval) boltShear() float64 {
+	r, _ := x.boltShearGov()
+	return r
+}
+
+func (x *flangeEval) boltShearGov() (res float64, gov int) {
+	f := x.l.fit
+	if !x.l.inner {
+		return f.fv[0], 0
+	}
+	ao, ai, sum := x.areas()
+	ro, ri := f.fv[0]*sum/ao, f.fv[1]*sum/ai
+	if ri < ro {
+		return ri, 1
+	}
+	return ro, 0
 }
 
 func (x *flangeEval) shearN() (n shearNums) {
@@ -372,8 +404,9 @@ func (x *flangeEval) shearN() (n shearNums) {
 	n.bLf = LongJointFactor(n.lj, b.d)
 	n.bp = PackingFactor(l.packing, b.d)
 	n.np = x.planes()
-	n.share = x.maxShare()
-	n.res = n.bLf * n.bp * b.fvPlane / n.share
+	n.perBolt, n.gov = x.boltShearGov()
+	n.share = x.planeShares()[n.gov]
+	n.res = n.bLf * n.bp * n.perBolt
 	return n
 }
 
@@ -386,16 +419,24 @@ func (x *flangeEval) shear(d *checkDef, full bool) Check {
 	if !full {
 		return c
 	}
-	area, av, a := "As", b.class.AlphaV, b.size.As
-	if !b.threads {
-		area, av, a = "πd²/4", 0.6, b.size.ShankArea()
+	f, st := l.fit, e.flangeStack(l)
+	c.Formula = "Fv,Ed = Ff,Ed/n ≤ βLf·βp·min over the shear planes of Fv,Rd,i/s_i, s_i = the share of Ff,Ed through plane i, Fv,Rd,i = αv·fub·A/γM2 (A = As, αv of the class in the thread; A = πd²/4, αv = 0.6 on the shank)"
+	shares := x.planeShares()
+	planes, ratios := make([]string, n.np), make([]string, n.np)
+	for i := range planes {
+		planes[i] = planeText(b, f, &st, i, e.f.GammaM2) + sprintf(", s = %s", f3(shares[i]))
+		ratios[i] = sprintf("%s/%s", kN(f.fv[i]), f3(shares[i]))
 	}
-	c.Formula = "Fv,Ed = Ff,Ed/n ≤ βLf·βp·Fv,Rd/s, s = the larger share of Ff,Ed through one shear plane, Fv,Rd = αv·fub·A/γM2 (A = " + area + ")"
-	c.Substituted = sprintf("Fv,Ed = %s/%d = %s kN; Fv,Rd = %s×%s×%s/%s = %s kN; %s; %s × %s × %s / %s = %s kN",
-		kN(e.act.Flange.Bolt), l.rows*l.cols, kN(demand), f2(av), fnum(b.class.Fub, 0), mm(a), f2(e.f.GammaM2), kN(b.fvPlane),
-		x.planeText(), f3(n.bLf), f3(n.bp), kN(b.fvPlane), f3(n.share), kN(n.res))
-	c.Inputs = []Input{in("n", x.nb(), "bolts"), in("n_p", float64(n.np), "planes"), in("s", n.share, ""), in("Lj", n.lj, "mm"), in("βLf", n.bLf, ""), in("tp", l.packing, "mm"), in("βp", n.bp, "")}
-	c.Note = "per bolt, bolts share the flange force equally; each shear plane carries the force of the plate on its side (shares by area, as the plate checks); "
+	per := sprintf("%s = %s kN", ratios[0], kN(n.perBolt))
+	if n.np > 1 {
+		per = sprintf("min(%s) = %s kN at %s", strings.Join(ratios, ", "), kN(n.perBolt), st.plane[n.gov])
+	}
+	c.Substituted = sprintf("Fv,Ed = %s/%d = %s kN; %s (%s); per bolt %s; %s × %s × %s = %s kN",
+		kN(e.act.Flange.Bolt), l.rows*l.cols, kN(demand), strings.Join(planes, "; "), ruleText(b, f),
+		per, f3(n.bLf), f3(n.bp), kN(n.perBolt), kN(n.res))
+	c.Inputs = []Input{in("n", x.nb(), "bolts"), in("n_p", float64(n.np), "planes"), in("s", n.share, ""), in("Lj", n.lj, "mm"), in("βLf", n.bLf, ""), in("tp", l.packing, "mm"),
+		in("βp", n.bp, ""), in("Fv,Rd", f.fv[n.gov]*toKN, "kN")}
+	c.Note = "per bolt, bolts share the flange force equally; each shear plane carries the force of the plate on its side (shares by area, as the plate checks); governed by " + st.plane[n.gov] + "; "
 	if n.lj > 15*b.d {
 		c.Note += sprintf("long joint Lj = %s mm > 15d = %s mm; ", mm(n.lj), mm(15*b.d))
 	}

@@ -19,11 +19,17 @@ type Geometry struct {
 	Web           WebSplice
 }
 
-// Bolt is the one bolt size and class used throughout a splice.
+// Bolt is the one bolt size and class used throughout a splice, with its assemblies.
 type Bolt struct {
-	Size                string // "M20"
-	Class               string // "8.8"
-	ThreadsInShearPlane bool   // shear planes pass through the threaded part (A = As)
+	Size  string // "M20"
+	Class string // "8.8"
+	// ShearPlanes says where the shear checks take the shear planes: from each group's bolt
+	// length (PlanesFromLength, the zero value), or the thread, or the shank, in every plane.
+	ShearPlanes ShearPlaneRule
+	// System is the assembly system (SelectAssembly); "" takes the default of the category
+	// and class: HV for preloaded 10.9, HR for preloaded 8.8, ISO 4014 (ISO 4017 for short
+	// grips) otherwise.
+	System AssemblySystem
 }
 
 // Plate is a cover plate's cross-section [mm].
@@ -69,10 +75,11 @@ type flangeLayout struct {
 	g, p2o     float64 // gauge across the web; spacing between inner and outer lines (4 columns)
 	e1, p1, e2 float64
 	packing    float64
-	length     float64 // plate length along the beam
-	fyo, fuo   float64 // outer plate strengths
-	fyi, fui   float64 // inner plate strengths
-	key        [5]int  // position in the design space (sizing only)
+	length     float64   // plate length along the beam
+	fyo, fuo   float64   // outer plate strengths
+	fyi, fui   float64   // inner plate strengths
+	key        [5]int    // position in the design space (sizing only)
+	fit        *groupFit // the bolts' assembly for these plies (set by whoever builds the layout)
 }
 
 // webLayout is a web splice with every position resolved [mm, N/mm²].
@@ -85,6 +92,7 @@ type webLayout struct {
 	length     float64
 	fy, fu     float64
 	key        [3]int
+	fit        *groupFit // the bolts' assembly for these plies
 }
 
 // lines returns the bolt line positions across the flange, from the web centreline, ascending.
@@ -259,7 +267,7 @@ func (g Geometry) shape() (flangeLayout, webLayout, error) {
 // geometryOf writes resolved layouts back in splice-file terms.
 func geometryOf(b *boltData, cat Category, fc FrictionClass, holes HoleType, gap float64, fl *flangeLayout, wl *webLayout) Geometry {
 	g := Geometry{
-		Bolt:          Bolt{Size: b.size.Name, Class: b.class.Name, ThreadsInShearPlane: b.threads},
+		Bolt:          Bolt{Size: b.size.Name, Class: b.class.Name, ShearPlanes: b.rule, System: b.system},
 		Category:      cat,
 		FrictionClass: fc,
 		Holes:         holes,

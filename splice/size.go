@@ -63,13 +63,19 @@ type searcher struct {
 	rowFreeU         []float64
 	gridR0F, gridR0W grid
 	r0F, r0W         []int // flangeFirstRows on gridR0F, webFirstRows on gridR0W
-	evals            int
-	parts            []boltParts // a Sizer's layouts of each bolt; nil: listed per call
-	nth              int
-	nfc              int
-	nwc              int
-	nwr              int
-	nclass           int
+	// The bolt assemblies of the plies, found when a layout first needs them: per bolt, outer
+	// thickness and inner thickness (0 none, i+1 thickness i) for the flange, per bolt and
+	// plate thickness for the web.
+	gridFitF, gridFitW grid
+	fitF, fitW         []int32 // 0 not yet chosen, else 1 + the index in fits
+	fits               fitPool
+	evals              int
+	parts              []boltParts // a Sizer's layouts of each bolt; nil: listed per call
+	nth                int
+	nfc                int
+	nwc                int
+	nwr                int
+	nclass             int
 }
 
 func newSearcher(p *Problem) (*searcher, error) {
@@ -99,6 +105,10 @@ func newSearcher(p *Problem) (*searcher, error) {
 	if err != nil {
 		errs = append(errs, err)
 	}
+	rule, err := ParseShearPlaneRule(string(z.ShearPlanes))
+	if err != nil {
+		errs = append(errs, fmt.Errorf("splice.assemblies.shear_planes: %w", err))
+	}
 	if len(errs) > 0 {
 		return nil, errors.Join(errs...)
 	}
@@ -126,7 +136,11 @@ func newSearcher(p *Problem) (*searcher, error) {
 	s.rates = make([]unitRates, 0, n)
 	for si, size := range sp.sizes {
 		for ci, class := range sp.classes {
-			b := newBoltData(e, size, class, !z.ShankInShearPlanes)
+			b, err := newBoltData(e, size, class, rule, z.System)
+			if err != nil {
+				errs = append(errs, fmt.Errorf("splice.assemblies.system: %w", err))
+				continue
+			}
 			b.key = [2]int{si, ci}
 			u, err := unitRatesOf(&rates, &b, cat)
 			if err != nil {
@@ -148,6 +162,10 @@ func newSearcher(p *Problem) (*searcher, error) {
 	s.gridW = newGrid(len(sp.sizes), s.nwc, s.nth, s.nwr)
 	memo := make([]int8, s.gridA.cells()+s.gridW.cells())
 	s.memoA, s.memoW = memo[:s.gridA.cells()], memo[s.gridA.cells():]
+	s.gridFitF = newGrid(len(s.bolts), s.nth, s.nth+1)
+	s.gridFitW = newGrid(len(s.bolts), s.nth)
+	idx := make([]int32, s.gridFitF.cells()+s.gridFitW.cells())
+	s.fitF, s.fitW = idx[:s.gridFitF.cells()], idx[s.gridFitF.cells():]
 	s.gridR0F = newGrid(len(s.bolts), len(sp.inner), s.nfc)
 	s.gridR0W = newGrid(len(s.bolts), s.nwc)
 	r0 := make([]int, s.gridR0F.cells()+s.gridR0W.cells())
@@ -280,8 +298,9 @@ func (a *fastAcc) web(x *webEval, g []webNum) bool {
 	return true
 }
 
-// flangeAt builds a flange layout of the design space with its plate strengths.
-func (s *searcher) flangeAt(b *boltData, ai, ci, toI, tiI, ri int) (flangeLayout, bool) {
+// flangeAt builds a flange layout of the design space with its plate strengths and, when fit is
+// set, its bolts' assembly (a lower bound that does not price by mass leaves it out).
+func (s *searcher) flangeAt(b *boltData, ai, ci, toI, tiI, ri int, fit bool) (flangeLayout, bool) {
 	inner := s.sp.inner[ai]
 	ti := 0.0
 	cr := &s.crTf
@@ -300,13 +319,67 @@ func (s *searcher) flangeAt(b *boltData, ai, ci, toI, tiI, ri int) (flangeLayout
 		fl.fyi, fl.fui = s.sp.fy[tiI], s.sp.fu[tiI]
 	}
 	fl.key = [5]int{ai, ci, toI, tiI, ri}
+	if fit {
+		fl.fit = s.flangeFit(b, &fl)
+	}
 	return fl, ok
 }
 
-func (s *searcher) webAt(b *boltData, ci, tpI, ri int) (webLayout, bool) {
+// flangeFit is the assembly of a flange layout's bolts, chosen once per bolt and plies.
+func (s *searcher) flangeFit(b *boltData, fl *flangeLayout) *groupFit {
+	bi := b.key[0]*s.nclass + b.key[1]
+	inner := 0
+	if fl.inner {
+		inner = fl.key[3] + 1
+	}
+	k := s.gridFitF.at(bi, fl.key[2], inner)
+	if s.fitF[k] == 0 {
+		st := s.e.flangeStack(fl)
+		s.fitF[k] = s.fits.add(newGroupFit(b, &st))
+	}
+	return s.fits.at(s.fitF[k])
+}
+
+// webFit is the assembly of a web layout's bolts, chosen once per bolt and plate thickness.
+func (s *searcher) webFit(b *boltData, wl *webLayout) *groupFit {
+	k := s.gridFitW.at(b.key[0]*s.nclass+b.key[1], wl.key[1])
+	if s.fitW[k] == 0 {
+		st := s.e.webStack(wl)
+		s.fitW[k] = s.fits.add(newGroupFit(b, &st))
+	}
+	return s.fits.at(s.fitW[k])
+}
+
+// fitPool holds the group fits a search has chosen, in chunks so that a fit never moves once a
+// layout points at it.
+type fitPool struct {
+	chunks []*[fitChunk]groupFit
+	n      int32
+}
+
+const fitChunk = 16
+
+// add stores a fit and returns its handle (1 + its index).
+func (p *fitPool) add(g groupFit) int32 {
+	if int(p.n) == fitChunk*len(p.chunks) {
+		p.chunks = append(p.chunks, new([fitChunk]groupFit))
+	}
+	p.chunks[p.n/fitChunk][p.n%fitChunk] = g
+	p.n++
+	return p.n
+}
+
+// at returns the fit of a handle.
+func (p *fitPool) at(h int32) *groupFit { return &p.chunks[(h-1)/fitChunk][(h-1)%fitChunk] }
+
+// webAt builds a web layout of the design space; fit as for flangeAt.
+func (s *searcher) webAt(b *boltData, ci, tpI, ri int, fit bool) (webLayout, bool) {
 	wl, ok := sizingWeb(&s.sr, &s.hr[b.key[0]], &s.cr[tpI], &s.e.det, s.sp.wcols[ci], s.sp.wrows[ri], s.sp.th[tpI])
 	wl.fy, wl.fu = s.sp.fy[tpI], s.sp.fu[tpI]
 	wl.key = [3]int{ci, tpI, ri}
+	if fit {
+		wl.fit = s.webFit(b, &wl)
+	}
 	return wl, ok
 }
 
@@ -325,7 +398,9 @@ func maxBearing(b *boltData, fu, t, gammaM2 float64) float64 {
 
 // flangeFirstRows is the first rows entry with enough bolts for shear, slip and bearing on the
 // beam flange at their largest possible values, −1 when none has. With inner plates a bolt
-// carries at most two planes' worth (the larger share of the two planes is at least one half).
+// carries at most two planes' worth (the larger share of the two planes is at least one half),
+// each plane at most the larger Fv,Rd the shear-plane rule allows (on the shank unless the
+// thread is assumed): the bound holds for every plate thickness, which the memo's key leaves out.
 func (s *searcher) flangeFirstRows(b *boltData, ci int, inner bool) int {
 	np := 1.0
 	if inner {
@@ -337,7 +412,7 @@ func (s *searcher) flangeFirstRows(b *boltData, ci int, inner bool) int {
 	per := float64(s.sp.fcols[ci])
 	for i, r := range s.sp.frows {
 		n := float64(r) * per
-		if enough(n, np*b.fvPlane, a.Bolt) && enough(n, fb, a.Bolt) && (!e.cat.Preloaded() || enough(n, np*b.fsPerSur, a.SlipBolt)) {
+		if enough(n, np*b.fvMax, a.Bolt) && enough(n, fb, a.Bolt) && (!e.cat.Preloaded() || enough(n, np*b.fsPerSur, a.SlipBolt)) {
 			return i
 		}
 	}
@@ -348,7 +423,8 @@ func (s *searcher) flangeFirstRows(b *boltData, ci int, inner bool) int {
 // beam web and plates, with each bolt-force component bounded from below over every plate of
 // the design space: the eccentricity and spacing no less than with the thinnest plate, the
 // pitch anywhere between 2.4 d0 and the full spread (EN 1993-1-8 Table 3.3 limits), the
-// resistances no more than their largest values. −1 when none.
+// resistances no more than their largest values (the shear per plane the larger the
+// shear-plane rule allows, whatever the plate thickness). −1 when none.
 func (s *searcher) webFirstRows(b *boltData, ci int) int {
 	e, hr := s.e, &s.hr[b.key[0]]
 	a := &e.act.Web
@@ -385,7 +461,7 @@ func (s *searcher) webFirstRows(b *boltData, ci int) int {
 			return mg*zOverIp + nw/n, v/n + mg*xOverIp
 		}
 		h, v := comp(a.Moment, a.Axial, a.Shear)
-		ok := enough(1, 2*b.fvPlane, math.Sqrt(h*h+v*v)) && enough(1, fbBeam, h) && enough(1, fbBeam, v) &&
+		ok := enough(1, 2*b.fvMax, math.Sqrt(h*h+v*v)) && enough(1, fbBeam, h) && enough(1, fbBeam, v) &&
 			enough(1, fbPlate, h/2) && enough(1, fbPlate, v/2)
 		if ok && e.cat.Preloaded() {
 			hs, vs := comp(a.SlipMoment, a.SlipAxial, a.SlipShear)
@@ -442,7 +518,7 @@ func (s *searcher) rowsNeeded(b *boltData, fl flangeLayout, r0 int) int {
 	}
 	x := flangeEval{e: s.e, b: b, l: &fl}
 	a := &s.e.act.Flange
-	fv := PackingFactor(fl.packing, b.d) * b.fvPlane / x.maxShare()
+	fv := PackingFactor(fl.packing, b.d) * x.boltShear()
 	fb := min(x.bearingBeamN().res, x.bearingPlateN().res)
 	fs := x.slipN()
 	per := float64(fl.cols)
@@ -474,7 +550,7 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 		thickness:
 			for toI := 0; toI < s.nth; toI++ {
 				for tiI := 0; tiI < nti; tiI++ {
-					fl, ok := s.flangeAt(b, ai, ci, toI, tiI, r0)
+					fl, ok := s.flangeAt(b, ai, ci, toI, tiI, r0, u.byMass())
 					if prune(u.score(flangeQty(&fl, e.gap)), best.found, best.sc, haveLimit, limit) {
 						if tiI == 0 {
 							break thickness
@@ -484,6 +560,7 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 					if !ok {
 						continue
 					}
+					fl.fit = s.flangeFit(b, &fl) // the checks need it
 					if f, ok := s.scanFlangeRows(b, u, &fl, r0, &best, haveLimit, limit); ok {
 						best = f
 					}
@@ -589,7 +666,7 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 			continue
 		}
 		for tpI := range s.sp.th {
-			wl, _ := s.webAt(b, ci, tpI, r0)
+			wl, _ := s.webAt(b, ci, tpI, r0, u.byMass())
 			if prune(u.score(webQty(&wl, e.gap)), best.found, best.sc, haveLimit, limit) {
 				break
 			}
@@ -597,7 +674,7 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 				continue
 			}
 			for ri := r0; ri < s.nwr; ri++ {
-				wl, ok := s.webAt(b, ci, tpI, ri)
+				wl, ok := s.webAt(b, ci, tpI, ri, u.byMass())
 				sc := u.score(webQty(&wl, e.gap))
 				if prune(sc, best.found, best.sc, haveLimit, limit) {
 					break
@@ -605,6 +682,7 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 				if !ok {
 					continue
 				}
+				wl.fit = s.webFit(b, &wl) // the checks need it
 				s.evals++
 				x := s.scan.web(e, b, &wl)
 				a := newAcc(true)
@@ -629,7 +707,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 			if r0 < 0 {
 				continue
 			}
-			fl, _ := s.flangeAt(b, ai, ci, 0, 0, r0)
+			fl, _ := s.flangeAt(b, ai, ci, 0, 0, r0, u.byMass())
 			if sc := u.score(flangeQty(&fl, e.gap)); !hf || sc.cmp(lf) < 0 {
 				lf, hf = sc, true
 			}
@@ -640,7 +718,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 		if r0 < 0 {
 			continue
 		}
-		wl, _ := s.webAt(b, ci, 0, r0)
+		wl, _ := s.webAt(b, ci, 0, r0, u.byMass())
 		if sc := u.score(webQty(&wl, e.gap)); !hw || sc.cmp(lw) < 0 {
 			lw, hw = sc, true
 		}
@@ -883,7 +961,7 @@ func (s *searcher) forEachFlange(b *boltData, visit func(*flangeLayout)) {
 			for toI := range s.sp.th {
 				for tiI := 0; tiI < nti; tiI++ {
 					for ri := range s.sp.frows {
-						if fl, ok := s.flangeAt(b, ai, ci, toI, tiI, ri); ok {
+						if fl, ok := s.flangeAt(b, ai, ci, toI, tiI, ri, true); ok {
 							visit(&fl)
 						}
 					}
@@ -898,7 +976,7 @@ func (s *searcher) forEachWeb(b *boltData, visit func(*webLayout)) {
 	for ci := range s.sp.wcols {
 		for tpI := range s.sp.th {
 			for ri := range s.sp.wrows {
-				if wl, ok := s.webAt(b, ci, tpI, ri); ok {
+				if wl, ok := s.webAt(b, ci, tpI, ri, true); ok {
 					visit(&wl)
 				}
 			}

@@ -299,7 +299,8 @@ func TestDetailingDefaults(t *testing.T) {
 
 // TestSizeEqualsExhaustiveOddSpaces: the equality holds for unusual design spaces too — single
 // rows, plates either side of the 40 mm strength step (where a thicker plate can be weaker),
-// sheltered detailing, zero rates (ties broken by bolts and mass), shank in the shear planes.
+// sheltered detailing, zero rates (ties broken by bolts and mass), every shear-plane rule,
+// assemblies priced by mass (by length), the HR system for 10.9, grips too long for a bolt.
 func TestSizeEqualsExhaustiveOddSpaces(t *testing.T) {
 	rng := rand.New(rand.NewSource(13))
 	n := 80
@@ -319,9 +320,16 @@ func TestSizeEqualsExhaustiveOddSpaces(t *testing.T) {
 		p := randomProblem(t, rng)
 		p.Sizing.Space = spaces[rng.Intn(len(spaces))]
 		p.Detailing.Sheltered = rng.Intn(2) == 0
-		p.Sizing.ShankInShearPlanes = rng.Intn(3) == 0
-		if rng.Intn(3) == 0 {
+		p.Sizing.ShearPlanes = []ShearPlaneRule{PlanesFromLength, PlanesInThread, PlanesOnShank}[rng.Intn(3)]
+		switch rng.Intn(4) {
+		case 0:
 			p.Rates = Rates{Bolt: map[string]float64{"M12": 0, "M16": 0, "M20": 0, "M24": 0, "M30": 0, "M36": 0}}
+		case 1:
+			p.Rates = DefaultRates()
+			p.Rates.AssemblyPerKg = 4.5
+		}
+		if p.Sizing.Category.Preloaded() && rng.Intn(3) == 0 {
+			p.Sizing.System = SystemHR
 		}
 		a, err := Size(p)
 		b, errE := SizeExhaustive(p)

@@ -85,6 +85,10 @@ var checkTable = [...]checkDef{
 	{id: IDFit, clause: "fit of the plates to the section (common practice)", state: stDetailing,
 		flange: flangeHalf{groupFlangeRowFree, (*flangeEval).fit, (*flangeEval).fitU},
 		web:    webHalf{groupWebPlates, (*webEval).fit, (*webEval).fitU}},
+	// The assembly system, and so the length, depends on the class (HV or HR when preloaded).
+	{id: IDBoltLength, clause: "EN 1090-2 8.2.2; ISO 4014/4017, EN 14399-3/-4 lengths", state: stDetailing,
+		flange: flangeHalf{groupFlangeRows, (*flangeEval).boltLength, (*flangeEval).boltLengthU},
+		web:    webHalf{groupWebClass, (*webEval).boltLength, (*webEval).boltLengthU}},
 
 	{id: IDFlangeBoltShear, clause: "EN 1993-1-8 Table 3.4, 3.8, 3.6.1(12)", state: stULS,
 		flange: flangeHalf{groupFlangeRows, (*flangeEval).shear, (*flangeEval).shearU}},

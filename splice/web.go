@@ -24,14 +24,23 @@ func (x *webEval) groupText() string {
 		mm(g.e), kNm(g.mw), kN(g.shear), fnum(g.e*1e-3, 4), kNm(g.mg), fnum(g.ip, 0), kN(g.h), kN(g.v), kN(g.r))
 }
 
-type webShearNums struct{ lj, bLf, bp, res float64 }
+type webShearNums struct {
+	lj, bLf, bp, fv, res float64
+	gov                  int // the governing plane
+}
 
+// shearN: each of the two shear planes carries half the bolt force, so the plane with the
+// lower Fv,Rd (thread or shank, groupFit) governs: 2·min(Fv,Rd,1, Fv,Rd,2) per bolt.
 func (x *webEval) shearN() (n webShearNums) {
-	l, b := x.l, x.b
+	l, b, f := x.l, x.b, x.l.fit
 	n.lj = max(float64(l.cols-1)*l.ph, float64(l.rows-1)*l.pv)
 	n.bLf = LongJointFactor(n.lj, b.d)
 	n.bp = PackingFactor(l.packing, b.d)
-	n.res = 2 * n.bLf * n.bp * b.fvPlane
+	n.fv = f.fv[0]
+	if f.fv[1] < n.fv {
+		n.fv, n.gov = f.fv[1], 1
+	}
+	n.res = 2 * n.bLf * n.bp * n.fv
 	return n
 }
 
@@ -44,10 +53,12 @@ func (x *webEval) shear(d *checkDef, full bool) Check {
 	if !full {
 		return c
 	}
-	c.Formula = "R = √(H² + V²) on the corner bolt (elastic group) ≤ 2·βLf·βp·Fv,Rd"
-	c.Substituted = x.groupText() + sprintf("; 2 × %s × %s × %s = %s kN", f3(bLf), f3(bp), kN(b.fvPlane), kN(res))
+	f, st := x.l.fit, e.webStack(x.l)
+	c.Formula = "R = √(H² + V²) on the corner bolt (elastic group) ≤ 2·βLf·βp·min(Fv,Rd,1, Fv,Rd,2), Fv,Rd,i = αv·fub·A/γM2 of plane i (A = As, αv of the class in the thread; A = πd²/4, αv = 0.6 on the shank)"
+	c.Substituted = x.groupText() + sprintf("; %s; %s (%s); 2 × %s × %s × %s = %s kN",
+		planeText(b, f, &st, 0, e.f.GammaM2), planeText(b, f, &st, 1, e.f.GammaM2), ruleText(b, f), f3(bLf), f3(bp), kN(n.fv), kN(res))
 	c.Inputs = []Input{in("Mw", x.g.mw*toKNm, "kNm"), in("Nw", x.g.nw*toKN, "kN"), in("V", x.g.shear*toKN, "kN"), in("Lj", lj, "mm"), in("βLf", bLf, ""), in("βp", bp, "")}
-	c.Note = "two shear planes; Lj is the longer group dimension (conservative); " + e.act.Web.State
+	c.Note = "two shear planes, each carrying half the bolt force; governed by " + st.plane[n.gov] + "; Lj is the longer group dimension (conservative); " + e.act.Web.State
 	return c
 }
 

@@ -60,13 +60,15 @@ func TestDesignDirectTextSheet(t *testing.T) {
 	for _, id := range []string{"detail.spacing", "detail.fit", "detail.preload", "flange.bolt.shear", "flange.bolt.bearing.beam",
 		"flange.bolt.bearing.plate", "flange.bolt.slip", "flange.plate.tension", "flange.plate.block", "flange.plate.compression",
 		"flange.plate.buckling", "flange.beam.net", "web.bolt.shear", "web.bolt.bearing.beam", "web.bolt.bearing.plate",
-		"web.bolt.slip", "web.plate.shear.gross", "web.plate.shear.net", "web.plate.block", "web.plate.combined", "web.beam.net-shear"} {
+		"web.bolt.slip", "web.plate.shear.gross", "web.plate.shear.net", "web.plate.block", "web.plate.combined", "web.beam.net-shear",
+		"detail.bolt.length"} {
 		assert.Contains(t, text, ". "+id+" — ", "every check on its own lines")
 	}
 	for _, want := range []string{
 		"IPE 500, S355", "EN 1993-1-8 Table 3.4", "utilisation", "pass",
 		"Fv,Rd = 0.50×1000×245/1.25 = 98.0 kN", // numbers substituted (M20 10.9, EN 1993-1-8 Table 3.4)
 		"Governing: ", "Quantities: ", "bolts", "holes", "kg of plate", "faying surface", "total",
+		"Bolt assemblies (EN 1090-2 8.2.2", "plies (head side first)", "shear planes (from the length)", "Bill of materials",
 		"CAUTION", "competent engineer", "national annex",
 	} {
 		assert.Contains(t, text, want)
@@ -111,6 +113,31 @@ func TestDesignJSONContract(t *testing.T) {
 	}
 	assert.Contains(t, doc["cost"], "total")
 	assert.Equal(t, true, doc["pass"])
+	assert.Contains(t, q, "bolt_mass_kg")
+	// the shear planes follow the bolt lengths by default: the splice says no assumption
+	assert.NotContains(t, sp["bolt"], "threads_in_shear_plane")
+	assemblies := doc["assemblies"].([]any)
+	require.Len(t, assemblies, 2, "the flange and the web group")
+	for _, a := range assemblies {
+		for _, key := range []string{"group", "count", "designation", "system", "plies", "grip", "clamp", "required_length", "length",
+			"thread_length", "plain_shank", "protrusion", "mass_kg", "shear_planes", "planes", "source"} {
+			assert.Contains(t, a, key)
+		}
+		assert.Equal(t, "length", a.(map[string]any)["shear_planes"])
+		for _, p := range a.(map[string]any)["planes"].([]any) {
+			for _, key := range []string{"name", "position", "on_thread", "threaded", "area", "alpha_v", "Fv_Rd"} {
+				assert.Contains(t, p, key)
+			}
+		}
+	}
+	items := doc["materials"].(map[string]any)["items"].([]any)
+	require.NotEmpty(t, items)
+	for _, it := range items {
+		for _, key := range []string{"item", "part", "description", "size", "class_or_grade", "quantity", "unit_mass_kg", "total_mass_kg"} {
+			assert.Contains(t, it, key)
+		}
+	}
+	assert.Contains(t, doc["materials"], "holes")
 }
 
 // TestDesignSpliceFileRoundTrip: the splice a sizing run prints (JSON is YAML) checks again as a

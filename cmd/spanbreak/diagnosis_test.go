@@ -184,10 +184,13 @@ func TestReportWithoutALayoutWritesTheDiagnosis(t *testing.T) {
 	assert.Equal(t, exitInfeasible, exitCode(err))
 	assert.Contains(t, err.Error(), "limits.max_piece_length")
 	assert.Contains(t, stdout.String(), "No layout fits the limits:\n- no splice passes from ")
-	assert.Contains(t, stdout.String(), "Wrote 10 files to "+dir)
+	assert.Contains(t, stdout.String(), "Wrote 11 files to "+dir)
 
-	assert.Equal(t, []string{"cost.png", "cost.svg", "envelopes.png", "envelopes.svg", "layouts.csv", "report.pdf",
+	assert.Equal(t, []string{"bom.csv", "cost.png", "cost.svg", "envelopes.png", "envelopes.svg", "layouts.csv", "report.pdf",
 		"result.json", "scan.csv", "utilisation.png", "utilisation.svg"}, folderNames(t, dir))
+	bom, err := os.ReadFile(filepath.Join(dir, "bom.csv"))
+	require.NoError(t, err)
+	assert.Equal(t, 1, strings.Count(string(bom), "\n"), "bom.csv has its header only")
 	raw, err := os.ReadFile(filepath.Join(dir, "result.json"))
 	require.NoError(t, err)
 	var doc struct {

@@ -31,12 +31,14 @@ func newReportCommand(run func(reportOptions, streams) error, ios streams) *cobr
 	opts := reportOptions{}
 	cmd := &cobra.Command{
 		Use:   "report JOB.yaml --out DIR",
-		Short: "Write the calculation report (PDF), the charts, scan.csv, layouts.csv and result.json",
+		Short: "Write the calculation report (PDF), the charts, scan.csv, layouts.csv, result.json and bom.csv",
 		Long: `report optimises the job and writes a folder with everything the engineer files and the
 contractor reads: report.pdf (job summary, beam and loads, envelopes, limits, the ranking of
 positions, the layouts, the full calculation sheet of each splice of the recommended layout with
 its drawing, and the caution), every chart and drawing as PNG and SVG, scan.csv (every candidate
-position), layouts.csv and result.json.
+position), layouts.csv, result.json and bom.csv (the bill of materials of the recommended
+layout: bolts, nuts and washers by size, class and length, plates by size and grade, holes and
+faying surfaces, splice by splice and for the layout).
 
 The folder is written complete or not at all: the files go into a temporary folder next to DIR,
 which is renamed to DIR at the end. An existing DIR is replaced only with --force.
@@ -45,7 +47,8 @@ When no layout satisfies the limits the folder is still written, and the exit st
 report.pdf has everything up to the candidate positions and then "Why no layout fits" (each
 stretch where no splice passes with its closest attempt and the forces there, and the limit
 that cannot be met) in place of the layouts and calculation sheets; result.json is the whole
-optimise document with its diagnosis; scan.csv as always; layouts.csv has its header only.`,
+optimise document with its diagnosis; scan.csv as always; layouts.csv and bom.csv have their
+headers only.`,
 		Args: argsUsage(cobra.ExactArgs(1)),
 		RunE: func(cmd *cobra.Command, args []string) error {
 			opts.JobFile = args[0]
@@ -147,8 +150,9 @@ func reportFiles(setup *optimise.Setup, res *optimise.Outcome, when time.Time) (
 		}
 	}
 	// scan.csv, layouts.csv and result.json are the optimise command's machine contract,
-	// with the recommended layout's splices and their full checks added to the JSON
-	var scan, layouts, result bytes.Buffer
+	// with the recommended layout's splices and their full checks added to the JSON; bom.csv
+	// is the recommended layout's bill of materials
+	var scan, layouts, result, bom bytes.Buffer
 	if err := encode.WriteCandidatesCSV(&scan, res); err != nil {
 		return nil, nil, err
 	}
@@ -158,8 +162,11 @@ func reportFiles(setup *optimise.Setup, res *optimise.Outcome, when time.Time) (
 	if err := encode.WriteJSON(&result, encode.ReportResult(res)); err != nil {
 		return nil, nil, err
 	}
+	if err := encode.WriteBOMCSV(&bom, res); err != nil {
+		return nil, nil, err
+	}
 	files = append(files, reportFile{"scan.csv", scan.Bytes()}, reportFile{"layouts.csv", layouts.Bytes()},
-		reportFile{"result.json", result.Bytes()})
+		reportFile{"result.json", result.Bytes()}, reportFile{"bom.csv", bom.Bytes()})
 	sort.SliceStable(files, func(i, j int) bool { return files[i].name < files[j].name })
 	return files, rep.Warnings, nil
 }

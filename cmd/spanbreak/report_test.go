@@ -2,12 +2,15 @@ package main
 
 import (
 	"bytes"
+	"encoding/csv"
 	"encoding/json"
 	"fmt"
 	"os"
 	"path/filepath"
 	"slices"
+	"strconv"
 	"testing"
+	"time"
 
 	"github.com/stretchr/testify/assert"
 	"github.com/stretchr/testify/require"
@@ -32,7 +35,7 @@ func TestRunReportDemoWritesTheFolder(t *testing.T) {
 	var stdout bytes.Buffer
 	require.NoError(t, runReport(reportOptions{Demo: true, Out: out}, outTo(&stdout)))
 
-	want := []string{"layouts.csv", "report.pdf", "result.json", "scan.csv"}
+	want := []string{"bom.csv", "layouts.csv", "report.pdf", "result.json", "scan.csv"}
 	figures := []string{"cost", "envelopes", "layouts", "utilisation"}
 	for i := 1; i <= demoSplices(t); i++ {
 		figures = append(figures, fmt.Sprintf("splice-s%d", i))
@@ -55,7 +58,7 @@ func TestRunReportDemoWritesTheFolder(t *testing.T) {
 	raw, err := os.ReadFile(filepath.Join(out, "result.json"))
 	require.NoError(t, err)
 	require.NoError(t, json.Unmarshal(raw, &keys))
-	for _, key := range []string{"input", "version", "units", "candidates", "layouts", "caution", "chosen_splices"} {
+	for _, key := range []string{"input", "version", "units", "candidates", "layouts", "caution", "chosen_splices", "bill_of_materials"} {
 		_, ok := keys[key]
 		assert.True(t, ok, "result.json has %q", key)
 	}
@@ -186,4 +189,106 @@ func TestReportCommandParsesArgsAndFlags(t *testing.T) {
 	err = cmd.Execute()
 	require.Error(t, err, "the job file is required")
 	assert.Equal(t, exitUsage, exitCode(err))
+}
+
+// TestReportBOMAddsUp: bom.csv of the demo's report adds up to the recommended layout's own
+// totals — the bolts of its splices and their plate and bolt masses, as the Outcome states them
+// (tested on their own in splice and optimise) — splice by splice and for the layout; and a
+// plate of the first splice weighs t·b·L·7850 kg/m³ (EN 1991-1-1 Table A.4), by hand.
+func TestReportBOMAddsUp(t *testing.T) {
+	s, err := optimise.Prepare(optimise.DemoJobName, optimise.DemoJob())
+	require.NoError(t, err)
+	res, err := optimise.Run(s, optimise.Settings{})
+	require.NoError(t, err)
+	files, _, err := reportFiles(s, res, time.Time{})
+	require.NoError(t, err)
+	var bom []byte
+	for _, f := range files {
+		if f.name == "bom.csv" {
+			bom = f.data
+		}
+	}
+	require.NotNil(t, bom, "the report folder has bom.csv")
+	rows, err := csv.NewReader(bytes.NewReader(bom)).ReadAll()
+	require.NoError(t, err)
+	require.Equal(t, encode.BOMHeader, rows[0])
+	col := map[string]int{}
+	for i, h := range rows[0] {
+		col[h] = i
+	}
+	for _, c := range []string{"item", "size", "class_or_grade", "length_mm", "quantity", "unit_mass_kg", "total_mass_kg"} {
+		assert.Contains(t, col, c, "a column the issue asks for")
+	}
+	type sums struct {
+		bolts, nuts    int
+		plates, fixing float64 // kg
+	}
+	got := map[string]*sums{}
+	num := func(s string) float64 {
+		v, err := strconv.ParseFloat(s, 64)
+		require.NoError(t, err, s)
+		return v
+	}
+	for _, r := range rows[1:] {
+		sp := r[col["splice"]]
+		if got[sp] == nil {
+			got[sp] = &sums{}
+		}
+		g := got[sp]
+		switch r[col["item"]] {
+		case "bolt":
+			g.bolts += int(num(r[col["quantity"]]))
+			g.fixing += num(r[col["total_mass_kg"]])
+		case "nut":
+			g.nuts += int(num(r[col["quantity"]]))
+			g.fixing += num(r[col["total_mass_kg"]])
+		case "washer":
+			g.fixing += num(r[col["total_mass_kg"]])
+		case "plate":
+			g.plates += num(r[col["total_mass_kg"]])
+			assert.InDelta(t, num(r[col["quantity"]])*num(r[col["unit_mass_kg"]]), num(r[col["total_mass_kg"]]), 1e-5)
+		}
+	}
+	rec := res.Recommended()
+	require.NotEmpty(t, rec.Splices)
+	var total sums
+	for i, x := range rec.Splices {
+		d := res.CandidateAt(x).Design
+		g := got[fmt.Sprintf("S%d", i+1)]
+		require.NotNil(t, g, "splice S%d has its lines", i+1)
+		assert.Equal(t, d.Bolts, g.bolts, "S%d: bolts", i+1)
+		assert.Equal(t, d.Bolts, g.nuts, "S%d: a nut a bolt", i+1)
+		assert.InDelta(t, d.PlateMass, g.plates, 1e-4, "S%d: plate mass", i+1)
+		assert.InDelta(t, d.BoltMass, g.fixing, 1e-4, "S%d: bolts, nuts and washers", i+1)
+		total.bolts += d.Bolts
+		total.plates += d.PlateMass
+		total.fixing += d.BoltMass
+	}
+	lay := got["layout"]
+	require.NotNil(t, lay)
+	assert.Equal(t, total.bolts, lay.bolts, "the layout's bolts")
+	assert.InDelta(t, total.plates, lay.plates, 1e-4, "the layout's plate mass")
+	assert.InDelta(t, total.fixing, lay.fixing, 1e-4, "the layout's bolt assemblies")
+	// the pieces carry the splices: plates and bolts together
+	carried := 0.0
+	for _, p := range rec.Pieces {
+		carried += p.SpliceMass
+	}
+	assert.InDelta(t, total.plates+total.fixing, carried, 1e-6)
+
+	// by hand: the first splice's outer flange plates (t × b × L from its geometry)
+	g := res.CandidateAt(rec.Splices[0]).Design.Geometry
+	length := g.Gap + 2*(2*g.Flange.End+float64(g.Flange.Rows-1)*g.Flange.Pitch)
+	wantSize := fmt.Sprintf("%g×%g×%g", g.Flange.Outer.Thickness, g.Flange.Outer.Width, length)
+	found := false
+	for _, r := range rows[1:] {
+		if r[col["splice"]] == "S1" && r[col["description"]] == "outer flange plate" {
+			found = true
+			assert.Equal(t, wantSize, r[col["size"]])
+			assert.InDelta(t, g.Flange.Outer.Thickness*g.Flange.Outer.Width*length*7850e-9, num(r[col["unit_mass_kg"]]), 1e-6)
+			assert.Equal(t, "2", r[col["quantity"]], "one outer plate a flange")
+			assert.Equal(t, s.Splice.PlateSteel.Name, r[col["class_or_grade"]])
+		}
+	}
+	assert.True(t, found, "S1 lists its outer flange plates")
 }

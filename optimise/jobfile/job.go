@@ -463,6 +463,7 @@ type SpliceOptions struct {
 	Gap           *Millimetres   `yaml:"gap"`            // between the beam ends
 	MinimumForces *MinimumForces `yaml:"minimum_forces"` // design forces at least these fractions of the beam's resistances
 	Detailing     *Detailing     `yaml:"detailing"`      // the office's detailing preferences
+	Assemblies    *Assemblies    `yaml:"assemblies"`     // bolting assemblies: system, shear planes
 }
 
 // Detailing holds the detailing preferences of the sizing; each one left out keeps the
@@ -479,6 +480,41 @@ type WidthGauge struct {
 	Meta
 	Width Millimetres `yaml:"width,required"`
 	Gauge Millimetres `yaml:"gauge,required"`
+}
+
+// --- bolting assemblies (splice.assemblies) -------------------------------------------------
+
+// Assembly systems for Assemblies.System and BoltSpec.System (the product standards of bolt,
+// nut and washers).
+const (
+	SystemHV      = "HV"       // preloaded, EN 14399-4, class 10.9
+	SystemHR      = "HR"       // preloaded, EN 14399-3, classes 8.8 and 10.9
+	SystemISO4014 = "ISO 4014" // not preloaded, partly threaded, ISO 4032 nut
+	SystemISO4017 = "ISO 4017" // not preloaded, fully threaded, ISO 4032 nut
+)
+
+// AssemblySystems lists the assembly systems, preloaded first.
+func AssemblySystems() []string { return []string{SystemHV, SystemHR, SystemISO4014, SystemISO4017} }
+
+// PreloadedSystem reports whether an assembly system is one for preloading (EN 14399).
+func PreloadedSystem(s string) bool { return s == SystemHV || s == SystemHR }
+
+// Shear-plane rules for Assemblies.ShearPlanes.
+const (
+	PlanesLength = "length" // each plane against the plain shank of the chosen bolt length (the default)
+	PlanesThread = "thread" // the thread in every plane (conservative)
+	PlanesShank  = "shank"  // the plain shank in every plane
+)
+
+// ShearPlaneRules lists the shear-plane rules.
+func ShearPlaneRules() []string { return []string{PlanesLength, PlanesThread, PlanesShank} }
+
+// Assemblies choose the bolting assemblies of the sized splices and where the shear checks take
+// the bolts' shear planes.
+type Assemblies struct {
+	Meta
+	System      string `yaml:"system"`       // AssemblySystems; "" the default of the category and class
+	ShearPlanes string `yaml:"shear_planes"` // ShearPlaneRules; "" PlanesLength
 }
 
 // MinimumForces are fractions of the beam's own Mc,Rd, Vc,Rd and Npl,Rd that the design
@@ -561,6 +597,7 @@ type Costs struct {
 	FayingPerM2     *float64     `yaml:"faying_per_m2"`     // per m² of prepared slip surface (categories B, C)
 	Splice          *float64     `yaml:"splice"`            // fixed per splice
 	Lift            *float64     `yaml:"lift"`              // per piece erected
+	AssemblyPerKg   *float64     `yaml:"assembly_per_kg"`   // per kg of bolt assembly, on top of costs.bolt: prices bolts by length
 }
 
 // Scan sets the candidate scan.

@@ -641,6 +641,19 @@ cases: {G: {kind: permanent, loads: [{udl: 5}]}}
 		{"an empty list of gauges", minimal + `splice: {detailing: {gauges: [], min_plate_to_flange: 0}}
 `, []string{`9:30: splice.detailing.gauges: the list of gauges is empty`,
 			`9:55: splice.detailing.min_plate_to_flange: min_plate_to_flange: 0 is not a ratio`}},
+		{"bolting assemblies", minimal + `splice:
+  assemblies: {system: HV, shear_planes: threads}
+costs: {bolt: {M20: 3}, assembly_per_kg: -4.5}
+`, []string{`10:24: splice.assemblies.system: HV assemblies are for preloaded bolts; a category A splice takes ISO 4014 or ISO 4017`,
+			`10:42: splice.assemblies.shear_planes: unknown shear-plane rule "threads" (allowed: length, thread, shank); did you mean "thread"?`,
+			`11:42: costs.assembly_per_kg: assembly_per_kg must not be negative, got -4.5`}},
+		{"assemblies that cannot be preloaded", minimal + `splice:
+  category: B
+  friction_class: A
+  assemblies: {system: ISO 4014}
+`, []string{`12:24: splice.assemblies.system: ISO 4014 assemblies cannot be preloaded; a category B splice takes HV or HR`}},
+		{"an unknown assembly system", minimal + `splice: {assemblies: {system: HVX}}
+`, []string{`9:31: splice.assemblies.system: unknown bolting assembly system "HVX" (allowed: HV, HR, ISO 4014, ISO 4017); did you mean "HV"?`}},
 		{"bolt size without a rate", minimal + `splice: {bolts: {sizes: [M20, M24]}}
 costs: {bolt: {M20: 3.2}}
 `, []string{`9:31: splice.bolts.sizes[1]: costs.bolt has no rate for M24 (rates for: M20)`}},
@@ -724,8 +737,8 @@ func TestDefaults(t *testing.T) {
 		{"wind not patterned by default", Case{Kind: KindWind}.Patterned(), false},
 		{"snow pattern true", Case{Kind: KindSnow, Pattern: &yes}.Patterned(), true},
 		{"permanent not patterned", Case{Kind: KindPermanent}.Patterned(), false},
-		{"threads in shear plane by default", BoltSpec{}.ThreadsInShear(), true},
-		{"threads not in shear plane", BoltSpec{ThreadsInShearPlane: &no}.ThreadsInShear(), false},
+		{"shear planes from the length by default", BoltSpec{}.ShearPlanes() == PlanesLength, true},
+		{"threads not in shear plane", BoltSpec{ThreadsInShearPlane: &no}.ShearPlanes() == PlanesShank, true},
 		{"8.8 preloadable (EN 1993-1-8 3.1.2)", PreloadableClass("8.8"), true},
 		{"10.9 preloadable (EN 1993-1-8 3.1.2)", PreloadableClass("10.9"), true},
 		{"6.8 not preloadable (EN 1993-1-8 3.1.2)", PreloadableClass("6.8"), false},

@@ -173,7 +173,7 @@ func PlausibleRanges() []PlausibleRange {
 	kg := func(v float64) string { return Kilograms(v).String() }
 	splicePlates := []string{"flange.outer.thickness", "flange.inner.thickness", "web.thickness"}
 	rates := []string{"costs.bolt", "costs.plate_per_kg", "costs.hole", "costs.faying_per_m2", "costs.splice",
-		"costs.lift", "vehicles[].cost"}
+		"costs.lift", "costs.assembly_per_kg", "vehicles[].cost"}
 	ranges := []PlausibleRange{
 		{id: rangeSpan, Keys: []string{"beam.spans"}, What: "a span", Min: MinSpan, Max: MaxSpan, show: m},
 		{id: rangeLength, Keys: []string{"beam.spans"}, What: "a beam length (spans and overhangs)", Max: MaxBeamLength, show: m},

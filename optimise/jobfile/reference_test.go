@@ -317,7 +317,9 @@ cases: {G: {kind: permanent, loads: [{udl: 10}]}}
 		{job, "scan.step", num(optimise.DefaultStep*1e-3) + " m"},
 		{job, "scan.alternatives", strconv.Itoa(optimise.DefaultAlternatives)},
 		{job, "limits.splices.min", "0"},
-		{sf, "bolt.threads_in_shear_plane", strconv.FormatBool(jobfile.BoltSpec{}.ThreadsInShear())},
+		{sf, "bolt.threads_in_shear_plane", "from the bolt length"},
+		{job, "splice.assemblies.shear_planes", jobfile.BoltSpec{}.ShearPlanes()},
+		{job, "splice.assemblies.shear_planes", splice.PlanesFromLength.String()},
 		{sf, "holes", jobfile.HolesNormal},
 	}
 	for _, r := range rows {

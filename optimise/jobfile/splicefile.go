@@ -24,14 +24,22 @@ type BoltSpec struct {
 	Meta
 	Size                string `yaml:"size,required"`          // "M20"
 	Class               string `yaml:"class,required"`         // BoltClasses
-	ThreadsInShearPlane *bool  `yaml:"threads_in_shear_plane"` // nil: the default, see ThreadsInShear
+	ThreadsInShearPlane *bool  `yaml:"threads_in_shear_plane"` // nil: from the bolt length; see ShearPlanes
+	System              string `yaml:"system"`                 // AssemblySystems; "" the default of the category and class
 }
 
-// ThreadsInShear reports whether the shear planes pass through the threaded part. The default
-// (key absent) is true, the conservative assumption of EN 1993-1-8 Table 3.4 (stress area As
-// and the lower αv for classes 4.8, 5.8, 6.8 and 10.9).
-func (b BoltSpec) ThreadsInShear() bool {
-	return b.ThreadsInShearPlane == nil || *b.ThreadsInShearPlane
+// ShearPlanes is where the shear checks take the bolts' shear planes: with the key absent,
+// from the length of each bolt group's assembly (PlanesLength); true assumes the thread in every
+// plane (stress area As, and the lower αv for classes 4.8, 5.8, 6.8 and 10.9, EN 1993-1-8
+// Table 3.4), false the plain shank.
+func (b BoltSpec) ShearPlanes() string {
+	switch {
+	case b.ThreadsInShearPlane == nil:
+		return PlanesLength
+	case *b.ThreadsInShearPlane:
+		return PlanesThread
+	}
+	return PlanesShank
 }
 
 // PlateSpec is the size of one cover plate [mm].

@@ -18,7 +18,7 @@ func TestLoadSpliceFile(t *testing.T) {
 	const tol = 1e-12
 	assert.Equal(t, "M20", sf.Bolt.Size)
 	assert.Equal(t, "8.8", sf.Bolt.Class)
-	assert.True(t, sf.Bolt.ThreadsInShear())
+	assert.Equal(t, PlanesThread, sf.Bolt.ShearPlanes())
 	assert.Equal(t, CategoryB, sf.Category)
 	assert.Equal(t, "A", sf.FrictionClass)
 	assert.Equal(t, HolesNormal, sf.Holes)
@@ -125,6 +125,11 @@ web:
 			`16:26: bolt.class: class 5.6 bolts cannot be preloaded (EN 1993-1-8 3.1.2: 8.8 and 10.9 only), as category C needs`,
 			`18:17: friction_class: unknown friction class "F" (allowed: A, B, C, D)`,
 		}},
+		{"bolting assembly systems", minimalSplice[len("bolt: {size: M16, class: \"4.6\"}\ncategory: A\n"):] +
+			"bolt: {size: M16, class: \"8.8\", system: HV}\ncategory: B\nfriction_class: A\n",
+			[]string{`16:41: bolt.system: HV assemblies (EN 14399-4) are made in class 10.9 only, not 8.8; use HR`}},
+		{"a preloaded system in category A", replaceOnce(minimalSplice, "class: \"4.6\"}", "class: \"4.6\", system: HR}"),
+			[]string{`1:41: bolt.system: HR assemblies are for preloaded bolts; a category A splice takes ISO 4014 or ISO 4017`}},
 		{"negative pitch, zero spacing", replaceOnce(minimalSplice,
 			"  rows: 1\n  end: 30\n  edge: 30\n", "  rows: 2\n  pitch: -80\n  spacing: 0\n  end: 30\n  edge: 30\n"),
 			[]string{`16:10: web.pitch: pitch must be greater than 0, got -80 mm`,

@@ -544,6 +544,30 @@ func (c *checker) spliceOptions(s *SpliceOptions) {
 	if s.Gap != nil {
 		c.gap(s.Where("gap"), *s.Gap)
 	}
+	if a := s.Assemblies; a != nil {
+		c.enum(a.Meta, "shear_planes", "shear-plane rule", a.ShearPlanes, ShearPlaneRules())
+		c.assemblySystem(a.Meta, a.System, s.Category)
+	}
+}
+
+// assemblySystem checks an assembly system against the splice category: the EN 14399 systems
+// (HR, HV) are for preloaded bolts, categories B and C; the ISO ones for category A. The
+// classes a system is made in are checked where the classes are resolved (optimise).
+func (c *checker) assemblySystem(m Meta, system, category string) {
+	c.enum(m, "system", "bolting assembly system", system, AssemblySystems())
+	if !m.Has("system") || !slices.Contains(AssemblySystems(), system) {
+		return
+	}
+	preloaded := category == CategoryB || category == CategoryC
+	if category == "" {
+		category = CategoryA
+	}
+	switch {
+	case PreloadedSystem(system) && !preloaded:
+		c.add(m.Where("system"), "%s assemblies are for preloaded bolts; a category %s splice takes %s or %s", system, clip(category), SystemISO4014, SystemISO4017)
+	case !PreloadedSystem(system) && preloaded:
+		c.add(m.Where("system"), "%s assemblies cannot be preloaded; a category %s splice takes %s or %s", system, clip(category), SystemHV, SystemHR)
+	}
 }
 
 // textLength checks the length of a text in characters against a plausible range.
@@ -829,7 +853,7 @@ func (c *checker) costs(k *Costs, s *SpliceOptions) {
 		key string
 		v   *float64
 	}{{"plate_per_kg", k.PlatePerKg}, {"hole", k.Hole}, {"faying_per_m2", k.FayingPerM2},
-		{"splice", k.Splice}, {"lift", k.Lift}}
+		{"splice", k.Splice}, {"lift", k.Lift}, {"assembly_per_kg", k.AssemblyPerKg}}
 	for _, r := range rates {
 		if r.v != nil {
 			c.rate(k.Where(r.key), r.key, *r.v)
@@ -895,6 +919,10 @@ func (c *checker) spliceFile(sf *SpliceFile) {
 	}
 	if b.Has("class") {
 		c.boltClass(b.Where("class"), b.Class, sf.Category)
+	}
+	c.assemblySystem(b.Meta, b.System, sf.Category)
+	if b.System == SystemHV && b.Has("class") && b.Class != "10.9" && slices.Contains(BoltClasses(), b.Class) {
+		c.add(b.Where("system"), "HV assemblies (EN 14399-4) are made in class 10.9 only, not %s; use HR", b.Class)
 	}
 	c.enum(sf.Meta, "category", "splice category", sf.Category, SpliceCategories())
 	c.enum(sf.Meta, "friction_class", "friction class", sf.FrictionClass, FrictionClasses())

@@ -164,6 +164,10 @@ type checkSplice struct {
 	BoltMaxSize    string         `json:"bolt_max_size"`
 	BoltSizesTried []string       `json:"bolt_sizes_tried"`
 	Detailing      checkDetailing `json:"detailing"`
+	// AssemblySystem is the bolting assembly system, "" for the default of the category and
+	// class; ShearPlanes the rule that places the shear planes (length, thread or shank).
+	AssemblySystem string `json:"assembly_system"`
+	ShearPlanes    string `json:"shear_planes"`
 }
 
 // checkDetailing is what check understood of splice.detailing.
@@ -185,6 +189,7 @@ type checkCosts struct {
 	FayingPerM2     float64            `json:"faying_per_m2"`
 	Splice          float64            `json:"splice"`
 	Lift            float64            `json:"lift"`
+	AssemblyPerKg   float64            `json:"assembly_per_kg"`
 }
 
 type checkScan struct {
@@ -350,7 +355,8 @@ func (s *checkBuilder) splice(st *optimise.Setup) {
 	z := sp.Sizing
 	c := checkSplice{Category: string(z.Category), FrictionClass: string(z.FrictionClass),
 		PlateGrade: st.PlateGrade, Distribution: string(sp.Distribution), Gap: z.Gap,
-		BoltSizes: z.Space.Sizes, BoltClasses: z.Space.Classes, Thicknesses: z.Space.Thicknesses}
+		BoltSizes: z.Space.Sizes, BoltClasses: z.Space.Classes, Thicknesses: z.Space.Thicknesses,
+		AssemblySystem: string(z.System), ShearPlanes: z.ShearPlanes.String()}
 	for _, a := range z.Space.Arrangements {
 		c.FlangePlates = append(c.FlangePlates, string(a))
 	}
@@ -368,7 +374,7 @@ func (s *checkBuilder) splice(st *optimise.Setup) {
 func (s *checkBuilder) costs(st *optimise.Setup) {
 	r := st.Rates
 	s.Costs = checkCosts{Indicative: !st.Costed, Bolt: r.Bolt, BoltClassFactor: r.BoltClassFactor,
-		PlatePerKg: r.PlatePerKg, Hole: r.Hole, FayingPerM2: r.FayingPerM2, Splice: r.Splice, Lift: st.Lift}
+		PlatePerKg: r.PlatePerKg, Hole: r.Hole, FayingPerM2: r.FayingPerM2, Splice: r.Splice, Lift: st.Lift, AssemblyPerKg: r.AssemblyPerKg}
 }
 
 // --- text ------------------------------------------------------------------------------
@@ -454,6 +460,13 @@ func writeCheckText(w io.Writer, s JobSummary) {
 		strings.Join(sp.BoltClasses, ", "), mark("splice.bolts.classes"))
 	fmt.Fprintf(w, "  plates %s%s, thicknesses %s mm%s; flange plates %s%s\n", sp.PlateGrade, mark("splice.plates.grade"),
 		joinShortNums(sp.Thicknesses, ", "), mark("splice.plates.thicknesses"), strings.Join(sp.FlangePlates, ", "), mark("splice.flange_plates"))
+	system := sp.AssemblySystem
+	if system == "" {
+		system = "HV for preloaded 10.9, HR for preloaded 8.8, ISO 4014 (ISO 4017 for short grips) otherwise"
+	}
+	fmt.Fprintf(w, "  bolt assemblies %s%s; shear planes %s%s\n", system, mark("splice.assemblies.system"),
+		map[string]string{"length": "on thread or shank from the bolt length", "thread": "in the thread, assumed",
+			"shank": "on the shank, assumed"}[sp.ShearPlanes], mark("splice.assemblies.shear_planes"))
 
 	writeCheckDetailing(w, sp, s.Section, mark)
 	writeCheckCosts(w, s.Costs, mark)
@@ -572,6 +585,7 @@ func writeCheckCosts(w io.Writer, c checkCosts, mark func(...string) string) {
 		shortNum(c.PlatePerKg), mark("costs.plate_per_kg", "costs"), shortNum(c.Hole), mark("costs.hole", "costs"),
 		shortNum(c.FayingPerM2), mark("costs.faying_per_m2", "costs"), shortNum(c.Splice), mark("costs.splice", "costs"),
 		shortNum(c.Lift), mark("costs.lift", "costs"))
+	fmt.Fprintf(w, "  per kg of bolt assembly %s%s\n", shortNum(c.AssemblyPerKg), mark("costs.assembly_per_kg", "costs"))
 }
 
 func sortedRateKeys(m map[string]float64) []string {

@@ -37,11 +37,15 @@ type DesignDoc struct {
 	Governing   string      `json:"governing"`
 	Quantities  quantityDoc `json:"quantities"`
 	Cost        spliceCost  `json:"cost"`
-	Beam        sectionDoc  `json:"beam"`
-	Member      *MemberDoc  `json:"member"`
-	Notes       []string    `json:"notes"`
-	KeepOut     *KeepOutDoc `json:"keep_out"`
-	Caution     string      `json:"caution"`
+	// Assemblies are the bolting assemblies of the flange and web bolt groups; Materials the
+	// splice's bill of materials.
+	Assemblies []AssemblyDoc `json:"assemblies"`
+	Materials  MaterialsDoc  `json:"materials"`
+	Beam       sectionDoc    `json:"beam"`
+	Member     *MemberDoc    `json:"member"`
+	Notes      []string      `json:"notes"`
+	KeepOut    *KeepOutDoc   `json:"keep_out"`
+	Caution    string        `json:"caution"`
 }
 
 // KeepOutDoc is the keep-out zone a designed position lies in (from and to in m).
@@ -107,12 +111,16 @@ func beamDoc(c optimise.SectionCheck) sectionDoc {
 }
 
 // SpliceDoc is a splice in the keys and units (mm) of the splice file, so that it can be
-// saved and checked again; it is the one shape of a splice in every document.
+// saved and checked again; it is the one shape of a splice in every document. The bolt's
+// threads_in_shear_plane is there only where a rule assumes the thread (true) or the shank
+// (false) in every plane: absent, as in the splice file, each plane follows from the bolt
+// length of its group; system only where one was chosen.
 type SpliceDoc struct {
 	Bolt struct {
 		Size    string `json:"size"`
 		Class   string `json:"class"`
-		Threads bool   `json:"threads_in_shear_plane"`
+		Threads *bool  `json:"threads_in_shear_plane,omitempty"`
+		System  string `json:"system,omitempty"`
 	} `json:"bolt"`
 	Category      string        `json:"category"`
 	FrictionClass string        `json:"friction_class,omitempty"`
@@ -172,6 +180,7 @@ type quantityDoc struct {
 	Bolts       int `json:"bolts"`
 	Holes       int `json:"holes"`
 	PlateMassKg Num `json:"plate_mass_kg"`
+	BoltMassKg  Num `json:"bolt_mass_kg"`
 	FayingM2    Num `json:"faying_area_m2"`
 }
 
@@ -192,7 +201,13 @@ func forceSetDoc(f splice.Forces) ForceSetDoc {
 // Splice is the shape of a splice geometry.
 func Splice(g splice.Geometry) SpliceDoc {
 	var s SpliceDoc
-	s.Bolt.Size, s.Bolt.Class, s.Bolt.Threads = g.Bolt.Size, g.Bolt.Class, g.Bolt.ThreadsInShearPlane
+	s.Bolt.Size, s.Bolt.Class, s.Bolt.System = g.Bolt.Size, g.Bolt.Class, string(g.Bolt.System)
+	switch g.Bolt.ShearPlanes {
+	case splice.PlanesInThread:
+		s.Bolt.Threads = ptr(true)
+	case splice.PlanesOnShank:
+		s.Bolt.Threads = ptr(false)
+	}
 	s.Category, s.Holes, s.Gap = string(g.Category), string(g.Holes), Num(g.Gap)
 	if s.Holes == "" {
 		s.Holes = string(splice.NormalHoles)
@@ -252,7 +267,7 @@ func Design(dc *optimise.DesignOutcome) DesignDoc {
 		Checks:      Checks(r.Checks),
 		Utilisation: Num(r.Utilisation), Governing: r.Governing.ID,
 		Quantities: quantityDoc{Bolts: r.Quantities.Bolts, Holes: r.Quantities.Holes,
-			PlateMassKg: Num(r.Quantities.PlateMass), FayingM2: Num(r.Quantities.FayingArea)},
+			PlateMassKg: Num(r.Quantities.PlateMass), BoltMassKg: Num(r.Quantities.BoltMass), FayingM2: Num(r.Quantities.FayingArea)},
 		Cost: spliceCost{Bolts: Num(r.Cost.Bolts), Holes: Num(r.Cost.Holes), Plates: Num(r.Cost.Plates),
 			Faying: Num(r.Cost.Faying), Splice: Num(r.Cost.Splice), Total: Num(r.Cost.Total)},
 		Notes: append([]string{}, r.Notes...), KeepOut: keepOutDoc(dc.KeepOut), Caution: Caution,
@@ -260,6 +275,8 @@ func Design(dc *optimise.DesignOutcome) DesignDoc {
 	if dc.Position != nil {
 		out.Position = NumPtr(*dc.Position)
 	}
+	out.Assemblies = Assemblies(r.Assemblies)
+	out.Materials = Materials(r.Materials(dc.PlateGrade))
 	out.Beam = beamDoc(dc.Beam)
 	if dc.Member != nil {
 		out.Member = ptr(Member(dc.Member))
@@ -330,10 +347,8 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 	writeBeamAtSplice(w, dc.Beam, dc.Member)
 
 	fmt.Fprintf(w, "\nSplice (%s)\n", r.Status)
-	threads := "threads in the shear planes"
-	if !g.Bolt.ThreadsInShearPlane {
-		threads = "shank in the shear planes"
-	}
+	threads := map[splice.ShearPlaneRule]string{splice.PlanesFromLength: "shear planes on thread or shank from the bolt lengths",
+		splice.PlanesInThread: "thread assumed in every shear plane", splice.PlanesOnShank: "plain shank assumed in every shear plane"}[g.Bolt.ShearPlanes]
 	cat := map[splice.Category]string{splice.CategoryA: "A (bearing)", splice.CategoryB: "B (slip-resistant at SLS)", splice.CategoryC: "C (slip-resistant at ULS)"}[g.Category]
 	fmt.Fprintf(w, "  Bolts:  %s %s, %s; category %s", g.Bolt.Size, g.Bolt.Class, threads, cat)
 	if g.Category.Preloaded() {
@@ -376,6 +391,9 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 		}
 		fmt.Fprintf(w, "    (column 1 is nearest the joint; each component taken with its adverse sign)\n")
 	}
+	if err := writeAssembliesText(w, r.Assemblies); err != nil {
+		return err
+	}
 
 	fmt.Fprintf(w, "\nChecks\n")
 	for i, c := range r.Checks {
@@ -411,8 +429,11 @@ func writeDesignText(w io.Writer, dc *optimise.DesignOutcome, r splice.Result, s
 		fmt.Fprintf(w, "THE SPLICE FAILS\n")
 	}
 	q := r.Quantities
-	fmt.Fprintf(w, "Quantities: %d bolts (%d flange, %d web), %d holes, %.1f kg of plate (flanges %.1f, web %.1f), %.2f m² of faying surface\n",
-		q.Bolts, q.FlangeBolts, q.WebBolts, q.Holes, q.PlateMass, q.FlangePlateMass, q.WebPlateMass, q.FayingArea)
+	fmt.Fprintf(w, "Quantities: %d bolts (%d flange, %d web), %d holes, %.1f kg of plate (flanges %.1f, web %.1f), %.1f kg of bolt assemblies, %.2f m² of faying surface\n",
+		q.Bolts, q.FlangeBolts, q.WebBolts, q.Holes, q.PlateMass, q.FlangePlateMass, q.WebPlateMass, q.BoltMass, q.FayingArea)
+	if err := writeMaterialsText(w, r.Materials(dc.PlateGrade)); err != nil {
+		return err
+	}
 	c := r.Cost
 	rates := "indicative rates, for ranking only"
 	if !dc.Indicative {

@@ -41,32 +41,44 @@ type ChosenSpliceDoc struct {
 	Cost        Num        `json:"cost"`
 	Bolts       int        `json:"bolts"`
 	PlateMass   Num        `json:"plate_mass_kg"`
+	BoltMass    Num        `json:"bolt_mass_kg"`
+	// Assemblies are the splice's bolt assemblies, Materials its bill of materials.
+	Assemblies []AssemblyDoc `json:"assemblies"`
+	Materials  MaterialsDoc  `json:"materials"`
 }
 
-// ChosenSplices is the shape of the sheets of a layout, left to right; no sheet is an empty
-// list.
-func ChosenSplices(sheets []optimise.SpliceSheet) []ChosenSpliceDoc {
+// ChosenSplices is the shape of the sheets of a layout, left to right, with each splice's bill
+// (bills, one a sheet); no sheet is an empty list.
+func ChosenSplices(sheets []optimise.SpliceSheet, bills []optimise.SpliceBill) []ChosenSpliceDoc {
 	out := []ChosenSpliceDoc{}
-	for _, sh := range sheets {
+	for i, sh := range sheets {
 		r := sh.Result
 		out = append(out, ChosenSpliceDoc{Name: sh.Name, Position: Num(sh.Position * ToM), Summary: SpliceWords(r.Geometry),
 			Splice: Splice(r.Geometry), Forces: forcesDoc(r, &sh.Origins), Beam: beamDoc(sh.Section), Checks: Checks(r.Checks),
 			Utilisation: Num(r.Utilisation), Governing: r.Governing.ID,
-			Cost: Num(r.Cost.Total), Bolts: r.Quantities.Bolts, PlateMass: Num(r.Quantities.PlateMass)})
+			Cost: Num(r.Cost.Total), Bolts: r.Quantities.Bolts, PlateMass: Num(r.Quantities.PlateMass), BoltMass: Num(r.Quantities.BoltMass),
+			Assemblies: Assemblies(r.Assemblies), Materials: Materials(bills[i].Materials)})
 	}
 	return out
 }
 
 // ReportResultDoc is result.json of the report folder: the optimise document with the
-// recommended layout's splices and their full checks.
+// recommended layout's splices, their full checks and bills, and the layout's bill of
+// materials (the lines of bom.csv).
 type ReportResultDoc struct {
 	OptimiseDoc
 	ChosenSplices []ChosenSpliceDoc `json:"chosen_splices"`
+	Bill          *MaterialsDoc     `json:"bill_of_materials"` // null when no layout fits
 }
 
 // ReportResult is the document of result.json.
 func ReportResult(o *optimise.Outcome) ReportResultDoc {
-	return ReportResultDoc{Optimise(o), ChosenSplices(o.Chosen)}
+	b := o.Bill()
+	d := ReportResultDoc{OptimiseDoc: Optimise(o), ChosenSplices: ChosenSplices(o.Chosen, b.Splices)}
+	if o.Infeasible == nil {
+		d.Bill = ptr(Materials(b.Total))
+	}
+	return d
 }
 
 // WriteReportSummary writes what `report` prints once the folder is written: the job, the

@@ -38,7 +38,7 @@ func mustJSON(t *testing.T, v any) string {
 func TestChosenSplicesJSON(t *testing.T) {
 	res := demoOutcome(t)
 	rec := res.Recommended()
-	raw, err := json.Marshal(ChosenSplices(res.Chosen))
+	raw, err := json.Marshal(ChosenSplices(res.Chosen, res.Bill().Splices))
 	require.NoError(t, err)
 	var out []struct {
 		Name      string           `json:"name"`
@@ -61,5 +61,5 @@ func TestChosenSplicesJSON(t *testing.T) {
 			assert.Contains(t, out[i].Splice, key, "splice file key (DESIGN.md section 8)")
 		}
 	}
-	assert.Equal(t, "[]", mustJSON(t, ChosenSplices(nil)), "no splice is an empty list, not null")
+	assert.Equal(t, "[]", mustJSON(t, ChosenSplices(nil, nil)), "no splice is an empty list, not null")
 }
