@@ -15,6 +15,14 @@ type Sizer struct {
 	once    sync.Once
 	parts   []boltParts // by bolt index of the resolved design space
 	scratch sync.Pool   // *[]float64: the closest attempt's row-free utilisations
+	fits    sync.Pool   // *fitCache: bolt assemblies chosen for plies, kept between positions
+}
+
+// fitCache is a searcher's store of the bolt assemblies chosen per bolt and plies, which do
+// not depend on the forces; a layout points into it, so a fit never moves.
+type fitCache struct {
+	fitF, fitW []int32
+	fits       fitPool
 }
 
 // boltParts are the drawable layouts of one bolt, listed once, read only afterwards, with what
@@ -56,10 +64,14 @@ func (z *Sizer) Size(uls Forces, sls *Forces) (Result, error) {
 	if buf != nil {
 		s.rowFreeU = *buf
 	}
+	if c, _ := z.fits.Get().(*fitCache); c != nil && len(c.fitF) == len(s.fitF) && len(c.fitW) == len(s.fitW) {
+		s.fitF, s.fitW, s.fits = c.fitF, c.fitW, c.fits
+	}
 	r, err := s.size()
 	if s.rowFreeU != nil {
 		z.scratch.Put(&s.rowFreeU)
 	}
+	z.fits.Put(&fitCache{fitF: s.fitF, fitW: s.fitW, fits: s.fits})
 	return r, err
 }
 
