@@ -297,19 +297,14 @@ func TestEnumeratorListsPathsInOrder(t *testing.T) {
 					return layoutKey{total: c, count: k, tie: tie, nodes: sites}
 				}
 				sort.Slice(want, func(i, j int) bool { return keyOf(want[i]).compare(keyOf(want[j])) < 0 })
-				layers := s.unconstrained(tr, k)
 				var got [][]int
-				if k == 0 || layers != nil {
-					fin := s.final(layers, k, tr)
-					if fin.ok() {
-						en := &enumerator{s: s, t: tr, k: k, layers: layers, paths: map[int][]pathEnt{}, heaps: map[int]*candHeap{}}
-						en.paths[en.state(k+1, s.n+1)] = []pathEnt{{cost: fin.cost, tie: fin.tie, pred: fin.pred}}
-						for m := 0; ; m++ {
-							if _, ok := en.kth(en.state(k+1, s.n+1), m); !ok {
-								break
-							}
-							got = append(got, en.sites(m))
+				if lt := s.lattice(tr, k, nil); lt != nil {
+					en := newEnumerator(s, tr, lt)
+					for m := 0; ; m++ {
+						if _, ok := en.kth(en.end(), m); !ok {
+							break
 						}
+						got = append(got, en.sites(m))
 					}
 				}
 				require.Equal(t, len(want), len(got), "trial %d tier %d k %d", trial, ti, k)

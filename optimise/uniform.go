@@ -279,10 +279,7 @@ func admitsCount(s *search, k int) bool {
 	return false
 }
 
-func admitsOn(s *search, t *tier, k int) bool {
-	layers := s.unconstrained(t, k)
-	return (k == 0 || layers != nil) && s.final(layers, k, t).ok()
-}
+func admitsOn(s *search, t *tier, k int) bool { return s.admits(t, k) }
 
 // widestTier returns the tier whose length and mass limits are each at least every other
 // tier's, −1 when there is none: with massless splices the pieces it admits include those of
@@ -893,6 +890,28 @@ func allOf(n int) bitset {
 func (b bitset) add(i int) { b[i/64] |= 1 << (i % 64) }
 
 func (b bitset) has(i int) bool { return b[i/64]&(1<<(i%64)) != 0 }
+
+// nextIn returns the first member in lo..hi, −1 when there is none.
+func (b bitset) nextIn(lo, hi int) int {
+	if lo > hi {
+		return -1
+	}
+	w := lo / 64
+	word := b[w] &^ (1<<(lo%64) - 1)
+	for {
+		if word != 0 {
+			if i := w*64 + bits.TrailingZeros64(word); i <= hi {
+				return i
+			}
+			return -1
+		}
+		w++
+		if w*64 > hi {
+			return -1
+		}
+		word = b[w]
+	}
+}
 
 // union adds o to b, and to also (when not nil) the members of o that b did not hold; it
 // returns how many those were.

@@ -1,0 +1,391 @@
+package optimise
+
+import (
+	"math"
+	"sort"
+)
+
+// The dynamic programme of one tier, splice count k and constraint keeps, for each layer
+// ℓ = 1..k (the ℓ-th splice), the best partial path to every node of a band: the nodes that
+// can lie on a k-splice layout at all. A node j is in layer ℓ's band only when
+//
+//   - a valid piece reaches it from a node of layer ℓ−1 that has a partial path (the band of
+//     the layer before, narrowed to the nodes with a path, spans the pieces' lengths forward),
+//   - and k−ℓ more splices can take it to the right end (tier.back, the same for every count
+//     and constraint, since only the splices before it are constrained), and
+//   - for a splice whose class the constraint fixes, it lies in that class's nodes.
+//
+// Every node of a k-splice layout is in its layer's band, and so is every node with a valid
+// piece to it that has a partial path: such a node reaches the end through it. So the best
+// partial path of a node of a layout is the one the full programme over every node finds, and
+// so are the predecessors the enumeration of paths looks at; nodes of a band that lie on no
+// layout may hold other values, which nothing reads. The bands are narrow where the limits
+// leave little choice (k near the fewest splices, a long beam of short pieces), so the work
+// and the memory follow the layouts that exist, not k × sites.
+
+// nodeRange is the nodes lo..hi; empty when lo > hi.
+type nodeRange struct{ lo, hi int }
+
+func (a nodeRange) empty() bool { return a.lo > a.hi }
+
+func (a nodeRange) and(b nodeRange) nodeRange { return nodeRange{max(a.lo, b.lo), min(a.hi, b.hi)} }
+
+// layer is one layer of the programme over its band: the best partial path to each node.
+type layer struct {
+	lo        int // node of the first entry
+	cost, tie []int64
+	pred      []int32 // −1: no partial path
+	tree      []int32 // range-minimum tree over the entries for the enumeration, built when first needed
+}
+
+func (ly *layer) hi() int { return ly.lo + len(ly.pred) - 1 }
+
+// ok reports whether a node of the band has a partial path; nodes outside the band have none.
+func (ly *layer) ok(node int) bool {
+	i := node - ly.lo
+	return i >= 0 && i < len(ly.pred) && ly.pred[i] >= 0
+}
+
+// lattice is the programme of one (tier, k, constraint): layers 1..k, and the best complete
+// path, to the right end.
+type lattice struct {
+	k      int
+	layers []layer // index 0 unused
+	fin    pathEnt
+}
+
+// at returns the best partial path to a node of a layer (0: the left end; k+1: the right end).
+func (lt *lattice) at(l, node int) (pathEnt, bool) {
+	switch {
+	case l == 0:
+		return pathEnt{pred: -1}, node == 0
+	case l == lt.k+1:
+		return lt.fin, true
+	}
+	ly := &lt.layers[l]
+	if !ly.ok(node) {
+		return pathEnt{}, false
+	}
+	i := node - ly.lo
+	return pathEnt{cost: ly.cost[i], tie: ly.tie[i], pred: ly.pred[i]}, true
+}
+
+// lattice runs the programme of one tier, count and constraint (nil: none) over the bands;
+// nil when no layout with k splices exists.
+func (s *search) lattice(t *tier, k int, c *constraint) *lattice {
+	end := s.n + 1
+	if k == 0 {
+		if !s.valid(0, end, t) {
+			return nil
+		}
+		return &lattice{fin: pathEnt{pred: 0}}
+	}
+	if k > s.n || k > s.mostSplices(t) || !s.extendBack(t, k-1) {
+		return nil
+	}
+	lt := &lattice{k: k, layers: make([]layer, k+1)}
+	prev := nodeRange{0, 0} // the nodes of the layer before with a partial path
+	for l := 1; l <= k; l++ {
+		b := t.back[k-l].and(s.reachFrom(prev, t)).and(nodeRange{1, s.n})
+		if c != nil && l <= len(c.fixed) {
+			b = b.and(s.classSpan(c.fixed[l-1]))
+		}
+		if b.empty() {
+			return nil
+		}
+		w := b.hi - b.lo + 1
+		ly := layer{lo: b.lo, cost: make([]int64, w), tie: make([]int64, w), pred: make([]int32, w)}
+		for i := range ly.pred {
+			ly.pred[i] = -1
+		}
+		lt.layers[l] = ly
+		if l == 1 {
+			prev = s.firstLayer(&lt.layers[1], t, c)
+		} else {
+			prev = s.nextLayer(&lt.layers[l-1], &lt.layers[l], l, t, c)
+		}
+		if prev.empty() {
+			return nil
+		}
+	}
+	best := -1
+	last := &lt.layers[k]
+	for i := prev.lo; i <= prev.hi; i++ {
+		if !last.ok(i) || !s.valid(i, end, t) {
+			continue
+		}
+		x := i - last.lo
+		if best < 0 || better(last.cost[x], last.tie[x], i, last.cost[best-last.lo], last.tie[best-last.lo], best) {
+			best = i
+		}
+	}
+	if best < 0 {
+		return nil
+	}
+	x := best - last.lo
+	lt.fin = pathEnt{cost: last.cost[x], tie: last.tie[x], pred: int32(best)}
+	return lt
+}
+
+// reachFrom returns the nodes a piece of valid length can reach from a node of a range: from
+// the first whose piece from the range's first node is long enough to the last whose piece
+// from its last node is short enough.
+func (s *search) reachFrom(from nodeRange, t *tier) nodeRange {
+	minL := math.Max(s.p.Limits.MinLength-lengthTol, 0)
+	lo := sort.Search(s.n+1, func(j int) bool {
+		l := s.length(from.lo, j)
+		return j > from.lo && l > 0 && l >= minL
+	})
+	hi := sort.Search(s.n+1, func(j int) bool { return s.length(from.hi, j) > t.maxLen+lengthTol }) - 1
+	return nodeRange{lo, hi}
+}
+
+// classSpan returns the nodes of a class's sites (those between its first and its last).
+func (s *search) classSpan(class int) nodeRange {
+	if sp, ok := s.classes[class]; ok {
+		return sp
+	}
+	return nodeRange{1, 0}
+}
+
+// firstLayer: one splice, the piece before it leaving the left end; it returns the nodes with
+// a partial path.
+func (s *search) firstLayer(ly *layer, t *tier, c *constraint) nodeRange {
+	got := nodeRange{ly.hi() + 1, ly.lo - 1}
+	for j := ly.lo; j <= ly.hi(); j++ {
+		if c.allows(1, s.class[j]) && s.valid(0, j, t) {
+			x := j - ly.lo
+			ly.cost[x], ly.tie[x], ly.pred[x] = s.cost[j], s.tie[j], 0
+			got = nodeRange{min(got.lo, j), j}
+		}
+	}
+	return got
+}
+
+// nextLayer computes layer ℓ ≥ 2 from layer ℓ−1 and returns the nodes with a partial path.
+// For each splice j the admissible previous splices i form a window in x (piece length
+// between the limits), found with two pointers that only move right; inside it the mass limit
+// holds for certain on the right part (a sliding-window minimum, a monotone deque) and is
+// checked piece by piece on a narrow band where it depends on the two splices' masses.
+func (s *search) nextLayer(prev, out *layer, l int, t *tier, c *constraint) nodeRange {
+	p := s.p
+	rho, rig := p.MassPerLength, p.Limits.Rigging
+	margin := 1e-9 * math.Max(1, t.maxMass)
+	massBinds := !(rho*t.maxLen+2*s.hmax+rig <= t.maxMass-margin)
+	surePass := func(i, j int) bool { return rho*s.length(i, j)+2*s.hmax+rig <= t.maxMass-margin }
+	minL := math.Max(p.Limits.MinLength-lengthTol, 0)
+	plo, phi := prev.lo, prev.hi()
+	pc := func(i int) int64 { return prev.cost[i-plo] }
+	pt := func(i int) int64 { return prev.tie[i-plo] }
+	lo, hi, sp, pushed := plo, plo-1, plo, plo-1
+	dq, head := s.deque[:0], 0
+	got := nodeRange{out.hi() + 1, out.lo - 1}
+	for j := out.lo; j <= out.hi(); j++ {
+		for hi+1 < j && hi < phi && s.length(hi+1, j) >= minL && s.length(hi+1, j) > 0 {
+			hi++
+		}
+		for lo <= phi && s.length(lo, j) > t.maxLen+lengthTol {
+			lo++
+		}
+		if massBinds {
+			for sp <= phi && !surePass(sp, j) {
+				sp++
+			}
+		}
+		bound := max(lo, sp)
+		for pushed < hi {
+			pushed++
+			if pushed < bound || !prev.ok(pushed) {
+				continue
+			}
+			for len(dq) > head {
+				b := dq[len(dq)-1]
+				if pc(b) < pc(pushed) || pc(b) == pc(pushed) && pt(b) <= pt(pushed) {
+					break
+				}
+				dq = dq[:len(dq)-1]
+			}
+			dq = append(dq, pushed)
+		}
+		for len(dq) > head && dq[head] < bound {
+			head++
+		}
+		if !c.allows(l, s.class[j]) {
+			continue
+		}
+		best := -1
+		if len(dq) > head && dq[head] <= hi {
+			best = dq[head]
+		}
+		if massBinds && lo <= hi {
+			// the band [first i that may pass, min(hi, sp−1)], checked piece by piece
+			top := min(hi, sp-1)
+			if top >= lo {
+				first := lo + sort.Search(top-lo+1, func(k int) bool {
+					i := lo + k
+					return rho*s.length(i, j)+s.hmin+s.half[j]+rig <= t.maxMass+massTol
+				})
+				for i := first; i <= top; i++ {
+					if !prev.ok(i) || !s.valid(i, j, t) {
+						continue
+					}
+					if best < 0 || better(pc(i), pt(i), i, pc(best), pt(best), best) {
+						best = i
+					}
+				}
+			}
+		}
+		if best >= 0 {
+			x := j - out.lo
+			out.cost[x], out.tie[x], out.pred[x] = pc(best)+s.cost[j], pt(best)+s.tie[j], int32(best)
+			got = nodeRange{min(got.lo, j), j}
+		}
+	}
+	s.deque = dq[:0]
+	return got
+}
+
+// extendBack makes t.back hold counts 0..c when they are not empty; it reports whether
+// t.back[c] exists and is not empty.
+func (s *search) extendBack(t *tier, c int) bool {
+	if t.back == nil {
+		t.backSet = newBitset(s.n + 2)
+		got := nodeRange{s.n + 1, 0}
+		from := sort.Search(s.n, func(k int) bool { return s.length(k+1, s.n+1) <= t.maxLen+lengthTol }) + 1
+		for i := from; i <= s.n; i++ {
+			if l := s.length(i, s.n+1); l <= 0 || l < s.p.Limits.MinLength-lengthTol {
+				break
+			}
+			if s.valid(i, s.n+1, t) {
+				t.backSet.add(i)
+				got = nodeRange{min(got.lo, i), i}
+			}
+		}
+		t.back = append(t.back, got)
+	}
+	for len(t.back) <= c && !t.back[len(t.back)-1].empty() {
+		t.back = append(t.back, s.backStep(t))
+	}
+	return c < len(t.back) && !t.back[c].empty()
+}
+
+// backStep computes the nodes from which one more splice than the last entry of t.back reaches
+// the right end: those with a valid piece to one of its nodes. For each node i the next
+// splices j form a window in x, found with pointers that only move right; the mass limit
+// holds for certain on its left part and is checked piece by piece beyond.
+func (s *search) backStep(t *tier) nodeRange {
+	p, n := s.p, s.n
+	g, set := t.back[len(t.back)-1], t.backSet
+	rho, rig := p.MassPerLength, p.Limits.Rigging
+	margin := 1e-9 * math.Max(1, t.maxMass)
+	massBinds := !(rho*t.maxLen+2*s.hmax+rig <= t.maxMass-margin)
+	surePass := func(i, j int) bool { return rho*s.length(i, j)+2*s.hmax+rig <= t.maxMass-margin }
+	minL := math.Max(p.Limits.MinLength-lengthTol, 0)
+	from := sort.Search(n, func(k int) bool { return s.length(k+1, g.lo) <= t.maxLen+lengthTol }) + 1
+	to := sort.Search(n+1, func(i int) bool {
+		l := s.length(i, g.hi)
+		return i >= g.hi || !(l > 0 && l >= minL)
+	}) - 1
+	next := newBitset(n + 2)
+	got := nodeRange{n + 1, 0}
+	jlo, jhi, jsp := g.lo, g.lo-1, g.lo-1
+	for i := max(from, 1); i <= to; i++ {
+		for jlo <= g.hi && (jlo <= i || !(s.length(i, jlo) > 0 && s.length(i, jlo) >= minL)) {
+			jlo++
+		}
+		for jhi < g.hi && s.length(i, jhi+1) <= t.maxLen+lengthTol {
+			jhi++
+		}
+		if jlo > jhi {
+			continue
+		}
+		sure := jhi
+		if massBinds {
+			for jsp < g.hi && surePass(i, jsp+1) {
+				jsp++
+			}
+			sure = min(jhi, jsp)
+		}
+		in := jlo <= sure && set.nextIn(jlo, sure) >= 0
+		if !in && massBinds {
+			// beyond the sure part, up to the last j the masses may still allow
+			last := max(jlo, sure+1) + sort.Search(jhi-max(jlo, sure+1)+1, func(k int) bool {
+				j := max(jlo, sure+1) + k
+				return rho*s.length(i, j)+s.half[i]+s.hmin+rig > t.maxMass+massTol
+			}) - 1
+			for j := set.nextIn(max(jlo, sure+1), last); j >= 0 && !in; j = set.nextIn(j+1, last) {
+				in = s.valid(i, j, t)
+			}
+		}
+		if in {
+			next.add(i)
+			got = nodeRange{min(got.lo, i), i}
+		}
+	}
+	t.backSet = next
+	return got
+}
+
+// mostSplices returns the most splices a chain of valid pieces from the left end can hold on
+// a tier (a layer ℓ of the programme has a partial path exactly when ℓ is at most this),
+// found once by a longest-path programme with the same windows as nextLayer.
+func (s *search) mostSplices(t *tier) int {
+	if t.most >= 0 {
+		return t.most
+	}
+	p, n := s.p, s.n
+	rho, rig := p.MassPerLength, p.Limits.Rigging
+	margin := 1e-9 * math.Max(1, t.maxMass)
+	massBinds := !(rho*t.maxLen+2*s.hmax+rig <= t.maxMass-margin)
+	surePass := func(i, j int) bool { return rho*s.length(i, j)+2*s.hmax+rig <= t.maxMass-margin }
+	minL := math.Max(p.Limits.MinLength-lengthTol, 0)
+	count := make([]int32, n+1) // splices of the longest chain ending at each site; 0: none
+	lo, hi, sp, pushed := 1, 0, 1, 0
+	var dq []int
+	head := 0
+	for j := 1; j <= n; j++ {
+		for hi+1 < j && s.length(hi+1, j) >= minL && s.length(hi+1, j) > 0 {
+			hi++
+		}
+		for lo <= n && s.length(lo, j) > t.maxLen+lengthTol {
+			lo++
+		}
+		if massBinds {
+			for sp <= n && !surePass(sp, j) {
+				sp++
+			}
+		}
+		bound := max(lo, sp)
+		for pushed < hi {
+			pushed++
+			if pushed < bound || count[pushed] == 0 {
+				continue
+			}
+			for len(dq) > head && count[dq[len(dq)-1]] <= count[pushed] {
+				dq = dq[:len(dq)-1]
+			}
+			dq = append(dq, pushed)
+		}
+		for len(dq) > head && dq[head] < bound {
+			head++
+		}
+		var best int32
+		if s.valid(0, j, t) {
+			best = 1
+		}
+		if len(dq) > head {
+			best = max(best, count[dq[head]]+1)
+		}
+		if massBinds && lo <= hi {
+			for i := lo; i <= min(hi, sp-1); i++ {
+				if count[i] > 0 && count[i]+1 > best && s.valid(i, j, t) {
+					best = count[i] + 1
+				}
+			}
+		}
+		count[j] = best
+		t.most = max(t.most, int(best))
+	}
+	t.most = max(t.most, 0)
+	return t.most
+}
