@@ -364,7 +364,7 @@ func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) ([]Rea
 			}
 		}
 		if c, q := b.extremes(ac, state, mx, mn); c >= 0 {
-			return nil, b.combinationFault(ac, c, q, reactionQuantity, sp.X)
+			return nil, b.combinationFault(ac, c, q, ReactionQuantity, sp.X)
 		}
 		out[si] = re
 	}

@@ -11,12 +11,13 @@ import (
 //
 //   - a valid piece reaches it from a node of layer ℓ−1 that has a partial path (the band of
 //     the layer before, narrowed to the nodes with a path, spans the pieces' lengths forward),
-//   - and k−ℓ more splices can take it to the right end (tier.back, the same for every count
-//     and constraint, since only the splices before it are constrained), and
+//   - and k−ℓ more splices may take it to the right end as far as the pieces' lengths go
+//     (toEnd), and
 //   - for a splice whose class the constraint fixes, it lies in that class's nodes.
 //
 // Every node of a k-splice layout is in its layer's band, and so is every node with a valid
-// piece to it that has a partial path: such a node reaches the end through it. So the best
+// piece to it that has a partial path: such a node reaches the end through it (and so lies
+// within toEnd, which holds every node that can). So the best
 // partial path of a node of a layout is the one the full programme over every node finds, and
 // so are the predecessors the enumeration of paths looks at; nodes of a band that lie on no
 // layout may hold other values, which nothing reads. The bands are narrow where the limits
@@ -80,13 +81,13 @@ func (s *search) lattice(t *tier, k int, c *constraint) *lattice {
 		}
 		return &lattice{fin: pathEnt{pred: 0}}
 	}
-	if k > s.n || k > s.mostSplices(t) || !s.extendBack(t, k-1) {
+	if k > s.n {
 		return nil
 	}
 	lt := &lattice{k: k, layers: make([]layer, k+1)}
 	prev := nodeRange{0, 0} // the nodes of the layer before with a partial path
 	for l := 1; l <= k; l++ {
-		b := t.back[k-l].and(s.reachFrom(prev, t)).and(nodeRange{1, s.n})
+		b := s.toEnd(t, k-l).and(s.reachFrom(prev, t)).and(nodeRange{1, s.n})
 		if c != nil && l <= len(c.fixed) {
 			b = b.and(s.classSpan(c.fixed[l-1]))
 		}
@@ -245,85 +246,22 @@ func (s *search) nextLayer(prev, out *layer, l int, t *tier, c *constraint) node
 	return got
 }
 
-// extendBack makes t.back hold counts 0..c when they are not empty; it reports whether
-// t.back[c] exists and is not empty.
-func (s *search) extendBack(t *tier, c int) bool {
-	if t.back == nil {
-		t.backSet = newBitset(s.n + 2)
-		got := nodeRange{s.n + 1, 0}
-		from := sort.Search(s.n, func(k int) bool { return s.length(k+1, s.n+1) <= t.maxLen+lengthTol }) + 1
-		for i := from; i <= s.n; i++ {
-			if l := s.length(i, s.n+1); l <= 0 || l < s.p.Limits.MinLength-lengthTol {
-				break
-			}
-			if s.valid(i, s.n+1, t) {
-				t.backSet.add(i)
-				got = nodeRange{min(got.lo, i), i}
-			}
-		}
-		t.back = append(t.back, got)
-	}
-	for len(t.back) <= c && !t.back[len(t.back)-1].empty() {
-		t.back = append(t.back, s.backStep(t))
-	}
-	return c < len(t.back) && !t.back[c].empty()
-}
-
-// backStep computes the nodes from which one more splice than the last entry of t.back reaches
-// the right end: those with a valid piece to one of its nodes. For each node i the next
-// splices j form a window in x, found with pointers that only move right; the mass limit
-// holds for certain on its left part and is checked piece by piece beyond.
-func (s *search) backStep(t *tier) nodeRange {
-	p, n := s.p, s.n
-	g, set := t.back[len(t.back)-1], t.backSet
-	rho, rig := p.MassPerLength, p.Limits.Rigging
-	margin := 1e-9 * math.Max(1, t.maxMass)
-	massBinds := !(rho*t.maxLen+2*s.hmax+rig <= t.maxMass-margin)
-	surePass := func(i, j int) bool { return rho*s.length(i, j)+2*s.hmax+rig <= t.maxMass-margin }
-	minL := math.Max(p.Limits.MinLength-lengthTol, 0)
-	from := sort.Search(n, func(k int) bool { return s.length(k+1, g.lo) <= t.maxLen+lengthTol }) + 1
-	to := sort.Search(n+1, func(i int) bool {
-		l := s.length(i, g.hi)
-		return i >= g.hi || !(l > 0 && l >= minL)
-	}) - 1
-	next := newBitset(n + 2)
-	got := nodeRange{n + 1, 0}
-	jlo, jhi, jsp := g.lo, g.lo-1, g.lo-1
-	for i := max(from, 1); i <= to; i++ {
-		for jlo <= g.hi && (jlo <= i || !(s.length(i, jlo) > 0 && s.length(i, jlo) >= minL)) {
-			jlo++
-		}
-		for jhi < g.hi && s.length(i, jhi+1) <= t.maxLen+lengthTol {
-			jhi++
-		}
-		if jlo > jhi {
-			continue
-		}
-		sure := jhi
-		if massBinds {
-			for jsp < g.hi && surePass(i, jsp+1) {
-				jsp++
-			}
-			sure = min(jhi, jsp)
-		}
-		in := jlo <= sure && set.nextIn(jlo, sure) >= 0
-		if !in && massBinds {
-			// beyond the sure part, up to the last j the masses may still allow
-			last := max(jlo, sure+1) + sort.Search(jhi-max(jlo, sure+1)+1, func(k int) bool {
-				j := max(jlo, sure+1) + k
-				return rho*s.length(i, j)+s.half[i]+s.hmin+rig > t.maxMass+massTol
-			}) - 1
-			for j := set.nextIn(max(jlo, sure+1), last); j >= 0 && !in; j = set.nextIn(j+1, last) {
-				in = s.valid(i, j, t)
-			}
-		}
-		if in {
-			next.add(i)
-			got = nodeRange{min(got.lo, i), i}
-		}
-	}
-	t.backSet = next
-	return got
+// toEnd returns the nodes from which c more splices (c+1 pieces) may reach the right end as
+// far as the pieces' lengths go: the pieces of a chain from node i to the right end sum to
+// length(i, n+1) − c·gap, and each lies within the length limits. It holds every node that
+// can (the mass limit and the positions between may rule out some of them), which is all
+// the programme needs of it; a margin of a micrometre covers the rounding of the sums.
+func (s *search) toEnd(t *tier, c int) nodeRange {
+	p := s.p
+	const slack = 1e-3 // [mm]
+	pieces := float64(c + 1)
+	least := pieces*math.Max(p.Limits.MinLength-lengthTol, 0) + float64(c)*p.Gap - slack
+	most := pieces*(t.maxLen+lengthTol) + float64(c)*p.Gap + slack
+	end := s.n + 1
+	// length(i, end) falls as i rises
+	lo := 1 + sort.Search(s.n, func(k int) bool { return s.length(k+1, end) <= most })
+	hi := sort.Search(s.n, func(k int) bool { return s.length(k+1, end) < least })
+	return nodeRange{lo, hi}
 }
 
 // mostSplices returns the most splices a chain of valid pieces from the left end can hold on

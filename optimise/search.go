@@ -41,12 +41,8 @@ type tier struct {
 	payload  float64 // [kg]
 	tripCost int64   // micro-units
 
-	// back[c] spans the nodes from which c more splices (c+1 valid pieces) reach the right
-	// end, extended as larger counts need it (extendBack); backSet holds the last one's nodes.
-	back    []nodeRange
-	backSet bitset
-	most    int          // the most splices a chain of valid pieces from the left end holds; −1 until known
-	admits  map[int]bool // whether a layout with k splices exists, as found
+	most   int          // the most splices a chain of valid pieces from the left end holds; −1 until known
+	admits map[int]bool // whether a layout with k splices exists, as found
 }
 
 // constraint restricts the classes of the splices (Lawler partitioning of the alternatives):
