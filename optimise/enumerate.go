@@ -141,7 +141,7 @@ func (en *enumerator) sites(m int) []int {
 // layer's range-minimum tree and splitting the window around it.
 type predOrder struct {
 	en       *enumerator
-	ly       *layer
+	layer    int // the layer before the state's
 	node     int
 	skip     int
 	parts    []part // the window's unsplit parts, a heap by their best node
@@ -159,8 +159,8 @@ func (en *enumerator) predOrder(layer, node, skip int) *predOrder {
 		return po
 	}
 	s := en.s
-	po.ly = &en.lt.layers[layer-1]
-	ly := po.ly
+	po.layer = layer - 1
+	ly := po.ly()
 	lo := 1 + sort.Search(s.n, func(k int) bool { return s.length(k+1, node) <= en.t.maxLen+lengthTol })
 	hi := lo - 1
 	for hi+1 <= s.n && hi+1 < node {
@@ -174,17 +174,23 @@ func (en *enumerator) predOrder(layer, node, skip int) *predOrder {
 		po.emptyNow = true
 		return po
 	}
-	if ly.tree == nil {
-		ly.tree = buildTree(ly)
-	}
 	if b := queryTree(ly, lo, hi); b >= 0 {
 		po.parts = []part{{lo, hi, b}}
 	}
 	return po
 }
 
+// ly returns the entries of the layer before (the lattice may have recomputed them).
+func (po *predOrder) ly() *layer {
+	ly := po.en.lt.layer(po.layer)
+	if ly.tree == nil {
+		ly.tree = buildTree(ly)
+	}
+	return ly
+}
+
 func (po *predOrder) less(a, b part) bool {
-	ly := po.ly
+	ly := po.ly()
 	return better(ly.cost[a.best], ly.tie[a.best], a.best, ly.cost[b.best], ly.tie[b.best], b.best)
 }
 
@@ -195,7 +201,7 @@ func (po *predOrder) settle() {
 		return
 	}
 	for len(po.parts) > 0 {
-		i := po.parts[0].best + po.ly.lo
+		i := po.parts[0].best + po.ly().lo
 		if i != po.skip && po.en.s.valid(i, po.node, po.en.t) {
 			po.settled = true
 			return
@@ -215,7 +221,7 @@ func (po *predOrder) splitTop() {
 		if r[0] > r[1] {
 			continue
 		}
-		if b := queryTree(po.ly, r[0], r[1]); b >= 0 {
+		if b := queryTree(po.ly(), r[0], r[1]); b >= 0 {
 			po.parts = append(po.parts, part{r[0], r[1], b})
 			po.up(len(po.parts) - 1)
 		}
@@ -261,7 +267,7 @@ func (po *predOrder) peek() (int, bool) {
 	if po.empty() {
 		return 0, false
 	}
-	return po.parts[0].best + po.ly.lo, true
+	return po.parts[0].best + po.ly().lo, true
 }
 
 // pop takes the next predecessor.

@@ -48,12 +48,28 @@ func (ly *layer) ok(node int) bool {
 }
 
 // lattice is the programme of one (tier, k, constraint): layers 1..k, and the best complete
-// path, to the right end.
+// path, to the right end. It holds every layer while they are few entries in all; past
+// latticeEntries it holds only checkpoints — layers 1, 1+every, 1+2·every, … and k, every
+// ≈ √k — and recomputes a layer from the checkpoint below it when asked for it (the same
+// steps give the same entries), keeping the layers it recomputed while they stay within
+// latticeEntries. So its memory is bounded by about (k/every + every) bands, not k bands,
+// however long the beam and however many splices.
 type lattice struct {
+	s      *search
+	t      *tier
+	c      *constraint
 	k      int
-	layers []layer // index 0 unused
+	bands  []nodeRange // per layer: its nodes (index 0 unused)
+	held   []*layer    // per layer: its entries, nil when not held
+	every  int         // 1 while every layer is held, else the checkpoint interval
+	cache  []int       // layers held besides the checkpoints, the least recently computed first
+	cached int         // entries of the cache
 	fin    pathEnt
 }
+
+// latticeEntries bounds the entries a lattice holds beyond its checkpoints (20 bytes each);
+// search.budget takes it.
+const latticeEntries = 1 << 18
 
 // at returns the best partial path to a node of a layer (0: the left end; k+1: the right end).
 func (lt *lattice) at(l, node int) (pathEnt, bool) {
@@ -63,12 +79,52 @@ func (lt *lattice) at(l, node int) (pathEnt, bool) {
 	case l == lt.k+1:
 		return lt.fin, true
 	}
-	ly := &lt.layers[l]
+	ly := lt.layer(l)
 	if !ly.ok(node) {
 		return pathEnt{}, false
 	}
 	i := node - ly.lo
 	return pathEnt{cost: ly.cost[i], tie: ly.tie[i], pred: ly.pred[i]}, true
+}
+
+func (lt *lattice) checkpoint(l int) bool { return (l-1)%lt.every == 0 || l == lt.k }
+
+// layer returns layer l's entries, recomputing them (and the layers between) from the
+// checkpoint below when they are not held.
+func (lt *lattice) layer(l int) *layer {
+	if ly := lt.held[l]; ly != nil {
+		return ly
+	}
+	from := l - (l-1)%lt.every
+	ly := lt.held[from]
+	for m := from + 1; m <= l; m++ {
+		if h := lt.held[m]; h != nil {
+			ly = h
+			continue
+		}
+		next := newLayer(lt.bands[m])
+		lt.s.nextLayer(ly, next, m, lt.t, lt.c)
+		ly = next
+		lt.held[m] = ly
+		lt.cache = append(lt.cache, m)
+		lt.cached += len(ly.pred)
+		for lt.cached > lt.s.budget && len(lt.cache) > 1 && lt.cache[0] != l {
+			old := lt.cache[0]
+			lt.cache = lt.cache[1:]
+			lt.cached -= len(lt.held[old].pred)
+			lt.held[old] = nil
+		}
+	}
+	return ly
+}
+
+func newLayer(b nodeRange) *layer {
+	w := b.hi - b.lo + 1
+	ly := &layer{lo: b.lo, cost: make([]int64, w), tie: make([]int64, w), pred: make([]int32, w)}
+	for i := range ly.pred {
+		ly.pred[i] = -1
+	}
+	return ly
 }
 
 // lattice runs the programme of one tier, count and constraint (nil: none) over the bands;
@@ -84,34 +140,43 @@ func (s *search) lattice(t *tier, k int, c *constraint) *lattice {
 	if k > s.n {
 		return nil
 	}
-	lt := &lattice{k: k, layers: make([]layer, k+1)}
-	prev := nodeRange{0, 0} // the nodes of the layer before with a partial path
+	lt := &lattice{s: s, t: t, c: c, k: k, bands: make([]nodeRange, k+1), held: make([]*layer, k+1), every: 1}
+	total := 0
+	var last *layer
+	got := nodeRange{0, 0} // the nodes of the layer before with a partial path
 	for l := 1; l <= k; l++ {
-		b := s.toEnd(t, k-l).and(s.reachFrom(prev, t)).and(nodeRange{1, s.n})
+		b := s.toEnd(t, k-l).and(s.reachFrom(got, t)).and(nodeRange{1, s.n})
 		if c != nil && l <= len(c.fixed) {
 			b = b.and(s.classSpan(c.fixed[l-1]))
 		}
 		if b.empty() {
 			return nil
 		}
-		w := b.hi - b.lo + 1
-		ly := layer{lo: b.lo, cost: make([]int64, w), tie: make([]int64, w), pred: make([]int32, w)}
-		for i := range ly.pred {
-			ly.pred[i] = -1
-		}
-		lt.layers[l] = ly
+		lt.bands[l] = b
+		ly := newLayer(b)
 		if l == 1 {
-			prev = s.firstLayer(&lt.layers[1], t, c)
+			got = s.firstLayer(ly, t, c)
 		} else {
-			prev = s.nextLayer(&lt.layers[l-1], &lt.layers[l], l, t, c)
+			got = s.nextLayer(last, ly, l, t, c)
 		}
-		if prev.empty() {
+		if got.empty() {
 			return nil
+		}
+		last = ly
+		if total += len(ly.pred); lt.every == 1 && total > s.budget {
+			lt.every = max(2, int(math.Ceil(math.Sqrt(float64(k)))))
+			for m := 1; m < l; m++ {
+				if !lt.checkpoint(m) {
+					lt.held[m] = nil
+				}
+			}
+		}
+		if lt.every == 1 || lt.checkpoint(l) {
+			lt.held[l] = ly
 		}
 	}
 	best := -1
-	last := &lt.layers[k]
-	for i := prev.lo; i <= prev.hi; i++ {
+	for i := got.lo; i <= got.hi; i++ {
 		if !last.ok(i) || !s.valid(i, end, t) {
 			continue
 		}
@@ -154,7 +219,7 @@ func (s *search) classSpan(class int) nodeRange {
 func (s *search) firstLayer(ly *layer, t *tier, c *constraint) nodeRange {
 	got := nodeRange{ly.hi() + 1, ly.lo - 1}
 	for j := ly.lo; j <= ly.hi(); j++ {
-		if c.allows(1, s.class[j]) && s.valid(0, j, t) {
+		if c.allows(1, int(s.class[j])) && s.valid(0, j, t) {
 			x := j - ly.lo
 			ly.cost[x], ly.tie[x], ly.pred[x] = s.cost[j], s.tie[j], 0
 			got = nodeRange{min(got.lo, j), j}
@@ -211,7 +276,7 @@ func (s *search) nextLayer(prev, out *layer, l int, t *tier, c *constraint) node
 		for len(dq) > head && dq[head] < bound {
 			head++
 		}
-		if !c.allows(l, s.class[j]) {
+		if !c.allows(l, int(s.class[j])) {
 			continue
 		}
 		best := -1

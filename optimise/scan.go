@@ -216,36 +216,37 @@ func scanShared(src Forces, cands []Candidate, open []int, d Designer, workers i
 	for k, i := range open {
 		cands[i].Forces = forces[k]
 	}
-	forces, xs = nil, nil
 	force := func(k int32) *PositionForces { return &cands[open[k]].Forces }
 	order := make([]int32, len(open)) // the open positions by their forces, then in scan order
 	for k := range order {
 		order[k] = int32(k)
 	}
 	slices.SortFunc(order, func(a, b int32) int { return cmp.Or(compareForces(force(a), force(b)), cmp.Compare(a, b)) })
-	var starts []int32 // where each distinct force set's run of order begins
-	unique := make([]PositionForces, 0, 64)
+	var runs []int32 // where each distinct force set's run of order begins
 	for r, k := range order {
 		if r == 0 || *force(k) != *force(order[r-1]) {
-			starts = append(starts, int32(r))
-			unique = append(unique, *force(k))
+			runs = append(runs, int32(r))
 		}
 	}
-	stats.Shared += len(open) - len(starts)
-	designs, err := designAll(d, unique, workers)
+	// sized in the order of their first positions, each design written to every position of its run
+	slices.SortFunc(runs, func(a, b int32) int { return cmp.Compare(order[a], order[b]) })
+	stats.Shared += len(open) - len(runs)
+	run := func(u int) []int32 {
+		end := int(runs[u]) + 1
+		for end < len(order) && *force(order[end]) == *force(order[runs[u]]) {
+			end++
+		}
+		return order[runs[u]:end]
+	}
+	err = designAll(d, len(runs), func(u int) PositionForces { return *force(order[runs[u]]) }, func(u int, des SpliceDesign) {
+		for _, k := range run(u) {
+			cands[open[k]].Design = des
+		}
+	}, workers)
 	if err != nil {
 		return err
 	}
-	stats.Sized += len(unique)
-	for u, start := range starts {
-		end := len(order)
-		if u+1 < len(starts) {
-			end = int(starts[u+1])
-		}
-		for _, k := range order[start:end] {
-			cands[open[k]].Design = designs[u]
-		}
-	}
+	stats.Sized += len(runs)
 	return nil
 }
 
@@ -260,24 +261,32 @@ func compareSet(a, b *ForceSet) int {
 		cmp.Compare(a.NMax, b.NMax), cmp.Compare(a.NMin, b.NMin))
 }
 
-// designAll sizes each force set, at most workers at a time; the first error wins.
-func designAll(d Designer, fs []PositionForces, workers int) ([]SpliceDesign, error) {
+// designAll sizes the force sets 0..n−1, at most workers at a time, and puts each design
+// (put is called at once for different sets); the first error wins.
+func designAll(d Designer, n int, force func(int) PositionForces, put func(int, SpliceDesign), workers int) error {
 	sh := newSharer()
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
-	workers = min(workers, len(fs))
-	out := make([]SpliceDesign, len(fs))
-	errs := make([]error, len(fs))
-	if workers <= 1 {
-		for i, f := range fs {
-			if out[i], errs[i] = d.Design(f); errs[i] != nil {
-				return nil, errs[i]
-			}
-			sh.share(&out[i])
+	workers = min(workers, n)
+	design := func(i int) error {
+		des, err := d.Design(force(i))
+		if err != nil {
+			return err
 		}
-		return out, nil
+		sh.share(&des)
+		put(i, des)
+		return nil
 	}
+	if workers <= 1 {
+		for i := range n {
+			if err := design(i); err != nil {
+				return err
+			}
+		}
+		return nil
+	}
+	errs := make([]error, n)
 	var wg sync.WaitGroup
 	next := make(chan int)
 	for w := 0; w < workers; w++ {
@@ -285,21 +294,19 @@ func designAll(d Designer, fs []PositionForces, workers int) ([]SpliceDesign, er
 		go func() {
 			defer wg.Done()
 			for i := range next {
-				if out[i], errs[i] = d.Design(fs[i]); errs[i] == nil {
-					sh.share(&out[i])
-				}
+				errs[i] = design(i)
 			}
 		}()
 	}
-	for i := range fs {
+	for i := range n {
 		next <- i
 	}
 	close(next)
 	wg.Wait()
 	for _, err := range errs {
 		if err != nil {
-			return nil, err
+			return err
 		}
 	}
-	return out, nil
+	return nil
 }

@@ -2,6 +2,8 @@ package optimise
 
 import (
 	"container/heap"
+	"fmt"
+	"iter"
 	"math"
 	"slices"
 )
@@ -70,29 +72,35 @@ type search struct {
 	n          int
 	start, end []float64 // steel start of a piece leaving node i, steel end of one arriving at node j
 	half       []float64 // half the splice mass at each node [kg]
+	x          []float64 // the site's position [mm]
 	cost, tie  []int64
-	class      []int
+	class, ref []int32 // the site's Class and Candidate
 	hmin, hmax float64
 	minCost    int64
 	lift       int64
 	tiers      []*tier
 	classes    map[int]nodeRange // the nodes from each class's first site to its last
 	deque      []int             // nextLayer's, kept between layers
+	budget     int               // entries a lattice holds beyond its checkpoints: latticeEntries
 }
 
-func newSearch(p *LayoutProblem) *search {
-	n := len(p.Sites)
+func newSearch(p *LayoutProblem) *search { return newSearchOf(p, len(p.Sites), slices.Values(p.Sites)) }
+
+// newSearchOf builds the search of a problem over n sites given in order in place of its
+// own; the search keeps what it needs of them, not the sites.
+func newSearchOf(p *LayoutProblem, n int, sites iter.Seq[Site]) *search {
 	s := &search{p: p, n: n, start: make([]float64, n+2), end: make([]float64, n+2), half: make([]float64, n+2),
-		cost: make([]int64, n+2), tie: make([]int64, n+2), class: make([]int, n+2), lift: micro(p.Lift),
-		classes: map[int]nodeRange{}}
+		x: make([]float64, n+2), cost: make([]int64, n+2), tie: make([]int64, n+2), class: make([]int32, n+2),
+		ref: make([]int32, n+2), lift: micro(p.Lift), classes: map[int]nodeRange{}, budget: latticeEntries}
 	s.start[n+1], s.end[n+1] = p.Length, p.Length
 	s.hmin, s.hmax = math.Inf(1), 0
 	s.minCost = math.MaxInt64
-	for i, site := range p.Sites {
-		v := i + 1
-		s.start[v], s.end[v] = site.X+p.Gap/2, site.X-p.Gap/2
+	v := 0
+	for site := range sites {
+		v++
+		s.start[v], s.end[v], s.x[v] = site.X+p.Gap/2, site.X-p.Gap/2, site.X
 		s.half[v] = site.Mass / 2
-		s.cost[v], s.tie[v], s.class[v] = micro(site.Cost), site.Tie, site.Class
+		s.cost[v], s.tie[v], s.class[v], s.ref[v] = micro(site.Cost), site.Tie, int32(site.Class), int32(site.Candidate)
 		s.hmin, s.hmax = math.Min(s.hmin, s.half[v]), math.Max(s.hmax, s.half[v])
 		s.minCost = min(s.minCost, s.cost[v])
 		if c, ok := s.classes[site.Class]; ok {
@@ -100,6 +108,9 @@ func newSearch(p *LayoutProblem) *search {
 		} else {
 			s.classes[site.Class] = nodeRange{v, v}
 		}
+	}
+	if v != n {
+		panic(fmt.Sprintf("optimise: a search of %d sites given %d", n, v))
 	}
 	if n == 0 {
 		s.hmin, s.minCost = 0, 0
@@ -352,7 +363,7 @@ func (s *search) alternatives(byCount []Layout) []Layout {
 		k := len(sp.best.Sites)
 		classes := make([]int, k)
 		for i, site := range sp.best.Sites {
-			classes[i] = s.class[site+1]
+			classes[i] = int(s.class[site+1])
 		}
 		for m := len(sp.c.fixed); m < k; m++ {
 			child := constraint{fixed: classes[:m:m], exclude: []int{classes[m]}}

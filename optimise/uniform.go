@@ -145,7 +145,9 @@ type uniformSearch struct {
 	cat      *splice.Catalogue
 	designer *SpliceDesigner
 	prob     splice.Problem // the job's splice problem without forces
-	p        LayoutProblem  // the mixed layout problem: its sites are the positions
+	p        LayoutProblem  // the mixed layout problem without its sites, which are the positions:
+	xs       []float64      // per position: x [mm]
+	cand     []int32        // per position: the candidate
 	cands    []Candidate    // the outcome's: the positions' forces
 	acts     [][10]float64  // per distinct set of forces (a loading): its flange and web actions
 	first    []int32        // per loading: the first position with its forces
@@ -200,6 +202,11 @@ func newUniformSearch(o *Outcome) (*uniformSearch, error) {
 		designs: map[splice.Choice]*designInfo{}, witness: map[int][]bitset{}, minCost: math.MaxInt64}
 	u.p.Alternatives = 0
 	u.n = len(u.p.Sites)
+	u.xs, u.cand = make([]float64, u.n), make([]int32, u.n)
+	for i, site := range u.p.Sites {
+		u.xs[i], u.cand[i] = site.X, int32(site.Candidate)
+	}
+	u.p.Sites = nil
 	u.stats.Designs = cat.Len()
 	u.cands = o.Candidates
 	if err := u.loadings(); err != nil {
@@ -207,8 +214,8 @@ func newUniformSearch(o *Outcome) (*uniformSearch, error) {
 	}
 	found := map[splice.Geometry]int32{}
 	u.bestOf = make([]int32, u.n)
-	for i, site := range u.p.Sites {
-		c := &o.Candidates[site.Candidate]
+	for i, ci := range u.cand {
+		c := &o.Candidates[ci]
 		var g splice.Geometry
 		if c.Design.Geometry != nil {
 			g = *c.Design.Geometry
@@ -309,7 +316,7 @@ func (u *uniformSearch) loadings() error {
 
 // forceAt returns the forces at a position.
 func (u *uniformSearch) forceAt(i int) *PositionForces {
-	return &u.cands[u.p.Sites[i].Candidate].Forces
+	return &u.cands[u.cand[i]].Forces
 }
 
 // best returns the cheapest splice at a position.
@@ -321,27 +328,27 @@ func (u *uniformSearch) loadingOf(f *PositionForces) (splice.Loading, error) {
 }
 
 // loading returns the splice package's loading of a distinct set of forces.
-func (u *uniformSearch) loading(l int) *splice.Loading {
+func (u *uniformSearch) loading(l int) splice.Loading {
 	ld, err := u.loadingOf(u.forceAt(int(u.first[l])))
 	if err != nil {
 		panic("optimise: a loading that loaded before fails: " + err.Error())
 	}
-	return &ld
+	return ld
 }
 
 // searchOver builds the layout search whose sites are the positions of a set, each splice
 // at one cost and mass, tied by tie(position) (nil: no tie).
 func (u *uniformSearch) searchOver(set bitset, cost, mass float64, tie func(int) int64) *search {
-	q := u.p
-	q.Sites = make([]Site, 0, set.count())
-	set.each(func(i int) {
-		s := Site{X: u.p.Sites[i].X, Cost: cost, Mass: mass, Candidate: i}
-		if tie != nil {
-			s.Tie = tie(i)
-		}
-		q.Sites = append(q.Sites, s)
+	q := u.p // without sites: the search keeps what it needs of those below
+	return newSearchOf(&q, set.count(), func(yield func(Site) bool) {
+		set.each(func(i int) {
+			s := Site{X: u.xs[i], Cost: cost, Mass: mass, Candidate: i}
+			if tie != nil {
+				s.Tie = tie(i)
+			}
+			yield(s)
+		})
 	})
-	return newSearch(&q)
 }
 
 // admitsCount reports whether a search admits a k-splice layout on some tier.
@@ -718,7 +725,8 @@ func lighter(a, b float64, rule int) bool {
 // loading above it — a binary search along each chain of loadings. When the settling stops
 // paying (loadings that bound none of the others), the rest are checked one by one.
 func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
-	passes := func(l *splice.Loading) bool {
+	passes := func(ld splice.Loading) bool {
+		l := &ld
 		u.stats.Evaluations++
 		if kind == 0 {
 			return u.cat.FlangePasses(bolt, i, l)
@@ -727,10 +735,10 @@ func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
 	}
 	u.stats.Parts++
 	set := newBitset(u.n)
-	if u.n == 0 || !passes(&u.lo) {
+	if u.n == 0 || !passes(u.lo) {
 		return set
 	}
-	if passes(&u.hi) {
+	if passes(u.hi) {
 		return allOf(u.n)
 	}
 	po := &u.posets[kind]
@@ -775,15 +783,15 @@ const settleIdle = 8
 // poset is the partial order of the loadings by the flange (kind 0) or web (kind 1) actions:
 // a part that passes at a loading passes at every loading below it.
 type poset struct {
-	order    []int32          // the loadings in a linear extension of the order
-	down, up map[int32]bitset // of some loadings: those below it and above it (itself included), as found
+	order   []int32 // the loadings in a linear extension of the order
+	scratch bitset
 }
 
 // newPoset orders the loadings by the sum of their actions, each relative to its largest
 // value, which never decreases from a loading to one above it.
 func newPoset(u *uniformSearch, kind int) poset {
 	nl := len(u.acts)
-	po := poset{order: make([]int32, nl), down: map[int32]bitset{}, up: map[int32]bitset{}}
+	po := poset{order: make([]int32, nl), scratch: newBitset(nl)}
 	key := make([]float64, nl)
 	hi := u.hi.Actions()
 	f, w := &hi.Flange, &hi.Web
@@ -819,34 +827,28 @@ func (po *poset) le(u *uniformSearch, kind, a, b int) bool {
 	return true
 }
 
-// below returns the loadings below l (l included).
+// below returns the loadings below l (l included), in the poset's scratch set: good until
+// the next call.
 func (po *poset) below(u *uniformSearch, kind, l int) bitset {
-	b, ok := po.down[int32(l)]
-	if !ok {
-		b = newBitset(len(u.acts))
-		for m := range u.acts {
-			if po.le(u, kind, m, l) {
-				b.add(m)
-			}
+	clear(po.scratch)
+	for m := range u.acts {
+		if po.le(u, kind, m, l) {
+			po.scratch.add(m)
 		}
-		po.down[int32(l)] = b
 	}
-	return b
+	return po.scratch
 }
 
-// above returns the loadings above l (l included).
+// above returns the loadings above l (l included), in the poset's scratch set: good until the
+// next call.
 func (po *poset) above(u *uniformSearch, kind, l int) bitset {
-	b, ok := po.up[int32(l)]
-	if !ok {
-		b = newBitset(len(u.acts))
-		for m := range u.acts {
-			if po.le(u, kind, l, m) {
-				b.add(m)
-			}
+	clear(po.scratch)
+	for m := range u.acts {
+		if po.le(u, kind, l, m) {
+			po.scratch.add(m)
 		}
-		po.up[int32(l)] = b
 	}
-	return b
+	return po.scratch
 }
 
 // design returns a whole splice with its feasible positions, or nil when an earlier design
@@ -893,7 +895,7 @@ func (u *uniformSearch) layout(d *designInfo, k int, inc *UniformLayout) (Unifor
 	tied := u.searchOver(d.set, d.cost, d.mass, u.ties(d))
 	l, _ = tied.bestOverTiers(k, nil)
 	for i, s := range l.Sites {
-		l.Sites[i] = tied.p.Sites[s].Candidate
+		l.Sites[i] = int(tied.ref[s+1])
 	}
 	l.key.nodes = l.Sites
 	ul := UniformLayout{Layout: l, Choice: d.ch, order: d.order}
@@ -914,9 +916,10 @@ func (u *uniformSearch) ties(d *designInfo) func(int) int64 {
 	return func(i int) int64 {
 		l := u.loadOf[i]
 		if ties[l] < 0 {
-			pass, ut := u.cat.Check(d.ch, u.loading(int(l)))
+			ld := u.loading(int(l))
+			pass, ut := u.cat.Check(d.ch, &ld)
 			if !pass {
-				panic(fmt.Sprintf("optimise: design %v fails at %s where its parts pass", d.ch, metres(u.p.Sites[i].X)))
+				panic(fmt.Sprintf("optimise: design %v fails at %s where its parts pass", d.ch, metres(u.xs[i])))
 			}
 			ties[l] = int64(math.Round(math.Min(ut, 999) * 1e6))
 		}
