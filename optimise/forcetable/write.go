@@ -50,7 +50,7 @@ func unneutralise(s string) string {
 // those of beam.Analysis.Stations do. Nothing is written when a value is not finite.
 func WriteEnvelopes(w io.Writer, env *beam.Envelopes) error {
 	name := func(ex beam.Extreme) string {
-		if ex.Combination < 0 || ex.Combination >= len(env.Combinations) {
+		if ex.Combination < 0 || int(ex.Combination) >= len(env.Combinations) {
 			return ""
 		}
 		return env.Governing(ex)
