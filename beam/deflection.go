@@ -82,12 +82,12 @@ type RegionDeflection struct {
 	Ratio     float64             // the limit's ratio [-]
 	Limit     float64             // L/Ratio [mm]
 
-	W           float64 // largest relative deflection over the region's stations, downward positive (negative: upward) [mm]
-	Station     Station // where W occurs
+	W           float64  // largest relative deflection over the region's stations, downward positive (negative: upward) [mm]
+	Station     Station  // where W occurs
 	Extreme     Extreme  // SLS combination of W (Value = W); its Pattern is -1: the pattern is Loaded
 	Loaded      []uint64 // the pattern of W: per patterned case, the regions loaded (as Envelopes.Loaded)
 	Combination string   // the combination and pattern in words (as Envelopes.Governing)
-	Utilisation float64 // |W|/Limit [-]
+	Utilisation float64  // |W|/Limit [-]
 	Pass        bool
 }
 
