@@ -144,20 +144,21 @@ func (o *Outcome) PlacedSplices(l Layout) []PlacedSplice {
 type uniformSearch struct {
 	cat      *splice.Catalogue
 	designer *SpliceDesigner
-	prob     splice.Problem // the job's splice problem without forces
-	p        LayoutProblem  // the mixed layout problem without its sites, which are the positions:
-	xs       []float64      // per position: x [mm]
-	cand     []int32        // per position: the candidate
-	cands    []Candidate    // the outcome's: the positions' forces
-	acts     [][10]float64  // per distinct set of forces (a loading): its flange and web actions
-	first    []int32        // per loading: the first position with its forces
-	loadOf   []int32        // per position: its loading
-	lo, hi   splice.Loading // below and above every loading
-	posets   [2]poset       // of the loadings by flange and by web actions
-	orders   []splice.Order // the positions' cheapest splices, each once
-	bestOf   []int32        // per position: its cheapest splice (into orders)
-	byBest   []int32        // positions in the order of their cheapest splice
-	minCost  int64          // the cheapest splice anywhere [micro-units]
+	prob     splice.Problem   // the job's splice problem without forces
+	p        LayoutProblem    // the mixed layout problem without its sites, which are the positions:
+	xs       []float64        // per position: x [mm]
+	cand     []int32          // per position: the candidate
+	cands    []Candidate      // the outcome's: the positions' forces
+	acts     [][10]float64    // per distinct set of forces (a loading): its flange and web actions
+	loads    []splice.Loading // the loadings themselves when few (loadingsHeld), else nil
+	first    []int32          // per loading: the first position with its forces
+	loadOf   []int32          // per position: its loading
+	lo, hi   splice.Loading   // below and above every loading
+	posets   [2]poset         // of the loadings by flange and by web actions
+	orders   []splice.Order   // the positions' cheapest splices, each once
+	bestOf   []int32          // per position: its cheapest splice (into orders)
+	byBest   []int32          // positions in the order of their cheapest splice
+	minCost  int64            // the cheapest splice anywhere [micro-units]
 	n        int
 	global   *search // every position, splices without cost or mass
 	widest   int     // the tier admitting every layout of massless splices that any tier does, or −1
@@ -302,6 +303,9 @@ func (u *uniformSearch) loadings() error {
 		f, w := &a.Flange, &a.Web
 		u.acts[l] = [10]float64{f.Tension, f.Compression, f.Bolt, f.SlipBolt,
 			w.Moment, w.Axial, w.Shear, w.SlipMoment, w.SlipAxial, w.SlipShear}
+		if len(runs) <= loadingsHeld {
+			u.loads = append(u.loads, ld)
+		}
 		if block = append(block, ld); len(block) == 1024 {
 			flush()
 		}
@@ -327,8 +331,15 @@ func (u *uniformSearch) loadingOf(f *PositionForces) (splice.Loading, error) {
 	return u.cat.Load(splice.Forces(f.ULS), &sls)
 }
 
+// loadingsHeld is the most loadings the search keeps whole (about 700 bytes each); beyond,
+// it keeps their actions and makes a loading again for each check.
+const loadingsHeld = 1 << 14
+
 // loading returns the splice package's loading of a distinct set of forces.
 func (u *uniformSearch) loading(l int) splice.Loading {
+	if u.loads != nil {
+		return u.loads[l]
+	}
 	ld, err := u.loadingOf(u.forceAt(int(u.first[l])))
 	if err != nil {
 		panic("optimise: a loading that loaded before fails: " + err.Error())
@@ -783,15 +794,20 @@ const settleIdle = 8
 // poset is the partial order of the loadings by the flange (kind 0) or web (kind 1) actions:
 // a part that passes at a loading passes at every loading below it.
 type poset struct {
-	order   []int32 // the loadings in a linear extension of the order
-	scratch bitset
+	order    []int32          // the loadings in a linear extension of the order
+	down, up map[int32]bitset // of some loadings: those below it and above it (itself included), as found
+	held     int              // words in down and up, at most posetWords
+	scratch  bitset           // below and above of a loading not kept
 }
+
+// posetWords bounds the words of the sets below and above loadings a poset keeps (1 MiB).
+const posetWords = 1 << 17
 
 // newPoset orders the loadings by the sum of their actions, each relative to its largest
 // value, which never decreases from a loading to one above it.
 func newPoset(u *uniformSearch, kind int) poset {
 	nl := len(u.acts)
-	po := poset{order: make([]int32, nl), scratch: newBitset(nl)}
+	po := poset{order: make([]int32, nl), down: map[int32]bitset{}, up: map[int32]bitset{}}
 	key := make([]float64, nl)
 	hi := u.hi.Actions()
 	f, w := &hi.Flange, &hi.Web
@@ -815,40 +831,49 @@ func newPoset(u *uniformSearch, kind int) poset {
 // le reports whether every flange (kind 0) or web (kind 1) action of loading a is at most
 // b's (splice.Loading.FlangeBelow, WebBelow), so that a part passing at b passes at a.
 func (po *poset) le(u *uniformSearch, kind, a, b int) bool {
-	x, y := u.acts[a][:4], u.acts[b][:4]
-	if kind == 1 {
-		x, y = u.acts[a][4:], u.acts[b][4:]
+	x, y := &u.acts[a], &u.acts[b]
+	if kind == 0 {
+		return x[0] <= y[0] && x[1] <= y[1] && x[2] <= y[2] && x[3] <= y[3]
 	}
-	for j := range x {
-		if !(x[j] <= y[j]) {
-			return false
-		}
-	}
-	return true
+	return x[4] <= y[4] && x[5] <= y[5] && x[6] <= y[6] && x[7] <= y[7] && x[8] <= y[8] && x[9] <= y[9]
 }
 
-// below returns the loadings below l (l included), in the poset's scratch set: good until
-// the next call.
+// below returns the loadings below l (l included).
 func (po *poset) below(u *uniformSearch, kind, l int) bitset {
-	clear(po.scratch)
-	for m := range u.acts {
-		if po.le(u, kind, m, l) {
-			po.scratch.add(m)
-		}
-	}
-	return po.scratch
+	return po.kept(po.down, u, l, func(m int) bool { return po.le(u, kind, m, l) })
 }
 
-// above returns the loadings above l (l included), in the poset's scratch set: good until the
-// next call.
+// above returns the loadings above l (l included).
 func (po *poset) above(u *uniformSearch, kind, l int) bitset {
-	clear(po.scratch)
+	return po.kept(po.up, u, l, func(m int) bool { return po.le(u, kind, l, m) })
+}
+
+// kept returns the loadings m with in(m), from the sets kept when it was found before; it
+// keeps it while the poset holds fewer than posetWords words, else it is in the scratch set,
+// good until the next call.
+func (po *poset) kept(sets map[int32]bitset, u *uniformSearch, l int, in func(m int) bool) bitset {
+	if b, ok := sets[int32(l)]; ok {
+		return b
+	}
+	words := (len(u.acts) + 63) / 64
+	var b bitset
+	if po.held+words <= posetWords {
+		b = newBitset(len(u.acts))
+		sets[int32(l)] = b
+		po.held += words
+	} else {
+		if po.scratch == nil {
+			po.scratch = newBitset(len(u.acts))
+		}
+		b = po.scratch
+		clear(b)
+	}
 	for m := range u.acts {
-		if po.le(u, kind, l, m) {
-			po.scratch.add(m)
+		if in(m) {
+			b.add(m)
 		}
 	}
-	return po.scratch
+	return b
 }
 
 // design returns a whole splice with its feasible positions, or nil when an earlier design

@@ -24,22 +24,6 @@ func AnalysisUnits() map[string]string {
 	}
 }
 
-func stationXs(st []beam.Station) []Num {
-	out := make([]Num, len(st))
-	for i, s := range st {
-		out[i] = Num(s.X * ToM)
-	}
-	return out
-}
-
-func sides(st []beam.Station) []string {
-	out := make([]string, 0, len(st))
-	for _, s := range st {
-		out = append(out, SideName(s.Side))
-	}
-	return out
-}
-
 // SideName is "left" or "right": which side of a jump a station's values are.
 func SideName(s beam.Side) string {
 	if s == beam.Left {
@@ -81,43 +65,73 @@ type CaseDoc struct {
 	Reactions []reactionDoc     `json:"reactions"`
 }
 
+// writeCase writes one case as JSON (the CaseDoc that WriteJSON would write, byte for byte),
+// CSV or text, streaming the parts of a value per station as writeEnvelopes does.
 func writeCase(w io.Writer, format string, s *optimise.Setup, r beam.CaseResult) error {
+	st, ef := r.Stations, &r.Effects
+	var reactions []reactionDoc
+	for _, rc := range r.Reactions {
+		reactions = append(reactions, reactionDoc{Num(rc.X * ToM), Num(rc.Fz * ToKN), Num(rc.Fx * ToKN), Num(rc.My * ToKNm)})
+	}
 	switch format {
 	case "json":
-		out := CaseDoc{
-			Input: s.File, Version: Version(), Units: AnalysisUnits(), Length: Num(s.Model.Length * ToM),
-			Stations: stationXs(r.Stations), Sides: sides(r.Stations), Case: r.Case,
-			M: Nums(r.Effects.M, ToKNm), V: Nums(r.Effects.V, ToKN), N: Nums(r.Effects.N, ToKN), W: Nums(r.Effects.W, 1),
+		js := newJSONStream(w)
+		js.open('{')
+		js.value("input", s.File)
+		js.value("version", Version())
+		js.value("units", AnalysisUnits())
+		js.value("length", Num(s.Model.Length*ToM))
+		js.array("stations", len(st), func(b []byte, i int) []byte { return appendNum(b, st[i].X*ToM) })
+		js.array("sides", len(st), func(b []byte, i int) []byte { return append(append(append(b, '"'), SideName(st[i].Side)...), '"') })
+		js.value("case", r.Case)
+		for _, q := range []struct {
+			key string
+			v   []float64
+			f   float64
+		}{{"M", ef.M, ToKNm}, {"V", ef.V, ToKN}, {"N", ef.N, ToKN}, {"w", ef.W, 1}} {
+			js.array(q.key, len(q.v), func(b []byte, i int) []byte { return appendNum(b, q.v[i]*q.f) })
 		}
-		for _, rc := range r.Reactions {
-			out.Reactions = append(out.Reactions, reactionDoc{Num(rc.X * ToM), Num(rc.Fz * ToKN), Num(rc.Fx * ToKN), Num(rc.My * ToKNm)})
-		}
-		return WriteJSON(w, out)
+		js.value("reactions", reactions)
+		js.close('}')
+		js.raw("\n")
+		return js.flush()
 	case "csv":
-		rows := make([][]string, len(r.Stations))
-		for i, st := range r.Stations {
-			rows[i] = []string{Number(st.X * ToM), SideName(st.Side), Number(r.Effects.M[i] * ToKNm),
-				Number(r.Effects.V[i] * ToKN), Number(r.Effects.N[i] * ToKN), Number(r.Effects.W[i])}
+		// encoding/csv's record: numbers and "left"/"right" need no quotes
+		bw := bufio.NewWriterSize(w, 1<<16)
+		if err := WriteCSV(bw, []string{"x_m", "side", "M_kNm", "V_kN", "N_kN", "w_mm"}, nil); err != nil {
+			return err
 		}
-		return WriteCSV(w, []string{"x_m", "side", "M_kNm", "V_kN", "N_kN", "w_mm"}, rows)
+		var line []byte
+		for i := range st {
+			line = appendNum(line[:0], st[i].X*ToM)
+			line = append(append(line, ','), SideName(st[i].Side)...)
+			for _, v := range []float64{ef.M[i] * ToKNm, ef.V[i] * ToKN, ef.N[i] * ToKN, ef.W[i]} {
+				line = appendNum(append(line, ','), v)
+			}
+			if _, err := bw.Write(append(line, '\n')); err != nil {
+				return err
+			}
+		}
+		return bw.Flush()
 	}
-	writeBeamHeader(w, s, "load case "+r.Case+", unfactored (characteristic)")
-	tw := RightTable(w)
-	fmt.Fprintln(tw, "x [m]\t\tM [kNm]\tV [kN]\tN [kN]\tw [mm]\t")
-	for i, st := range r.Stations {
-		fmt.Fprintf(tw, "%.3f\t%s\t%.2f\t%.2f\t%.2f\t%.2f\t\n", st.X*ToM, sideMark(r.Stations, i),
-			Clean(r.Effects.M[i]*ToKNm), Clean(r.Effects.V[i]*ToKN), Clean(r.Effects.N[i]*ToKN), Clean(r.Effects.W[i]))
-	}
-	tw.Flush()
-	fmt.Fprintln(w, "\nSupport reactions")
-	tw = RightTable(w)
+	bw := bufio.NewWriter(w)
+	writeBeamHeader(bw, s, "load case "+r.Case+", unfactored (characteristic)")
+	writeRightRows(bw, []string{"x [m]", "", "M [kNm]", "V [kN]", "N [kN]", "w [mm]"}, len(st), func(i int, c [][]byte) {
+		c[0] = strconv.AppendFloat(c[0], st[i].X*ToM, 'f', 3, 64)
+		c[1] = append(c[1], sideMark(st, i)...)
+		for j, v := range []float64{ef.M[i] * ToKNm, ef.V[i] * ToKN, ef.N[i] * ToKN, ef.W[i]} {
+			c[2+j] = appendClean(c[2+j], v, 2)
+		}
+	})
+	fmt.Fprintln(bw, "\nSupport reactions")
+	tw := RightTable(bw)
 	fmt.Fprintln(tw, "x [m]\tFz [kN]\tFx [kN]\tMy [kNm]\t")
 	for _, rc := range r.Reactions {
 		fmt.Fprintf(tw, "%.3f\t%.2f\t%.2f\t%.2f\t\n", rc.X*ToM, Clean(rc.Fz*ToKN), Clean(rc.Fx*ToKN), Clean(rc.My*ToKNm))
 	}
 	tw.Flush()
-	fmt.Fprintf(w, "\n%s\n", Caution)
-	return nil
+	fmt.Fprintf(bw, "\n%s\n", Caution)
+	return bw.Flush()
 }
 
 // sideMark marks the two values at a jump: "L" just left of x, "R" just right.

@@ -12,6 +12,36 @@ import (
 	"spanbreak/optimise"
 )
 
+func stationXs(st []beam.Station) []Num {
+	out := make([]Num, len(st))
+	for i, s := range st {
+		out[i] = Num(s.X * ToM)
+	}
+	return out
+}
+
+func sides(st []beam.Station) []string {
+	out := make([]string, 0, len(st))
+	for _, s := range st {
+		out = append(out, SideName(s.Side))
+	}
+	return out
+}
+
+// referenceCaseDoc builds the whole CaseDoc in memory for WriteJSON: the reference of the
+// streamed writer of one case.
+func referenceCaseDoc(s *optimise.Setup, r *beam.CaseResult) CaseDoc {
+	out := CaseDoc{
+		Input: s.File, Version: Version(), Units: AnalysisUnits(), Length: Num(s.Model.Length * ToM),
+		Stations: stationXs(r.Stations), Sides: sides(r.Stations), Case: r.Case,
+		M: Nums(r.Effects.M, ToKNm), V: Nums(r.Effects.V, ToKN), N: Nums(r.Effects.N, ToKN), W: Nums(r.Effects.W, 1),
+	}
+	for _, rc := range r.Reactions {
+		out.Reactions = append(out.Reactions, reactionDoc{Num(rc.X * ToM), Num(rc.Fz * ToKN), Num(rc.Fx * ToKN), Num(rc.My * ToKNm)})
+	}
+	return out
+}
+
 // referenceEnvelopesDoc builds the whole EnvelopesDoc in memory, as the document is defined
 // (DESIGN.md section 7), for WriteJSON to encode: the reference of the streamed writer.
 func referenceEnvelopesDoc(s *optimise.Setup, env *beam.Envelopes, m *optimise.MemberChecks) EnvelopesDoc {
@@ -112,6 +142,25 @@ func TestStreamedEnvelopesEqualTheDocument(t *testing.T) {
 			text := got.String()
 			require.Contains(t, text, "ULS envelope\n"+uls+"\nSLS envelope", "the text holds the tables as tabwriter aligns them")
 			require.Contains(t, text, ")\n"+sls+"\nSupport reactions")
+
+			o, err = optimise.AnalyseBeam(s, optimise.BeamSettings{Step: tc.step, Case: "S"})
+			require.NoError(t, err)
+			want.Reset()
+			got.Reset()
+			require.NoError(t, WriteJSON(&want, referenceCaseDoc(s, o.Case)))
+			require.NoError(t, WriteAnalysis(&got, "json", o))
+			require.Equal(t, want.String(), got.String(), "one case")
+			want.Reset()
+			got.Reset()
+			var rows [][]string
+			for i, st := range o.Case.Stations {
+				e := &o.Case.Effects
+				rows = append(rows, []string{Number(st.X * ToM), SideName(st.Side), Number(e.M[i] * ToKNm),
+					Number(e.V[i] * ToKN), Number(e.N[i] * ToKN), Number(e.W[i])})
+			}
+			require.NoError(t, WriteCSV(&want, []string{"x_m", "side", "M_kNm", "V_kN", "N_kN", "w_mm"}, rows))
+			require.NoError(t, WriteAnalysis(&got, "csv", o))
+			require.Equal(t, want.String(), got.String(), "one case")
 		})
 	}
 }
