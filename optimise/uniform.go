@@ -335,16 +335,17 @@ func (u *uniformSearch) loadingOf(f *PositionForces) (splice.Loading, error) {
 // it keeps their actions and makes a loading again for each check.
 const loadingsHeld = 1 << 14
 
-// loading returns the splice package's loading of a distinct set of forces.
-func (u *uniformSearch) loading(l int) splice.Loading {
+// loading returns the splice package's loading of a distinct set of forces: the one kept, or
+// one made again in scratch.
+func (u *uniformSearch) loading(l int, scratch *splice.Loading) *splice.Loading {
 	if u.loads != nil {
-		return u.loads[l]
+		return &u.loads[l]
 	}
-	ld, err := u.loadingOf(u.forceAt(int(u.first[l])))
-	if err != nil {
+	var err error
+	if *scratch, err = u.loadingOf(u.forceAt(int(u.first[l]))); err != nil {
 		panic("optimise: a loading that loaded before fails: " + err.Error())
 	}
-	return ld
+	return scratch
 }
 
 // searchOver builds the layout search whose sites are the positions of a set, each splice
@@ -736,8 +737,8 @@ func lighter(a, b float64, rule int) bool {
 // loading above it — a binary search along each chain of loadings. When the settling stops
 // paying (loadings that bound none of the others), the rest are checked one by one.
 func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
-	passes := func(ld splice.Loading) bool {
-		l := &ld
+	var scratch splice.Loading
+	passes := func(l *splice.Loading) bool {
 		u.stats.Evaluations++
 		if kind == 0 {
 			return u.cat.FlangePasses(bolt, i, l)
@@ -746,10 +747,10 @@ func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
 	}
 	u.stats.Parts++
 	set := newBitset(u.n)
-	if u.n == 0 || !passes(u.lo) {
+	if u.n == 0 || !passes(&u.lo) {
 		return set
 	}
-	if passes(u.hi) {
+	if passes(&u.hi) {
 		return allOf(u.n)
 	}
 	po := &u.posets[kind]
@@ -759,7 +760,7 @@ func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
 	for idle := 0; len(unknown) > 0; {
 		if idle >= settleIdle {
 			for _, l := range unknown {
-				if passes(u.loading(int(l))) {
+				if passes(u.loading(int(l), &scratch)) {
 					pass.add(int(l))
 				}
 			}
@@ -768,7 +769,7 @@ func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
 		mid := len(unknown) / 2
 		l := int(unknown[mid])
 		var settled int
-		if passes(u.loading(l)) {
+		if passes(u.loading(l, &scratch)) {
 			settled = known.union(po.below(u, kind, l), pass)
 		} else {
 			settled = known.union(po.above(u, kind, l), nil)
@@ -938,11 +939,11 @@ func (u *uniformSearch) ties(d *designInfo) func(int) int64 {
 		}
 	}
 	ties := d.ties
+	var scratch splice.Loading
 	return func(i int) int64 {
 		l := u.loadOf[i]
 		if ties[l] < 0 {
-			ld := u.loading(int(l))
-			pass, ut := u.cat.Check(d.ch, &ld)
+			pass, ut := u.cat.Check(d.ch, u.loading(int(l), &scratch))
 			if !pass {
 				panic(fmt.Sprintf("optimise: design %v fails at %s where its parts pass", d.ch, metres(u.xs[i])))
 			}
