@@ -183,7 +183,7 @@ func (en *enumerator) predOrder(layer, node, skip int) *predOrder {
 // ly returns the entries of the layer before (the lattice may have recomputed them).
 func (po *predOrder) ly() *layer {
 	ly := po.en.lt.layer(po.layer)
-	if ly.tree == nil {
+	if len(ly.tree) == 0 {
 		ly.tree = buildTree(ly)
 	}
 	return ly
@@ -285,7 +285,11 @@ func buildTree(ly *layer) []int32 {
 	for size < n {
 		size *= 2
 	}
-	tree := make([]int32, 2*size)
+	tree := ly.tree[:0]
+	if cap(tree) < 2*size {
+		tree = make([]int32, 2*size)
+	}
+	tree = tree[:2*size]
 	for i := range size {
 		tree[size+i] = -1
 		if i < n && ly.pred[i] >= 0 {

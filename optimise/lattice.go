@@ -102,7 +102,7 @@ func (lt *lattice) layer(l int) *layer {
 			ly = h
 			continue
 		}
-		next := newLayer(lt.bands[m])
+		next := lt.s.newLayer(lt.bands[m])
 		lt.s.nextLayer(ly, next, m, lt.t, lt.c)
 		ly = next
 		lt.held[m] = ly
@@ -112,19 +112,54 @@ func (lt *lattice) layer(l int) *layer {
 			old := lt.cache[0]
 			lt.cache = lt.cache[1:]
 			lt.cached -= len(lt.held[old].pred)
+			lt.s.recycle(lt.held[old])
 			lt.held[old] = nil
 		}
 	}
 	return ly
 }
 
-func newLayer(b nodeRange) *layer {
+// newLayer returns a layer over a band with no partial path yet, in the memory of a layer
+// recycled when one is large enough.
+func (s *search) newLayer(b nodeRange) *layer {
 	w := b.hi - b.lo + 1
-	ly := &layer{lo: b.lo, cost: make([]int64, w), tie: make([]int64, w), pred: make([]int32, w)}
+	var ly *layer
+	for i, sp := range s.spare {
+		if cap(sp.pred) >= w {
+			ly = sp
+			s.spare[i] = s.spare[len(s.spare)-1]
+			s.spare = s.spare[:len(s.spare)-1]
+			s.spared -= cap(sp.pred)
+			break
+		}
+	}
+	if ly == nil {
+		ly = &layer{cost: make([]int64, w), tie: make([]int64, w), pred: make([]int32, w)}
+	}
+	ly.lo, ly.cost, ly.tie, ly.pred, ly.tree = b.lo, ly.cost[:w], ly.tie[:w], ly.pred[:w], ly.tree[:0]
 	for i := range ly.pred {
 		ly.pred[i] = -1
 	}
 	return ly
+}
+
+// recycle keeps a layer no lattice holds any more for newLayer, up to latticeEntries entries.
+func (s *search) recycle(ly *layer) {
+	if ly != nil && s.spared+cap(ly.pred) <= latticeEntries {
+		s.spare = append(s.spare, ly)
+		s.spared += cap(ly.pred)
+	}
+}
+
+// release recycles the layers of a lattice that is done with.
+func (s *search) release(lt *lattice) {
+	if lt == nil {
+		return
+	}
+	for l, ly := range lt.held {
+		s.recycle(ly)
+		lt.held[l] = nil
+	}
 }
 
 // lattice runs the programme of one tier, count and constraint (nil: none) over the bands;
@@ -150,16 +185,25 @@ func (s *search) lattice(t *tier, k int, c *constraint) *lattice {
 			b = b.and(s.classSpan(c.fixed[l-1]))
 		}
 		if b.empty() {
+			if last != nil && lt.held[l-1] == nil {
+				s.recycle(last)
+			}
+			s.release(lt)
 			return nil
 		}
 		lt.bands[l] = b
-		ly := newLayer(b)
+		ly := s.newLayer(b)
 		if l == 1 {
 			got = s.firstLayer(ly, t, c)
 		} else {
 			got = s.nextLayer(last, ly, l, t, c)
 		}
+		if last != nil && lt.held[l-1] == nil {
+			s.recycle(last) // neither held nor needed any more
+		}
 		if got.empty() {
+			s.recycle(ly)
+			s.release(lt)
 			return nil
 		}
 		last = ly
@@ -167,6 +211,7 @@ func (s *search) lattice(t *tier, k int, c *constraint) *lattice {
 			lt.every = max(2, int(math.Ceil(math.Sqrt(float64(k)))))
 			for m := 1; m < l; m++ {
 				if !lt.checkpoint(m) {
+					s.recycle(lt.held[m])
 					lt.held[m] = nil
 				}
 			}
@@ -186,6 +231,7 @@ func (s *search) lattice(t *tier, k int, c *constraint) *lattice {
 		}
 	}
 	if best < 0 {
+		s.release(lt)
 		return nil
 	}
 	x := best - last.lo

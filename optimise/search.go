@@ -82,6 +82,8 @@ type search struct {
 	classes    map[int]nodeRange // the nodes from each class's first site to its last
 	deque      []int             // nextLayer's, kept between layers
 	budget     int               // entries a lattice holds beyond its checkpoints: latticeEntries
+	spare      []*layer          // layers of lattices done with, for the next ones
+	spared     int               // their entries
 }
 
 func newSearch(p *LayoutProblem) *search { return newSearchOf(p, len(p.Sites), slices.Values(p.Sites)) }
@@ -167,7 +169,9 @@ func (s *search) withEnds(sites []int) []int {
 func (s *search) admits(t *tier, k int) bool {
 	ok, known := t.admits[k]
 	if !known {
-		ok = s.lattice(t, k, nil) != nil
+		lt := s.lattice(t, k, nil)
+		ok = lt != nil
+		s.release(lt)
 		if t.admits == nil {
 			t.admits = map[int]bool{}
 		}
@@ -192,6 +196,7 @@ func (s *search) best(t *tier, k int, c *constraint) (Layout, bool) {
 	if lt == nil {
 		return Layout{}, false
 	}
+	defer s.release(lt)
 	en := newEnumerator(s, t, lt)
 	lb := s.tripsLowerBound(t, k)
 	fixed := s.lift*int64(k+1) + t.tripCost*int64(lb)
