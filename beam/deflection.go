@@ -82,11 +82,12 @@ type RegionDeflection struct {
 	Ratio     float64             // the limit's ratio [-]
 	Limit     float64             // L/Ratio [mm]
 
-	W           float64 // largest relative deflection over the region's stations, downward positive (negative: upward) [mm]
-	Station     Station // where W occurs
-	Extreme     Extreme // SLS combination and pattern of W (Value = W)
-	Combination string  // the same in words (Envelopes.Governing)
-	Utilisation float64 // |W|/Limit [-]
+	W           float64  // largest relative deflection over the region's stations, downward positive (negative: upward) [mm]
+	Station     Station  // where W occurs
+	Extreme     Extreme  // SLS combination of W (Value = W); its Pattern is -1: the pattern is Loaded
+	Loaded      []uint64 // the pattern of W: per patterned case, the regions loaded (as Envelopes.Loaded)
+	Combination string   // the combination and pattern in words (as Envelopes.Governing)
+	Utilisation float64  // |W|/Limit [-]
 	Pass        bool
 }
 
@@ -136,7 +137,7 @@ func (a *Analysis) CheckDeflections(env *Envelopes, limits DeflectionLimits) (De
 			errs = append(errs, fmt.Errorf("deflection check: %s (%g to %g mm) has no station: pass stations covering every region", reg.Name, reg.From, reg.To))
 			continue
 		}
-		rd.Combination = env.Governing(rd.Extreme)
+		rd.Combination = env.governing(int(rd.Extreme.Combination), rd.Loaded)
 		res.Regions[r] = rd
 		if rd.Utilisation > res.Regions[res.Governing].Utilisation {
 			res.Governing = r
@@ -211,8 +212,9 @@ func (a *Analysis) regionDeflection(b *envelopeBuilder, env *Envelopes, reg Regi
 		return 0
 	}
 
-	np := len(b.patterned)
-	mx, mn := Extreme{Loaded: make([]uint64, np)}, Extreme{Loaded: make([]uint64, np)}
+	var mx, mn Extreme
+	pt := newPatternTable(len(b.patterned))
+	var sx, sn [1]series
 	ac := newAccumulator(len(a.cases), 1)
 	for _, st := range env.Stations {
 		if st.X < reg.From-pointTol || st.X > reg.To+pointTol {
@@ -226,11 +228,15 @@ func (a *Analysis) regionDeflection(b *envelopeBuilder, env *Envelopes, reg Regi
 				ac.add(k, 0, r, w-ref(c, st.X))
 			}
 		}
-		b.extremes(ac, SLS, []*Extreme{&mx}, []*Extreme{&mn})
+		b.extremes(ac, SLS, []*Extreme{&mx}, []*Extreme{&mn}, pt, sx[:], sn[:])
 		for _, ex := range []*Extreme{&mx, &mn} {
 			if !ok || math.Abs(ex.Value) > math.Abs(rd.W) {
 				rd.W, rd.Station = ex.Value, st
-				rd.Extreme = Extreme{Value: ex.Value, Combination: ex.Combination, Loaded: slices.Clone(ex.Loaded)}
+				rd.Extreme = Extreme{Value: ex.Value, Combination: ex.Combination, Pattern: -1}
+				rd.Loaded = nil
+				if len(b.patterned) > 0 {
+					rd.Loaded = slices.Clone(pt.pattern(ex.Pattern))
+				}
 				ok = true
 			}
 		}

@@ -19,7 +19,9 @@
 // internal forces and deflection are evaluated in closed form, so results at any x are exact.
 // A patterned case is solved once per span and overhang; envelopes take each region's share
 // with its adverse factor only where it is adverse, which equals the worst of all 2^n
-// patterns without enumerating them.
+// patterns without enumerating them. Each extreme keeps its combination and the number of its
+// pattern in the envelopes' table of the patterns found (Envelopes.Loaded), 16 bytes an
+// extreme, so that envelopes at a million stations take some 256 MB.
 //
 // Member checks (EN 1993-1-1:2005+AC:2009, the beam itself): NewMember takes a Section, a
 // Grade and MemberSettings (γM0, default 1.00; the fy table; an optional weld throat of a

@@ -1,6 +1,7 @@
 package beam
 
 import (
+	"encoding/binary"
 	"errors"
 	"fmt"
 	"math"
@@ -8,13 +9,16 @@ import (
 	"strings"
 )
 
-// Extreme is one envelope value with the combination and pattern that produce it.
+// Extreme is one envelope value with the combination and pattern that produce it. It is 16
+// bytes, so that envelopes at a million stations fit in little memory: the pattern is a
+// number into the envelopes' table of the patterns they found (Envelopes.Loaded).
 type Extreme struct {
 	Value       float64 // in the quantity's unit (N·mm, N or mm)
-	Combination int     // index into Envelopes.Combinations; -1 when no combination of the state exists
-	// Loaded holds, per patterned case (in the order of Envelopes.Patterned), a bit mask of the
-	// regions that carry the case's adverse factor: bit r set means region r is loaded.
-	Loaded []uint64
+	Combination int32   // index into Envelopes.Combinations; -1 when no combination of the state exists
+	// Pattern numbers the span pattern in the table of the envelopes that hold the extreme:
+	// per patterned case, the regions that carry the case's adverse factor. Pattern 0 loads
+	// no region; -1 is a pattern not in the table (RegionDeflection.Loaded gives it).
+	Pattern int32
 }
 
 // Envelope is the max/min of each internal force and the deflection along the beam for one
@@ -40,11 +44,79 @@ type ReactionEnvelope struct {
 type Envelopes struct {
 	Stations     []Station
 	Combinations []Combination
-	Patterned    []string // names of the patterned cases, the order of Extreme.Loaded
+	Patterned    []string // names of the patterned cases, the order of the masks of Loaded
 	Regions      []Region
 	ULS, SLS     Envelope
 	ULSReactions []ReactionEnvelope
 	SLSReactions []ReactionEnvelope
+
+	patterns []uint64 // len(Patterned) masks per pattern, in the order of Extreme.Pattern
+}
+
+// Loaded returns the pattern of an extreme of these envelopes: per patterned case, in the order
+// of Patterned, a bit mask of the regions that carry the case's adverse factor (bit r set
+// means region r is loaded). It is nil when there are no patterned cases or the pattern is
+// not in the envelopes' table.
+func (env *Envelopes) Loaded(ex Extreme) []uint64 {
+	np := len(env.Patterned)
+	if np == 0 || ex.Pattern < 0 || (int(ex.Pattern)+1)*np > len(env.patterns) {
+		return nil
+	}
+	return slices.Clone(env.patterns[int(ex.Pattern)*np : (int(ex.Pattern)+1)*np])
+}
+
+// patternTable numbers the distinct patterns (np masks each) as the envelopes find them.
+// Pattern 0 loads no region. Consecutive extremes of one series mostly share a pattern, so
+// each series remembers its last one and looks in the table only when it changes.
+type patternTable struct {
+	np    int
+	masks []uint64         // np per pattern
+	ids   map[string]int32 // the masks' bytes → pattern
+	key   []byte
+}
+
+func newPatternTable(np int) *patternTable {
+	return &patternTable{np: np, masks: make([]uint64, np), ids: map[string]int32{}, key: make([]byte, 8*np)}
+}
+
+// id returns the number of a pattern, adding it when new.
+func (pt *patternTable) id(m []uint64) int32 {
+	if pt.np == 0 || !slices.ContainsFunc(m, func(w uint64) bool { return w != 0 }) {
+		return 0
+	}
+	for j, w := range m {
+		binary.LittleEndian.PutUint64(pt.key[8*j:], w)
+	}
+	if id, ok := pt.ids[string(pt.key)]; ok {
+		return id
+	}
+	id := int32(len(pt.masks) / pt.np)
+	pt.masks = append(pt.masks, m...)
+	pt.ids[string(pt.key)] = id
+	return id
+}
+
+// pattern returns the masks of a pattern (the table's own: not to be changed).
+func (pt *patternTable) pattern(id int32) []uint64 {
+	return pt.masks[int(id)*pt.np : (int(id)+1)*pt.np]
+}
+
+// series remembers one envelope series' last pattern.
+type series struct {
+	masks []uint64
+	last  int32
+}
+
+// id returns the number of a pattern of the series.
+func (sr *series) id(pt *patternTable, m []uint64) int32 {
+	if sr.masks == nil {
+		sr.masks = make([]uint64, len(m))
+	} else if slices.Equal(sr.masks, m) {
+		return sr.last
+	}
+	copy(sr.masks, m)
+	sr.last = pt.id(m)
+	return sr.last
 }
 
 // quantities evaluated at a station, in this order.
@@ -139,6 +211,7 @@ type envelopeBuilder struct {
 	patterned []int    // case indices of the patterned cases
 	byState   [2][]int // combination indices of each limit state
 	terms     [][]term // per combination, the cases with a non-zero factor
+	scratch   []uint64 // masks' result, one per patterned case
 }
 
 // term is one case's factors in one combination.
@@ -148,10 +221,11 @@ type term struct {
 }
 
 // extremes writes, for every quantity q, the max and min over the combinations of one state
-// into mx[q] and mn[q], with the region masks of the patterned cases. When a combination's
-// value is not a finite number it stops and returns that combination and quantity; otherwise
-// it returns -1.
-func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*Extreme) (combination, quantity int) {
+// into mx[q] and mn[q], with the pattern of the patterned cases from the table (sx and sn,
+// one per quantity, remember each series' last pattern). When a combination's value is not
+// a finite number it stops and returns that combination and quantity; otherwise it returns
+// -1.
+func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*Extreme, pt *patternTable, sx, sn []series) (combination, quantity int) {
 	nq := ac.nq
 	var vmax, vmin [nStationQ]float64
 	for q := 0; q < nq; q++ {
@@ -176,20 +250,23 @@ func (b *envelopeBuilder) extremes(ac *accumulator, state LimitState, mx, mn []*
 				return c, q
 			}
 			if vmax[q] > mx[q].Value {
-				mx[q].Value, mx[q].Combination = vmax[q], c
+				mx[q].Value, mx[q].Combination = vmax[q], int32(c)
 			}
 			if vmin[q] < mn[q].Value {
-				mn[q].Value, mn[q].Combination = vmin[q], c
+				mn[q].Value, mn[q].Combination = vmin[q], int32(c)
 			}
 		}
 	}
 	for q := 0; q < nq; q++ {
+		mx[q].Pattern, mn[q].Pattern = 0, 0
 		if mx[q].Combination < 0 {
 			mx[q].Value, mn[q].Value = 0, 0
 			continue
 		}
-		b.masks(ac, q, mx[q], true)
-		b.masks(ac, q, mn[q], false)
+		if len(b.patterned) > 0 {
+			mx[q].Pattern = sx[q].id(pt, b.masks(ac, q, int(mx[q].Combination), true))
+			mn[q].Pattern = sn[q].id(pt, b.masks(ac, q, int(mn[q].Combination), false))
+		}
 	}
 	return -1, 0
 }
@@ -216,24 +293,26 @@ func (b *envelopeBuilder) combinationFault(ac *accumulator, c, q int, quantity s
 	return e
 }
 
-// masks fills ex.Loaded with the regions where each patterned case takes its adverse factor.
-func (b *envelopeBuilder) masks(ac *accumulator, q int, ex *Extreme, seekMax bool) {
-	c := ex.Combination
+// masks returns, in the builder's scratch, the regions where each patterned case takes its
+// adverse factor in combination c.
+func (b *envelopeBuilder) masks(ac *accumulator, q, c int, seekMax bool) []uint64 {
+	m := b.scratch
 	for j, k := range b.patterned {
 		if b.tab.hi[c][k] == b.tab.lo[c][k] {
-			ex.Loaded[j] = 0 // the case is absent or takes one factor: no pattern
+			m[j] = 0 // the case is absent or takes one factor: no pattern
 			if b.tab.hi[c][k] > 0 {
-				ex.Loaded[j] = ac.pMask[k][q] | ac.nMask[k][q]
+				m[j] = ac.pMask[k][q] | ac.nMask[k][q]
 			}
 			continue
 		}
 		// the larger factor goes on the positive parts when seeking a maximum
 		if seekMax == b.tab.adverseHi[c][k] {
-			ex.Loaded[j] = ac.pMask[k][q]
+			m[j] = ac.pMask[k][q]
 		} else {
-			ex.Loaded[j] = ac.nMask[k][q]
+			m[j] = ac.nMask[k][q]
 		}
 	}
+	return m
 }
 
 // Envelopes computes the exact ULS and SLS envelopes at the stations. By superposition each
@@ -247,16 +326,17 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 		return Envelopes{}, err
 	}
 	env := Envelopes{Stations: st, Combinations: combos, Patterned: names, Regions: a.Regions()}
-	np := len(b.patterned)
+	pt := newPatternTable(len(b.patterned))
 	states := []*Envelope{&env.ULS, &env.SLS}
 	env.ULS.State, env.SLS.State = ULS, SLS
-	all := newExtremes(16*len(st), np)
+	all := make([]Extreme, 16*len(st))
 	for si, e := range states {
 		for j, p := range e.series() {
 			o := (8*si + j) * len(st)
 			*p = all[o : o+len(st) : o+len(st)]
 		}
 	}
+	var sx, sn [2][nStationQ]series
 	ac := newAccumulator(len(a.cases), nStationQ)
 	ei := a.s.model.EI
 	for i, s := range st {
@@ -274,20 +354,21 @@ func (a *Analysis) Envelopes(combos []Combination, st []Station) (Envelopes, err
 				ac.add(k, qW, r, w)
 			}
 		}
-		for _, en := range states {
-			mx := []*Extreme{&en.MMax[i], &en.VMax[i], &en.NMax[i], &en.WMax[i]}
-			mn := []*Extreme{&en.MMin[i], &en.VMin[i], &en.NMin[i], &en.WMin[i]}
-			if c, q := b.extremes(ac, en.State, mx, mn); c >= 0 {
+		for si, en := range states {
+			mx := [nStationQ]*Extreme{&en.MMax[i], &en.VMax[i], &en.NMax[i], &en.WMax[i]}
+			mn := [nStationQ]*Extreme{&en.MMin[i], &en.VMin[i], &en.NMin[i], &en.WMin[i]}
+			if c, q := b.extremes(ac, en.State, mx[:], mn[:], pt, sx[si][:], sn[si][:]); c >= 0 {
 				return Envelopes{}, b.combinationFault(ac, c, q, stationQuantity(q), s.X)
 			}
 		}
 	}
-	if env.ULSReactions, err = a.reactionEnvelope(b, ULS); err != nil {
+	if env.ULSReactions, err = a.reactionEnvelope(b, ULS, pt); err != nil {
 		return Envelopes{}, err
 	}
-	if env.SLSReactions, err = a.reactionEnvelope(b, SLS); err != nil {
+	if env.SLSReactions, err = a.reactionEnvelope(b, SLS, pt); err != nil {
 		return Envelopes{}, err
 	}
+	env.patterns = slices.Clip(pt.masks)
 	return env, nil
 }
 
@@ -323,6 +404,7 @@ func (a *Analysis) newEnvelopeBuilder(combos []Combination) (*envelopeBuilder, [
 			names = append(names, c.Name)
 		}
 	}
+	b.scratch = make([]uint64, len(b.patterned))
 	return b, names, nil
 }
 
@@ -331,20 +413,9 @@ func (e *Envelope) series() []*[]Extreme {
 	return []*[]Extreme{&e.MMax, &e.MMin, &e.VMax, &e.VMin, &e.NMax, &e.NMin, &e.WMax, &e.WMin}
 }
 
-func newExtremes(n, np int) []Extreme {
-	ex := make([]Extreme, n)
-	if np > 0 {
-		masks := make([]uint64, n*np)
-		for i := range ex {
-			ex[i].Loaded = masks[i*np : (i+1)*np : (i+1)*np]
-		}
-	}
-	return ex
-}
-
-func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) ([]ReactionEnvelope, error) {
-	np := len(b.patterned)
+func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState, pt *patternTable) ([]ReactionEnvelope, error) {
 	ac := newAccumulator(len(a.cases), nReactionQ)
+	var sx, sn [nReactionQ]series
 	out := make([]ReactionEnvelope, len(a.s.model.Supports))
 	for si, sp := range a.s.model.Supports {
 		ac.reset()
@@ -359,13 +430,8 @@ func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) ([]Rea
 		re := ReactionEnvelope{X: sp.X}
 		mx := []*Extreme{&re.FzMax, &re.FxMax, &re.MyMax}
 		mn := []*Extreme{&re.FzMin, &re.FxMin, &re.MyMin}
-		if np > 0 {
-			for q := range mx {
-				mx[q].Loaded, mn[q].Loaded = make([]uint64, np), make([]uint64, np)
-			}
-		}
-		if c, q := b.extremes(ac, state, mx, mn); c >= 0 {
-			return nil, b.combinationFault(ac, c, q, reactionQuantity, sp.X)
+		if c, q := b.extremes(ac, state, mx, mn, pt, sx[:], sn[:]); c >= 0 {
+			return nil, b.combinationFault(ac, c, q, ReactionQuantity, sp.X)
 		}
 		out[si] = re
 	}
@@ -375,17 +441,27 @@ func (a *Analysis) reactionEnvelope(b *envelopeBuilder, state LimitState) ([]Rea
 // Governing describes in words which combination and pattern produce an extreme, e.g.
 // "ULS 6.10b, Q leading; Q on span 1, span 3".
 func (env *Envelopes) Governing(ex Extreme) string {
-	if ex.Combination < 0 || ex.Combination >= len(env.Combinations) {
+	np := len(env.Patterned)
+	var loaded []uint64
+	if np > 0 && ex.Pattern >= 0 && (int(ex.Pattern)+1)*np <= len(env.patterns) {
+		loaded = env.patterns[int(ex.Pattern)*np : (int(ex.Pattern)+1)*np]
+	}
+	return env.governing(int(ex.Combination), loaded)
+}
+
+// governing is Governing for a combination and the masks of its pattern (nil: none).
+func (env *Envelopes) governing(combination int, loaded []uint64) string {
+	if combination < 0 || combination >= len(env.Combinations) {
 		return "no combination"
 	}
 	var b strings.Builder
-	b.WriteString(env.Combinations[ex.Combination].Name)
+	b.WriteString(env.Combinations[combination].Name)
 	for j, name := range env.Patterned {
-		if j >= len(ex.Loaded) {
+		if j >= len(loaded) {
 			break
 		}
-		mask := ex.Loaded[j]
-		if mask == 0 || !combinationUses(env.Combinations[ex.Combination], name) {
+		mask := loaded[j]
+		if mask == 0 || !combinationUses(env.Combinations[combination], name) {
 			continue
 		}
 		b.WriteString("; ")

@@ -168,7 +168,7 @@ func TestGoverningPatternReproducesExtreme(t *testing.T) {
 			// rebuild with the reported Q pattern and each G factor; one must match
 			best := math.NaN()
 			for _, gf := range []float64{1.35, 1.0} {
-				loads := append(scaled(b.g, gf), scaled(b.qLoads(ex.Loaded[0]), 1.5)...)
+				loads := append(scaled(b.g, gf), scaled(b.qLoads(env.Loaded(ex)[0]), 1.5)...)
 				one, err := NewAnalysis(b.model, []Case{{Name: "X", Loads: loads}})
 				require.NoError(t, err)
 				r, _ := one.CaseResult("X", []Station{s})
@@ -176,7 +176,7 @@ func TestGoverningPatternReproducesExtreme(t *testing.T) {
 					best = r.Effects.M[0]
 				}
 			}
-			require.InDelta(t, ex.Value, best, 1e-6*math.Max(1, math.Abs(ex.Value)), "x = %g: pattern %b", s.X, ex.Loaded[0])
+			require.InDelta(t, ex.Value, best, 1e-6*math.Max(1, math.Abs(ex.Value)), "x = %g: pattern %b", s.X, env.Loaded(ex)[0])
 		}
 	}
 }

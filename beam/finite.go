@@ -40,8 +40,8 @@ func (e *NonFiniteError) Error() string {
 // false) so that it costs nothing in the envelope's inner loop.
 func isFinite(x float64) bool { return math.Abs(x) <= math.MaxFloat64 }
 
-// reactionQuantity names a support reaction in a NonFiniteError.
-const reactionQuantity = "support reaction"
+// ReactionQuantity is the Quantity of a NonFiniteError about a support reaction.
+const ReactionQuantity = "support reaction"
 
 // stationQuantity names a station quantity (qM, qV, qN, qW) in a NonFiniteError.
 func stationQuantity(q int) string {
@@ -79,7 +79,7 @@ func (a *Analysis) columnFault(col *column, st []Station) (quantity string, x fl
 	}
 	for _, r := range col.reactions {
 		if firstNonFinite(r.Fz, r.Fx, r.My) >= 0 {
-			return reactionQuantity, r.X, false
+			return ReactionQuantity, r.X, false
 		}
 	}
 	ei := a.s.model.EI

@@ -143,7 +143,7 @@ func (a *Analysis) CaseResult(name string, st []Station) (CaseResult, error) {
 			rc.My += rr.My
 		}
 		if firstNonFinite(rc.Fz, rc.Fx, rc.My) >= 0 {
-			return CaseResult{}, &NonFiniteError{Case: name, Load: a.culprit(k, nil), Quantity: reactionQuantity, X: sp.X}
+			return CaseResult{}, &NonFiniteError{Case: name, Load: a.culprit(k, nil), Quantity: ReactionQuantity, X: sp.X}
 		}
 		r.Reactions = append(r.Reactions, rc)
 	}

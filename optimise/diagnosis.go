@@ -212,7 +212,11 @@ func (o *Outcome) stretchFinding(run []Candidate) Finding {
 	if f.McRd > 0 || f.VcRd > 0 {
 		f.Key = "beam.section"
 	}
-	f.Message = o.stretchMessage(f, best.Design.Geometry, overFrom, overTo)
+	var g splice.Geometry
+	if best.Design.Geometry != nil {
+		g = *best.Design.Geometry
+	}
+	f.Message = o.stretchMessage(f, g, overFrom, overTo)
 	return f
 }
 

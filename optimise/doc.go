@@ -25,10 +25,12 @@
 // splice and costs blocks (Setup.SpliceProblem). A position where nothing passes keeps the
 // governing check of the closest configuration and by how much it fails.
 //
-// The normal scan computes all envelopes in one pass over the stations, sizes each distinct
-// force set once and sizes on a bounded pool of goroutines; the exhaustive scan evaluates
-// each position on its own, one after another, with the exhaustive sizing. Both give the same
-// candidates.
+// The normal scan computes the envelopes at the positions in blocks of stations, sizes each
+// distinct force set once (found by sorting the positions by their forces) on a bounded pool
+// of goroutines; the exhaustive scan evaluates each position on its own, one after another,
+// with the exhaustive sizing. Both give the same candidates. Positions with equal splices
+// share one copy of its geometry and description, and a position in a keep-out zone points
+// at the zone, so a candidate costs its own fields and little more.
 //
 // # Layouts
 //
@@ -50,10 +52,16 @@
 // dynamic programming over the positions, layer ℓ being the ℓ-th splice, with the admissible
 // previous splices of each position a window in x kept by two pointers and a sliding-window
 // minimum (the mass limit checked piece by piece only where the splices' own masses decide
-// it). The trips depend on all pieces at once, so the layouts of one tier and k are then
-// enumerated in order of splice cost (recursive enumeration of k shortest paths, Jiménez and
-// Marzal 1999) until the least possible number of trips, ⌈least total mass / payload⌉, proves
-// that no later one is cheaper; usually the first layout already meets it. Ties go to fewer
+// it). Each layer holds only its band: the positions a valid piece reaches from the layer
+// before and from which k−ℓ more splices may still reach the right end, which are all a
+// k-splice layout can pass through; a lattice of more than 2^18 entries keeps checkpoint
+// layers only (every ≈√k-th) and recomputes the others when asked for them, so the memory
+// does not grow as k × positions. The trips depend on all pieces at once, so the layouts of
+// one tier and k are then enumerated in order of splice cost (recursive enumeration of k
+// shortest paths, Jiménez and Marzal 1999, each state drawing its predecessors one at a time
+// from a range-minimum tree instead of holding them all) until the least possible number of
+// trips, ⌈least total mass / payload⌉, proves that no later one is cheaper; usually the first
+// layout already meets it. Ties go to fewer
 // splices, then to the smaller sum of the ranking's measure (the utilisation for the cost
 // ranking: splices where they work least), then to splices further left, compared from the
 // right end.

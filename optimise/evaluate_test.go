@@ -191,7 +191,7 @@ func TestWithLayoutMakesTheHandLayoutTheRecommendation(t *testing.T) {
 	assert.Equal(t, e.Layout, w.Recommended())
 	require.Len(t, w.Chosen, 2)
 	assert.Equal(t, 13000.0, w.Chosen[0].Position)
-	assert.Equal(t, o.CandidateAt(13000).Design.Geometry, w.Chosen[0].Result.Geometry, "the scan's splice, checked in full")
+	assert.Equal(t, *o.CandidateAt(13000).Design.Geometry, w.Chosen[0].Result.Geometry, "the scan's splice, checked in full")
 	assert.Contains(t, w.Notes[len(w.Notes)-1], "placed by hand")
 	assert.Contains(t, w.Notes[len(w.Notes)-1], "splices at 13, 26.5 m")
 	assert.Equal(t, before, o.Recommended(), "the original outcome is unchanged")

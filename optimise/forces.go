@@ -1,6 +1,8 @@
 package optimise
 
 import (
+	"cmp"
+	"errors"
 	"fmt"
 	"math"
 
@@ -25,10 +27,12 @@ type PositionForces struct {
 }
 
 // forceSetAt reads one envelope at the stations idx (one station, or two at a jump: left and
-// right of x) and keeps the worse value of each extreme.
-func forceSetAt(e *beam.Envelope, idx []int) ForceSet {
+// right of x), numbered from the envelope's station first, and keeps the worse value of each
+// extreme.
+func forceSetAt(e *beam.Envelope, idx []int, first int) ForceSet {
 	f := ForceSet{MMax: math.Inf(-1), MMin: math.Inf(1), NMax: math.Inf(-1), NMin: math.Inf(1)}
 	for _, i := range idx {
+		i -= first
 		f.MMax = math.Max(f.MMax, e.MMax[i].Value)
 		f.MMin = math.Min(f.MMin, e.MMin[i].Value)
 		f.V = math.Max(f.V, math.Max(math.Abs(e.VMax[i].Value), math.Abs(e.VMin[i].Value)))
@@ -38,40 +42,57 @@ func forceSetAt(e *beam.Envelope, idx []int) ForceSet {
 	return f
 }
 
-// DesignForces returns the design forces at each position xs [mm] from one envelope
-// calculation over all the positions: at a jump (support, point load or point moment) both
+// DesignForces returns the design forces at each position xs [mm] from envelope calculations
+// over the positions, forceChunk at a time (each station's envelope is its own, so the chunks
+// change nothing but the memory held): at a jump (support, point load or point moment) both
 // sides are evaluated and the worse of each extreme is kept, so a splice exactly at a jump is
-// designed for the worse side.
+// designed for the worse side. A value that is not finite is the error the envelopes over all
+// the positions at once would give: the first station's, else the support reaction's.
 func DesignForces(an *beam.Analysis, combos []beam.Combination, xs []float64) ([]PositionForces, error) {
 	st, err := an.StationsAt(xs)
 	if err != nil {
 		return nil, err
 	}
-	env, err := an.Envelopes(combos, st)
-	if err != nil {
-		return nil, err
+	groups := positionStations(st, len(xs))
+	out := make([]PositionForces, 0, len(xs))
+	var reaction error // a support reaction that is not finite: reported unless a station is
+	for lo := 0; lo < len(xs); lo += forceChunk {
+		part := groups[lo:min(lo+forceChunk, len(xs))]
+		first, last := part[0][0], part[len(part)-1][len(part[len(part)-1])-1]
+		env, err := an.Envelopes(combos, st[first:last+1])
+		if nf := (*beam.NonFiniteError)(nil); errors.As(err, &nf) && nf.Quantity == beam.ReactionQuantity {
+			reaction = cmp.Or(reaction, err)
+			continue
+		}
+		if err != nil {
+			return nil, err
+		}
+		for _, idx := range part {
+			out = append(out, PositionForces{ULS: forceSetAt(&env.ULS, idx, first), SLS: forceSetAt(&env.SLS, idx, first)})
+		}
 	}
-	out := make([]PositionForces, len(xs))
-	for c, idx := range positionStations(st, len(xs)) {
-		out[c] = PositionForces{ULS: forceSetAt(&env.ULS, idx), SLS: forceSetAt(&env.SLS, idx)}
+	if reaction != nil {
+		return nil, reaction
 	}
 	return out, nil
 }
 
+// forceChunk is the number of positions DesignForces evaluates at once.
+const forceChunk = 2048
+
 // positionStations groups the stations StationsAt gives for n positions: one station per
-// position, two (left, right) at a jump, in order.
+// position, two (left, right) at a jump, in order; each group is a range of st.
 func positionStations(st []beam.Station, n int) [][]int {
 	out := make([][]int, n)
+	all := make([]int, len(st))
 	k := 0
 	for c := range n {
 		start := k
 		for k < len(st) && (k == start || st[k].X == st[start].X && st[k].Side != st[k-1].Side) {
+			all[k] = k
 			k++
 		}
-		out[c] = make([]int, 0, 2)
-		for i := start; i < k; i++ {
-			out[c] = append(out[c], i)
-		}
+		out[c] = all[start:k:k]
 	}
 	if k != len(st) {
 		panic(fmt.Sprintf("optimise: %d stations for %d positions, %d read", len(st), n, k))
@@ -126,7 +147,7 @@ func DesignForcesTraced(an *beam.Analysis, combos []beam.Combination, xs []float
 	forces := make([]PositionForces, len(xs))
 	origins := make([]PositionOrigins, len(xs))
 	for c, idx := range positionStations(st, len(xs)) {
-		forces[c] = PositionForces{ULS: forceSetAt(&env.ULS, idx), SLS: forceSetAt(&env.SLS, idx)}
+		forces[c] = PositionForces{ULS: forceSetAt(&env.ULS, idx, 0), SLS: forceSetAt(&env.SLS, idx, 0)}
 		origins[c] = PositionOrigins{ULS: originsAt(&env, &env.ULS, idx), SLS: originsAt(&env, &env.SLS, idx)}
 	}
 	return forces, origins, nil

@@ -222,9 +222,9 @@ func (s *search) layoutFrom(nodes []int, t *tier, trips int) Layout {
 	l := Layout{Sites: slices.Clone(nodes), Vehicle: t.name, Trips: trips, Proven: true}
 	var spl int64
 	for _, n := range nodes {
-		l.Splices = append(l.Splices, p.Sites[n].X)
+		l.Splices = append(l.Splices, s.x[n+1])
 		spl += s.cost[n+1]
-		l.Tie += p.Sites[n].Tie
+		l.Tie += s.tie[n+1]
 	}
 	path := s.withEnds(nodes)
 	for k := 0; k+1 < len(path); k++ {

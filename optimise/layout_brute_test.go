@@ -297,19 +297,14 @@ func TestEnumeratorListsPathsInOrder(t *testing.T) {
 					return layoutKey{total: c, count: k, tie: tie, nodes: sites}
 				}
 				sort.Slice(want, func(i, j int) bool { return keyOf(want[i]).compare(keyOf(want[j])) < 0 })
-				layers := s.unconstrained(tr, k)
 				var got [][]int
-				if k == 0 || layers != nil {
-					fin := s.final(layers, k, tr)
-					if fin.ok() {
-						en := &enumerator{s: s, t: tr, k: k, layers: layers, paths: map[int][]pathEnt{}, heaps: map[int]*candHeap{}}
-						en.paths[en.state(k+1, s.n+1)] = []pathEnt{{cost: fin.cost, tie: fin.tie, pred: fin.pred}}
-						for m := 0; ; m++ {
-							if _, ok := en.kth(en.state(k+1, s.n+1), m); !ok {
-								break
-							}
-							got = append(got, en.sites(m))
+				if lt := s.lattice(tr, k, nil); lt != nil {
+					en := newEnumerator(s, tr, lt)
+					for m := 0; ; m++ {
+						if _, ok := en.kth(en.end(), m); !ok {
+							break
 						}
+						got = append(got, en.sites(m))
 					}
 				}
 				require.Equal(t, len(want), len(got), "trial %d tier %d k %d", trial, ti, k)
@@ -353,4 +348,55 @@ func TestLayoutsOfARealScanEqualBruteForce(t *testing.T) {
 			}
 		})
 	}
+}
+
+// TestCheckpointedLatticeEqualsHeld: a lattice that holds only its checkpoints and recomputes
+// the other layers (its budget cut to one entry, so that every layer but the checkpoints is
+// recomputed, and recomputed again after each use) lists the same paths in the same order as
+// one that holds every layer, and the layout search over it gives the same layouts and
+// alternatives (kind: property, equality with the plain version).
+func TestCheckpointedLatticeEqualsHeld(t *testing.T) {
+	r := rand.New(rand.NewPCG(23, 5))
+	checked := 0
+	for trial := 0; trial < 300; trial++ {
+		p := randomProblem(r, trial%2 == 0)
+		p.MinSplices, p.MaxSplices = 0, -1
+		held, tight := newSearch(&p), newSearch(&p)
+		tight.budget = 1
+		for ti := range held.tiers {
+			for k := 0; k <= len(p.Sites); k++ {
+				a, b := held.lattice(held.tiers[ti], k, nil), tight.lattice(tight.tiers[ti], k, nil)
+				require.Equal(t, a == nil, b == nil, "trial %d tier %d k %d", trial, ti, k)
+				if a == nil {
+					continue
+				}
+				if k > 1 {
+					require.Greater(t, b.every, 1, "trial %d: the tight lattice holds checkpoints only", trial)
+				}
+				ea, eb := newEnumerator(held, held.tiers[ti], a), newEnumerator(tight, tight.tiers[ti], b)
+				for m := 0; ; m++ {
+					pa, oka := ea.kth(ea.end(), m)
+					pb, okb := eb.kth(eb.end(), m)
+					require.Equal(t, oka, okb, "trial %d tier %d k %d path %d", trial, ti, k, m)
+					if !oka {
+						break
+					}
+					require.Equal(t, pa, pb)
+					require.Equal(t, ea.sites(m), eb.sites(m), "trial %d tier %d k %d path %d", trial, ti, k, m)
+					checked++
+				}
+			}
+		}
+		want, errWant := Layouts(p)
+		q := p
+		s := newSearch(&q)
+		s.budget = 1
+		got, ok := s.byCount()
+		require.Equal(t, errWant == nil, ok, "trial %d", trial)
+		if ok {
+			got.Alternatives = s.alternatives(got.ByCount)
+			require.Equal(t, want, got, "trial %d", trial)
+		}
+	}
+	require.Greater(t, checked, 10000)
 }

@@ -239,6 +239,15 @@ func (r *Outcome) layoutProblem() LayoutProblem {
 	p := LayoutProblem{Length: s.Model.Length, MassPerLength: s.Section.Mass / 1000, Gap: r.Gap(), Limits: r.Limits,
 		MinSplices: s.MinSplices, MaxSplices: s.MaxSplices, Vehicles: s.Vehicles, Lift: s.Lift,
 		Alternatives: r.Alternatives, Extra: ExtraCounts}
+	feasible := 0
+	for _, c := range r.Candidates {
+		if c.Feasible {
+			feasible++
+		}
+	}
+	if feasible > 0 {
+		p.Sites = make([]Site, 0, feasible)
+	}
 	class := -1
 	for i, c := range r.Candidates {
 		if !c.Feasible {

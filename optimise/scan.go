@@ -1,9 +1,11 @@
 package optimise
 
 import (
+	"cmp"
 	"fmt"
 	"math"
 	"runtime"
+	"slices"
 	"sync"
 
 	"spanbreak/optimise/jobfile"
@@ -24,9 +26,10 @@ type SpliceDesign struct {
 	Governing   string  // id of the governing check, e.g. "web.bolt.bearing.beam"
 	Summary     string  // one line: bolts, plates, e.g. "M20 10.9; flanges 2×3 outer 15 mm; web 2×5"
 	Reason      string  // when not feasible: which check fails and by how much
-	// Geometry is the splice sized (when not feasible, the attempt closest to passing); the
-	// zero value when the designer keeps none (a test's stand-in designer).
-	Geometry splice.Geometry
+	// Geometry is the splice sized (when not feasible, the attempt closest to passing); nil
+	// when the designer keeps none (a test's stand-in designer). The scan gives every
+	// position with the same splice the same pointer: it is shared, not to be changed.
+	Geometry *splice.Geometry
 }
 
 // Mass returns the mass of the splice the pieces carry: plates and bolts [kg].
@@ -46,7 +49,7 @@ type Candidate struct {
 	X        float64        // [mm] from the left end
 	Feasible bool           // a splice may go here: outside every keep-out and a splice passes
 	Reason   string         // why not, when not feasible
-	Zone     *Zone          // the keep-out zone it lies in, if any
+	Zone     *Zone          // the keep-out zone it lies in, if any (an element of the zones scanned, shared)
 	Forces   PositionForces // design forces; zero inside a keep-out zone (not evaluated)
 	Design   SpliceDesign   // the cheapest splice; zero inside a keep-out zone
 	Rank     int            // 1 = best by the ranking of the run; 0 when not feasible
@@ -144,11 +147,42 @@ func Scan(src Forces, xs []float64, zones []Zone, d Designer, set ScanSettings) 
 	return cands, stats, nil
 }
 
+// sharer gives the designs whose geometries are equal one copy of the geometry, and equal
+// texts one copy of each, so that the candidates hold as many splices as the scan found
+// different ones, not one per position. It is safe for concurrent use.
+type sharer struct {
+	mu         sync.Mutex
+	geometries map[splice.Geometry]*splice.Geometry
+	texts      map[string]string
+}
+
+func newSharer() *sharer {
+	return &sharer{geometries: map[splice.Geometry]*splice.Geometry{}, texts: map[string]string{}}
+}
+
+func (sh *sharer) share(d *SpliceDesign) {
+	sh.mu.Lock()
+	defer sh.mu.Unlock()
+	if d.Geometry != nil {
+		if g, ok := sh.geometries[*d.Geometry]; ok {
+			d.Geometry = g
+		} else {
+			sh.geometries[*d.Geometry] = d.Geometry
+		}
+	}
+	for _, s := range []*string{&d.Summary, &d.Reason, &d.Governing} {
+		if t, ok := sh.texts[*s]; ok {
+			*s = t
+		} else {
+			sh.texts[*s] = *s
+		}
+	}
+}
+
 func zoneAt(zones []Zone, x float64) *Zone {
 	for i := range zones {
 		if zones[i].Contains(x) {
-			z := zones[i]
-			return &z
+			return &zones[i]
 		}
 	}
 	return nil
@@ -156,6 +190,7 @@ func zoneAt(zones []Zone, x float64) *Zone {
 
 // scanExhaustive is the reference: each position on its own, in order.
 func scanExhaustive(src Forces, cands []Candidate, open []int, d Designer, stats *ScanStats) error {
+	sh := newSharer()
 	for _, i := range open {
 		f, err := src.At([]float64{cands[i].X})
 		if err != nil {
@@ -167,13 +202,16 @@ func scanExhaustive(src Forces, cands []Candidate, open []int, d Designer, stats
 			return err
 		}
 		stats.Sized++
+		sh.share(&des)
 		cands[i].Design = des
 	}
 	return nil
 }
 
 // scanShared computes the forces at every open position in one envelope pass, then sizes each
-// distinct force set once on a bounded pool of workers.
+// distinct force set once on a bounded pool of workers. The distinct sets are found by
+// sorting the positions by their forces (a force set with a NaN, which equals nothing, is
+// its own), each sized at the first of its positions.
 func scanShared(src Forces, cands []Candidate, open []int, d Designer, workers int, stats *ScanStats) error {
 	if len(open) == 0 {
 		return nil
@@ -186,48 +224,80 @@ func scanShared(src Forces, cands []Candidate, open []int, d Designer, workers i
 	if err != nil {
 		return err
 	}
-	first := make(map[PositionForces]int, len(open)) // force set → index into unique
-	var unique []PositionForces
-	slot := make([]int, len(open))
-	for k, f := range forces {
-		u, ok := first[f]
-		if !ok {
-			u = len(unique)
-			first[f] = u
-			unique = append(unique, f)
-		} else {
-			stats.Shared++
-		}
-		slot[k] = u
+	for k, i := range open {
+		cands[i].Forces = forces[k]
 	}
-	designs, err := designAll(d, unique, workers)
+	force := func(k int32) *PositionForces { return &cands[open[k]].Forces }
+	order := make([]int32, len(open)) // the open positions by their forces, then in scan order
+	for k := range order {
+		order[k] = int32(k)
+	}
+	slices.SortFunc(order, func(a, b int32) int { return cmp.Or(compareForces(force(a), force(b)), cmp.Compare(a, b)) })
+	var runs []int32 // where each distinct force set's run of order begins
+	for r, k := range order {
+		if r == 0 || *force(k) != *force(order[r-1]) {
+			runs = append(runs, int32(r))
+		}
+	}
+	// sized in the order of their first positions, each design written to every position of its run
+	slices.SortFunc(runs, func(a, b int32) int { return cmp.Compare(order[a], order[b]) })
+	stats.Shared += len(open) - len(runs)
+	run := func(u int) []int32 {
+		end := int(runs[u]) + 1
+		for end < len(order) && *force(order[end]) == *force(order[runs[u]]) {
+			end++
+		}
+		return order[runs[u]:end]
+	}
+	err = designAll(d, len(runs), func(u int) PositionForces { return *force(order[runs[u]]) }, func(u int, des SpliceDesign) {
+		for _, k := range run(u) {
+			cands[open[k]].Design = des
+		}
+	}, workers)
 	if err != nil {
 		return err
 	}
-	stats.Sized += len(unique)
-	for k, i := range open {
-		cands[i].Forces = forces[k]
-		cands[i].Design = designs[slot[k]]
-	}
+	stats.Sized += len(runs)
 	return nil
 }
 
-// designAll sizes each force set, at most workers at a time; the first error wins.
-func designAll(d Designer, fs []PositionForces, workers int) ([]SpliceDesign, error) {
+// compareForces orders force sets field by field (ULS then SLS: M_max, M_min, V, N_max,
+// N_min); equal sets compare 0.
+func compareForces(a, b *PositionForces) int {
+	return cmp.Or(compareSet(&a.ULS, &b.ULS), compareSet(&a.SLS, &b.SLS))
+}
+
+func compareSet(a, b *ForceSet) int {
+	return cmp.Or(cmp.Compare(a.MMax, b.MMax), cmp.Compare(a.MMin, b.MMin), cmp.Compare(a.V, b.V),
+		cmp.Compare(a.NMax, b.NMax), cmp.Compare(a.NMin, b.NMin))
+}
+
+// designAll sizes the force sets 0..n−1, at most workers at a time, and puts each design
+// (put is called at once for different sets); the first error wins.
+func designAll(d Designer, n int, force func(int) PositionForces, put func(int, SpliceDesign), workers int) error {
+	sh := newSharer()
 	if workers <= 0 {
 		workers = runtime.GOMAXPROCS(0)
 	}
-	workers = min(workers, len(fs))
-	out := make([]SpliceDesign, len(fs))
-	errs := make([]error, len(fs))
+	workers = min(workers, n)
+	design := func(i int) error {
+		des, err := d.Design(force(i))
+		if err != nil {
+			return err
+		}
+		sh.share(&des)
+		put(i, des)
+		return nil
+	}
 	if workers <= 1 {
-		for i, f := range fs {
-			if out[i], errs[i] = d.Design(f); errs[i] != nil {
-				return nil, errs[i]
+		for i := range n {
+			if err := design(i); err != nil {
+				return err
 			}
 		}
-		return out, nil
+		return nil
 	}
+	errs := make([]error, n)
 	var wg sync.WaitGroup
 	next := make(chan int)
 	for w := 0; w < workers; w++ {
@@ -235,19 +305,19 @@ func designAll(d Designer, fs []PositionForces, workers int) ([]SpliceDesign, er
 		go func() {
 			defer wg.Done()
 			for i := range next {
-				out[i], errs[i] = d.Design(fs[i])
+				errs[i] = design(i)
 			}
 		}()
 	}
-	for i := range fs {
+	for i := range n {
 		next <- i
 	}
 	close(next)
 	wg.Wait()
 	for _, err := range errs {
 		if err != nil {
-			return nil, err
+			return err
 		}
 	}
-	return out, nil
+	return nil
 }

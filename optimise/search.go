@@ -2,9 +2,10 @@ package optimise
 
 import (
 	"container/heap"
+	"fmt"
+	"iter"
 	"math"
 	"slices"
-	"sort"
 )
 
 // The layout search works on nodes: node 0 is the left end of the beam, node s+1 is site s,
@@ -14,20 +15,14 @@ import (
 // by dynamic programming over layers ℓ = 1..k (the ℓ-th splice), and the trips, which depend
 // on every piece's mass at once, by enumerating paths in cost order (Jiménez and Marzal's
 // recursive enumeration of k shortest paths) until a lower bound on the trips proves that no
-// later path can be cheaper in total.
+// later path can be cheaper in total. The programme runs over bands of nodes that can lie on
+// a k-splice layout (lattice.go), and the enumeration draws each state's predecessors in
+// order as it needs them (enumerate.go), so that neither keeps k × sites entries.
 
 const (
 	lengthTol = 1e-6 // [mm]
 	massTol   = 1e-6 // [kg]
 )
-
-// entry is the best partial path ending at a node in one layer; pred < 0 means none.
-type entry struct {
-	cost, tie int64
-	pred      int
-}
-
-func (e entry) ok() bool { return e.pred >= 0 }
 
 // better orders partial paths ending at one node: cost, tie, then the predecessor further left.
 func better(aCost, aTie int64, aPred int, bCost, bTie int64, bPred int) bool {
@@ -47,8 +42,9 @@ type tier struct {
 	maxMass  float64 // [kg]
 	payload  float64 // [kg]
 	tripCost int64   // micro-units
-	layers   [][]entry
-	dead     bool // an unconstrained layer came out empty: no more splices fit
+
+	most   int          // the most splices a chain of valid pieces from the left end holds; −1 until known
+	admits map[int]bool // whether a layout with k splices exists, as found
 }
 
 // constraint restricts the classes of the splices (Lawler partitioning of the alternatives):
@@ -76,39 +72,58 @@ type search struct {
 	n          int
 	start, end []float64 // steel start of a piece leaving node i, steel end of one arriving at node j
 	half       []float64 // half the splice mass at each node [kg]
+	x          []float64 // the site's position [mm]
 	cost, tie  []int64
-	class      []int
+	class, ref []int32 // the site's Class and Candidate
 	hmin, hmax float64
 	minCost    int64
 	lift       int64
 	tiers      []*tier
+	classes    map[int]nodeRange // the nodes from each class's first site to its last
+	deque      []int             // nextLayer's, kept between layers
+	budget     int               // entries a lattice holds beyond its checkpoints: latticeEntries
+	spare      []*layer          // layers of lattices done with, for the next ones
+	spared     int               // their entries
 }
 
-func newSearch(p *LayoutProblem) *search {
-	n := len(p.Sites)
+func newSearch(p *LayoutProblem) *search { return newSearchOf(p, len(p.Sites), slices.Values(p.Sites)) }
+
+// newSearchOf builds the search of a problem over n sites given in order in place of its
+// own; the search keeps what it needs of them, not the sites.
+func newSearchOf(p *LayoutProblem, n int, sites iter.Seq[Site]) *search {
 	s := &search{p: p, n: n, start: make([]float64, n+2), end: make([]float64, n+2), half: make([]float64, n+2),
-		cost: make([]int64, n+2), tie: make([]int64, n+2), class: make([]int, n+2), lift: micro(p.Lift)}
+		x: make([]float64, n+2), cost: make([]int64, n+2), tie: make([]int64, n+2), class: make([]int32, n+2),
+		ref: make([]int32, n+2), lift: micro(p.Lift), classes: map[int]nodeRange{}, budget: latticeEntries}
 	s.start[n+1], s.end[n+1] = p.Length, p.Length
 	s.hmin, s.hmax = math.Inf(1), 0
 	s.minCost = math.MaxInt64
-	for i, site := range p.Sites {
-		v := i + 1
-		s.start[v], s.end[v] = site.X+p.Gap/2, site.X-p.Gap/2
+	v := 0
+	for site := range sites {
+		v++
+		s.start[v], s.end[v], s.x[v] = site.X+p.Gap/2, site.X-p.Gap/2, site.X
 		s.half[v] = site.Mass / 2
-		s.cost[v], s.tie[v], s.class[v] = micro(site.Cost), site.Tie, site.Class
+		s.cost[v], s.tie[v], s.class[v], s.ref[v] = micro(site.Cost), site.Tie, int32(site.Class), int32(site.Candidate)
 		s.hmin, s.hmax = math.Min(s.hmin, s.half[v]), math.Max(s.hmax, s.half[v])
 		s.minCost = min(s.minCost, s.cost[v])
+		if c, ok := s.classes[site.Class]; ok {
+			s.classes[site.Class] = nodeRange{c.lo, v}
+		} else {
+			s.classes[site.Class] = nodeRange{v, v}
+		}
+	}
+	if v != n {
+		panic(fmt.Sprintf("optimise: a search of %d sites given %d", n, v))
 	}
 	if n == 0 {
 		s.hmin, s.minCost = 0, 0
 	}
 	lim := p.Limits
 	if len(p.Vehicles) == 0 {
-		s.tiers = []*tier{{maxLen: lim.MaxLength, maxMass: lim.MaxMass, payload: math.Inf(1)}}
+		s.tiers = []*tier{{maxLen: lim.MaxLength, maxMass: lim.MaxMass, payload: math.Inf(1), most: -1}}
 	}
 	for _, v := range p.Vehicles {
 		s.tiers = append(s.tiers, &tier{name: v.Name, maxLen: math.Min(lim.MaxLength, v.MaxLength),
-			maxMass: math.Min(lim.MaxMass, v.Payload), payload: v.Payload, tripCost: micro(v.Cost)})
+			maxMass: math.Min(lim.MaxMass, v.Payload), payload: v.Payload, tripCost: micro(v.Cost), most: -1})
 	}
 	return s
 }
@@ -160,164 +175,19 @@ func (s *search) withEnds(sites []int) []int {
 	return append(path, s.n+1)
 }
 
-// firstLayer: one splice, the piece before it leaving the left end.
-func (s *search) firstLayer(t *tier, c *constraint) []entry {
-	out := noEntries(s.n + 2)
-	for j := 1; j <= s.n; j++ {
-		if c.allows(1, s.class[j]) && s.valid(0, j, t) {
-			out[j] = entry{cost: s.cost[j], tie: s.tie[j], pred: 0}
+// admits reports whether a layout with k splices exists on a tier.
+func (s *search) admits(t *tier, k int) bool {
+	ok, known := t.admits[k]
+	if !known {
+		lt := s.lattice(t, k, nil)
+		ok = lt != nil
+		s.release(lt)
+		if t.admits == nil {
+			t.admits = map[int]bool{}
 		}
+		t.admits[k] = ok
 	}
-	return out
-}
-
-func noEntries(n int) []entry {
-	out := make([]entry, n)
-	for i := range out {
-		out[i].pred = -1
-	}
-	return out
-}
-
-// nextLayer computes layer ℓ ≥ 2 from layer ℓ−1. For each splice j the admissible previous
-// splices i form a window in x (piece length between the limits), found with two pointers
-// that only move right; inside it the mass limit holds for certain on the right part (a
-// sliding-window minimum, a monotone deque) and is checked piece by piece on a narrow band
-// where it depends on the two splices' masses.
-func (s *search) nextLayer(prev []entry, layer int, t *tier, c *constraint) []entry {
-	n, p := s.n, s.p
-	out := noEntries(n + 2)
-	rho, rig := p.MassPerLength, p.Limits.Rigging
-	margin := 1e-9 * math.Max(1, t.maxMass)
-	massBinds := !(rho*t.maxLen+2*s.hmax+rig <= t.maxMass-margin)
-	surePass := func(i, j int) bool { return rho*s.length(i, j)+2*s.hmax+rig <= t.maxMass-margin }
-	minL := math.Max(p.Limits.MinLength-lengthTol, 0)
-	lo, hi, sp, pushed := 1, 0, 1, 0
-	dq := make([]int, 0, 64)
-	for j := 1; j <= n; j++ {
-		for hi+1 < j && s.length(hi+1, j) >= minL && s.length(hi+1, j) > 0 {
-			hi++
-		}
-		for lo <= n && s.length(lo, j) > t.maxLen+lengthTol {
-			lo++
-		}
-		if massBinds {
-			for sp <= n && !surePass(sp, j) {
-				sp++
-			}
-		}
-		bound := max(lo, sp)
-		for pushed < hi {
-			pushed++
-			e := prev[pushed]
-			if pushed < bound || !e.ok() {
-				continue
-			}
-			for len(dq) > 0 {
-				b := prev[dq[len(dq)-1]]
-				if b.cost < e.cost || b.cost == e.cost && b.tie <= e.tie {
-					break
-				}
-				dq = dq[:len(dq)-1]
-			}
-			dq = append(dq, pushed)
-		}
-		for len(dq) > 0 && dq[0] < bound {
-			dq = dq[1:]
-		}
-		if !c.allows(layer, s.class[j]) {
-			continue
-		}
-		best := -1
-		if len(dq) > 0 && dq[0] <= hi {
-			best = dq[0]
-		}
-		if massBinds && lo <= hi {
-			// the band [first i that may pass, min(hi, sp−1)], checked piece by piece
-			top := min(hi, sp-1)
-			if top >= lo {
-				first := lo + sort.Search(top-lo+1, func(k int) bool {
-					i := lo + k
-					return rho*s.length(i, j)+s.hmin+s.half[j]+rig <= t.maxMass+massTol
-				})
-				for i := first; i <= top; i++ {
-					e := prev[i]
-					if !e.ok() || !s.valid(i, j, t) {
-						continue
-					}
-					if best < 0 || better(e.cost, e.tie, i, prev[best].cost, prev[best].tie, best) {
-						best = i
-					}
-				}
-			}
-		}
-		if best >= 0 {
-			out[j] = entry{cost: prev[best].cost + s.cost[j], tie: prev[best].tie + s.tie[j], pred: best}
-		}
-	}
-	return out
-}
-
-// final returns the best complete path with k splices (the entry of the right end).
-func (s *search) final(layers [][]entry, k int, t *tier) entry {
-	end := s.n + 1
-	if k == 0 {
-		if s.valid(0, end, t) {
-			return entry{pred: 0}
-		}
-		return entry{pred: -1}
-	}
-	best := entry{pred: -1}
-	for i, e := range layers[k] {
-		if i == 0 || i > s.n || !e.ok() || !s.valid(i, end, t) {
-			continue
-		}
-		if !best.ok() || better(e.cost, e.tie, i, best.cost, best.tie, best.pred) {
-			best = entry{cost: e.cost, tie: e.tie, pred: i}
-		}
-	}
-	return best
-}
-
-// unconstrained returns layers 1..k of a tier, computing and keeping them as needed.
-func (s *search) unconstrained(t *tier, k int) [][]entry {
-	if t.layers == nil {
-		t.layers = [][]entry{nil}
-	}
-	for len(t.layers) <= k && !t.dead {
-		l := len(t.layers)
-		var e []entry
-		if l == 1 {
-			e = s.firstLayer(t, nil)
-		} else {
-			e = s.nextLayer(t.layers[l-1], l, t, nil)
-		}
-		if !slices.ContainsFunc(e, entry.ok) {
-			t.dead = true
-		}
-		t.layers = append(t.layers, e)
-	}
-	if len(t.layers) <= k {
-		return nil
-	}
-	return t.layers[:k+1]
-}
-
-func (s *search) constrained(t *tier, k int, c *constraint) [][]entry {
-	layers := [][]entry{nil}
-	for l := 1; l <= k; l++ {
-		var e []entry
-		if l == 1 {
-			e = s.firstLayer(t, c)
-		} else {
-			e = s.nextLayer(layers[l-1], l, t, c)
-		}
-		if !slices.ContainsFunc(e, entry.ok) {
-			return nil
-		}
-		layers = append(layers, e)
-	}
-	return layers
+	return ok
 }
 
 // tripsLowerBound bounds the trips of any k-splice layout on a tier from the least total mass.
@@ -332,27 +202,18 @@ func (s *search) tripsLowerBound(t *tier, k int) int {
 
 // best finds the cheapest k-splice layout on one tier under a constraint (nil: none).
 func (s *search) best(t *tier, k int, c *constraint) (Layout, bool) {
-	var layers [][]entry
-	if c == nil {
-		layers = s.unconstrained(t, k)
-	} else {
-		layers = s.constrained(t, k, c)
-	}
-	if k > 0 && layers == nil {
+	lt := s.lattice(t, k, c)
+	if lt == nil {
 		return Layout{}, false
 	}
-	fin := s.final(layers, k, t)
-	if !fin.ok() {
-		return Layout{}, false
-	}
-	en := &enumerator{s: s, t: t, k: k, c: c, layers: layers, paths: map[int][]pathEnt{}, heaps: map[int]*candHeap{}}
-	en.paths[en.state(k+1, s.n+1)] = []pathEnt{{cost: fin.cost, tie: fin.tie, pred: fin.pred}}
+	defer s.release(lt)
+	en := newEnumerator(s, t, lt)
 	lb := s.tripsLowerBound(t, k)
 	fixed := s.lift*int64(k+1) + t.tripCost*int64(lb)
 	var bestL Layout
 	found := false
 	for m := 0; ; m++ {
-		pe, ok := en.kth(en.state(k+1, s.n+1), m)
+		pe, ok := en.kth(en.end(), m)
 		if !ok {
 			break
 		}
@@ -410,10 +271,10 @@ func (s *search) bestOverTiers(k int, c *constraint) (Layout, bool) {
 	return best, found
 }
 
-// allDead reports whether no tier admits a path with more splices.
+// allDead reports whether no tier admits k splices or more, not even short of the right end.
 func (s *search) allDead(k int) bool {
 	for _, t := range s.tiers {
-		if s.unconstrained(t, k) != nil {
+		if k <= s.mostSplices(t) {
 			return false
 		}
 	}
@@ -517,7 +378,7 @@ func (s *search) alternatives(byCount []Layout) []Layout {
 		k := len(sp.best.Sites)
 		classes := make([]int, k)
 		for i, site := range sp.best.Sites {
-			classes[i] = s.class[site+1]
+			classes[i] = int(s.class[site+1])
 		}
 		for m := len(sp.c.fixed); m < k; m++ {
 			child := constraint{fixed: classes[:m:m], exclude: []int{classes[m]}}
@@ -530,150 +391,4 @@ func (s *search) alternatives(byCount []Layout) []Layout {
 		}
 	}
 	return out
-}
-
-// --- recursive enumeration of paths in cost order --------------------------------------------
-
-// pathEnt is the r-th best path to a state: its cost, tie, predecessor node and the rank of
-// the predecessor's path it extends.
-type pathEnt struct {
-	cost, tie int64
-	pred      int
-	rank      int
-}
-
-type cand struct {
-	cost, tie  int64
-	pred, rank int
-}
-
-type candHeap []cand
-
-func (h candHeap) Len() int { return len(h) }
-func (h candHeap) Less(i, j int) bool {
-	a, b := h[i], h[j]
-	if a.cost != b.cost || a.tie != b.tie || a.pred != b.pred {
-		return better(a.cost, a.tie, a.pred, b.cost, b.tie, b.pred)
-	}
-	return a.rank < b.rank
-}
-func (h candHeap) Swap(i, j int) { h[i], h[j] = h[j], h[i] }
-func (h *candHeap) Push(x any)   { *h = append(*h, x.(cand)) }
-func (h *candHeap) Pop() any {
-	old := *h
-	x := old[len(old)-1]
-	*h = old[:len(old)-1]
-	return x
-}
-
-// enumerator lists the paths to the right end of one (tier, k, constraint) search in the
-// order (splice cost, tie, positions from the right). State (ℓ, j) is the ℓ-th splice at
-// node j; (0, 0) is the left end and (k+1, n+1) the right end.
-type enumerator struct {
-	s      *search
-	t      *tier
-	k      int
-	c      *constraint
-	layers [][]entry
-	paths  map[int][]pathEnt
-	heaps  map[int]*candHeap
-}
-
-func (en *enumerator) state(layer, node int) int { return layer*(en.s.n+2) + node }
-
-func (en *enumerator) split(st int) (layer, node int) { return st / (en.s.n + 2), st % (en.s.n + 2) }
-
-// first returns the best path to a state from the dynamic programme.
-func (en *enumerator) first(layer, node int) (pathEnt, bool) {
-	if layer == 0 {
-		return pathEnt{pred: -1}, node == 0
-	}
-	e := en.layers[layer][node]
-	return pathEnt{cost: e.cost, tie: e.tie, pred: e.pred}, e.ok()
-}
-
-// preds lists the predecessors of a state: the nodes of the layer before with a path and a
-// valid piece to this node. Only the nodes whose piece length can be within the limits are
-// looked at (the piece starts rise with the node index).
-func (en *enumerator) preds(layer, node int) []int {
-	if layer == 1 || (layer == en.k+1 && en.k == 0) {
-		return []int{0}
-	}
-	s := en.s
-	lo := 1 + sort.Search(s.n, func(k int) bool { return s.length(k+1, node) <= en.t.maxLen+lengthTol })
-	var out []int
-	for i := lo; i <= s.n && i < node; i++ {
-		if l := s.length(i, node); l <= 0 || l < s.p.Limits.MinLength-lengthTol {
-			break
-		}
-		if en.layers[layer-1][i].ok() && s.valid(i, node, en.t) {
-			out = append(out, i)
-		}
-	}
-	return out
-}
-
-// kth returns the m-th best path (0-based) to a state.
-func (en *enumerator) kth(st, m int) (pathEnt, bool) {
-	layer, node := en.split(st)
-	ents, ok := en.paths[st]
-	if !ok {
-		f, ok := en.first(layer, node)
-		if !ok {
-			return pathEnt{}, false
-		}
-		ents = []pathEnt{f}
-		en.paths[st] = ents
-	}
-	if layer == 0 {
-		return ents[0], m == 0
-	}
-	add := en.s.cost[node]
-	addTie := en.s.tie[node]
-	for len(ents) <= m {
-		h := en.heaps[st]
-		if h == nil {
-			h = &candHeap{}
-			for _, i := range en.preds(layer, node) {
-				if i == ents[0].pred {
-					continue
-				}
-				f, _ := en.first(layer-1, i)
-				heap.Push(h, cand{cost: f.cost + add, tie: f.tie + addTie, pred: i, rank: 0})
-			}
-			en.heaps[st] = h
-		}
-		last := ents[len(ents)-1]
-		if q, ok := en.kth(en.state(layer-1, last.pred), last.rank+1); ok {
-			heap.Push(h, cand{cost: q.cost + add, tie: q.tie + addTie, pred: last.pred, rank: last.rank + 1})
-		}
-		ents = en.paths[st] // the recursion may not touch this state, but keep the slice current
-		if h.Len() == 0 {
-			return pathEnt{}, false
-		}
-		c := heap.Pop(h).(cand)
-		ents = append(ents, pathEnt{cost: c.cost, tie: c.tie, pred: c.pred, rank: c.rank})
-		en.paths[st] = ents
-	}
-	return ents[m], true
-}
-
-// sites returns the site indices of the m-th path to the right end, left to right.
-func (en *enumerator) sites(m int) []int {
-	var rev []int
-	st, r := en.state(en.k+1, en.s.n+1), m
-	for {
-		layer, _ := en.split(st)
-		if layer == 0 {
-			break
-		}
-		pe, _ := en.kth(st, r)
-		if layer <= en.k {
-			_, node := en.split(st)
-			rev = append(rev, node-1)
-		}
-		st, r = en.state(layer-1, pe.pred), pe.rank
-	}
-	slices.Reverse(rev)
-	return rev
 }

@@ -40,7 +40,11 @@ func (o *Outcome) Sheets(xs []float64) ([]SpliceSheet, error) {
 		q.ULS = splice.Forces(c.Forces.ULS)
 		sls := splice.Forces(c.Forces.SLS)
 		q.SLS = &sls
-		r, err := splice.Verify(q, c.Design.Geometry)
+		if c.Design.Geometry == nil {
+			errs = append(errs, fmt.Errorf("splice %d at %s: the designer kept no splice there", i+1, metres(x)))
+			continue
+		}
+		r, err := splice.Verify(q, *c.Design.Geometry)
 		if err != nil {
 			errs = append(errs, fmt.Errorf("splice %d at %s: %w", i+1, metres(x), err))
 			continue

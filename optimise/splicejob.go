@@ -245,12 +245,13 @@ func (d *SpliceDesigner) Design(f PositionForces) (SpliceDesign, error) {
 	if err != nil {
 		return SpliceDesign{}, err
 	}
+	g := r.Geometry // a copy: a pointer into r would keep the whole result with its checks
 	out := SpliceDesign{
 		Feasible:    r.Pass && (d.Fixed != nil || r.Status == splice.Sized),
 		Utilisation: r.Utilisation,
 		Governing:   r.Governing.ID,
 		Summary:     summary(r.Geometry),
-		Geometry:    r.Geometry,
+		Geometry:    &g,
 	}
 	if !out.Feasible {
 		if d.Fixed != nil {

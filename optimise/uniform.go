@@ -145,14 +145,19 @@ type uniformSearch struct {
 	cat      *splice.Catalogue
 	designer *SpliceDesigner
 	prob     splice.Problem   // the job's splice problem without forces
-	p        LayoutProblem    // the mixed layout problem: its sites are the positions
-	forces   []PositionForces // per position
-	loads    []splice.Loading // distinct sets of forces
-	loadOf   []int            // per position: its loading
+	p        LayoutProblem    // the mixed layout problem without its sites, which are the positions:
+	xs       []float64        // per position: x [mm]
+	cand     []int32          // per position: the candidate
+	cands    []Candidate      // the outcome's: the positions' forces
+	acts     [][10]float64    // per distinct set of forces (a loading): its flange and web actions
+	loads    []splice.Loading // the loadings themselves when few (loadingsHeld), else nil
+	first    []int32          // per loading: the first position with its forces
+	loadOf   []int32          // per position: its loading
 	lo, hi   splice.Loading   // below and above every loading
 	posets   [2]poset         // of the loadings by flange and by web actions
-	best     []splice.Order   // per position: the cheapest splice there
-	byBest   []int            // positions in the order of their cheapest splice
+	orders   []splice.Order   // the positions' cheapest splices, each once
+	bestOf   []int32          // per position: its cheapest splice (into orders)
+	byBest   []int32          // positions in the order of their cheapest splice
 	minCost  int64            // the cheapest splice anywhere [micro-units]
 	n        int
 	global   *search // every position, splices without cost or mass
@@ -178,14 +183,14 @@ type partInfo struct {
 
 // designInfo is a whole splice whose feasible positions are known.
 type designInfo struct {
-	ch     splice.Choice
-	order  splice.Order
-	cost   float64 // [currency]
-	mass   float64 // plates and bolts [kg], as SpliceDesign.Mass
-	set    bitset
-	kept   bool    // in uniformSearch.kept
-	untied *search // over its feasible positions without ties, built when first searched
-	tied   *search // with the utilisation ties, built when it may win
+	ch       splice.Choice
+	order    splice.Order
+	cost     float64 // [currency]
+	mass     float64 // plates and bolts [kg], as SpliceDesign.Mass
+	set      bitset
+	kept     bool    // in uniformSearch.kept
+	searched bool    // its layouts have been searched
+	ties     []int64 // per loading: its utilisation in millionths, −1 until found; nil until needed
 }
 
 func newUniformSearch(o *Outcome) (*uniformSearch, error) {
@@ -198,46 +203,46 @@ func newUniformSearch(o *Outcome) (*uniformSearch, error) {
 		designs: map[splice.Choice]*designInfo{}, witness: map[int][]bitset{}, minCost: math.MaxInt64}
 	u.p.Alternatives = 0
 	u.n = len(u.p.Sites)
+	u.xs, u.cand = make([]float64, u.n), make([]int32, u.n)
+	for i, site := range u.p.Sites {
+		u.xs[i], u.cand[i] = site.X, int32(site.Candidate)
+	}
+	u.p.Sites = nil
 	u.stats.Designs = cat.Len()
-	shared := map[PositionForces]int{}
-	found := map[splice.Geometry]splice.Order{}
-	for _, site := range u.p.Sites {
-		c := o.Candidates[site.Candidate]
-		f := c.Forces
-		l, ok := shared[f]
-		if !ok {
-			sls := splice.Forces(f.SLS)
-			ld, err := cat.Load(splice.Forces(f.ULS), &sls)
-			if err != nil {
-				return nil, err
-			}
-			l = len(u.loads)
-			shared[f] = l
-			u.loads = append(u.loads, ld)
+	u.cands = o.Candidates
+	if err := u.loadings(); err != nil {
+		return nil, err
+	}
+	found := map[splice.Geometry]int32{}
+	u.bestOf = make([]int32, u.n)
+	for i, ci := range u.cand {
+		c := &o.Candidates[ci]
+		var g splice.Geometry
+		if c.Design.Geometry != nil {
+			g = *c.Design.Geometry
 		}
-		ord, ok := found[c.Design.Geometry]
+		ord, ok := found[g]
 		if !ok {
-			ch, ok := cat.Find(c.Design.Geometry)
-			if !ok {
+			ch, ok := cat.Find(g)
+			if c.Design.Geometry == nil || !ok {
 				return nil, fmt.Errorf("optimise: the splice at %s is not in the job's design space; the uniform search needs the candidates sized by the splice package", metres(c.X))
 			}
-			ord = cat.Order(ch)
-			found[c.Design.Geometry] = ord
+			ord = int32(len(u.orders))
+			u.orders = append(u.orders, cat.Order(ch))
+			found[g] = ord
 		}
-		u.forces, u.loadOf, u.best = append(u.forces, f), append(u.loadOf, l), append(u.best, ord)
+		u.bestOf[i] = ord
 		u.minCost = min(u.minCost, micro(c.Design.Cost))
 	}
 	if u.n == 0 {
 		u.minCost = 0
-	} else {
-		u.lo, u.hi = splice.Envelope(u.loads)
 	}
 	u.posets[0], u.posets[1] = newPoset(u, 0), newPoset(u, 1)
-	u.byBest = make([]int, u.n)
+	u.byBest = make([]int32, u.n)
 	for i := range u.byBest {
-		u.byBest[i] = i
+		u.byBest[i] = int32(i)
 	}
-	slices.SortStableFunc(u.byBest, func(a, b int) int { return u.best[a].Compare(u.best[b]) })
+	slices.SortStableFunc(u.byBest, func(a, b int32) int { return u.best(int(a)).Compare(u.best(int(b))) })
 	u.global = u.searchOver(allOf(u.n), 0, 0, nil)
 	u.widest = widestTier(u.global)
 	for _, l := range append(slices.Clone(o.Layouts.ByCount), o.Layouts.Alternatives...) {
@@ -254,19 +259,108 @@ func newUniformSearch(o *Outcome) (*uniformSearch, error) {
 	return u, nil
 }
 
+// loadings finds the distinct sets of forces of the positions (the loadings, numbered in the
+// order of their first position) and keeps of each its flange and web actions, those the
+// checks are monotone in; the splice package's loading, with every other value, is made again
+// where a part is checked (loading). The positions are grouped by sorting them by their
+// forces (a set with a NaN, which equals nothing, is its own); lo and hi bound every loading
+// (splice.Envelope, taken over blocks of loadings and then over the blocks' bounds, which is
+// the same).
+func (u *uniformSearch) loadings() error {
+	force := func(i int32) *PositionForces { return u.forceAt(int(i)) }
+	order := make([]int32, u.n)
+	for i := range order {
+		order[i] = int32(i)
+	}
+	slices.SortFunc(order, func(a, b int32) int { return cmp.Or(compareForces(force(a), force(b)), cmp.Compare(a, b)) })
+	// each run of equal forces, by its first position
+	var runs []int32 // index into order of each run's start
+	for r, i := range order {
+		if r == 0 || *force(i) != *force(order[r-1]) {
+			runs = append(runs, int32(r))
+		}
+	}
+	slices.SortFunc(runs, func(a, b int32) int { return cmp.Compare(order[a], order[b]) })
+	u.loadOf = make([]int32, u.n)
+	u.acts, u.first = make([][10]float64, len(runs)), make([]int32, len(runs))
+	var block, los, his []splice.Loading
+	flush := func() {
+		if len(block) > 0 {
+			lo, hi := splice.Envelope(block)
+			los, his, block = append(los, lo), append(his, hi), block[:0]
+		}
+	}
+	for l, r := range runs {
+		u.first[l] = order[r]
+		for k := int(r); k < len(order) && (k == int(r) || *force(order[k]) == *force(order[r])); k++ {
+			u.loadOf[order[k]] = int32(l)
+		}
+		ld, err := u.loadingOf(force(order[r]))
+		if err != nil {
+			return err
+		}
+		a := ld.Actions()
+		f, w := &a.Flange, &a.Web
+		u.acts[l] = [10]float64{f.Tension, f.Compression, f.Bolt, f.SlipBolt,
+			w.Moment, w.Axial, w.Shear, w.SlipMoment, w.SlipAxial, w.SlipShear}
+		if len(runs) <= loadingsHeld {
+			u.loads = append(u.loads, ld)
+		}
+		if block = append(block, ld); len(block) == 1024 {
+			flush()
+		}
+	}
+	flush()
+	if len(los) > 0 {
+		u.lo, _ = splice.Envelope(los)
+		_, u.hi = splice.Envelope(his)
+	}
+	return nil
+}
+
+// forceAt returns the forces at a position.
+func (u *uniformSearch) forceAt(i int) *PositionForces {
+	return &u.cands[u.cand[i]].Forces
+}
+
+// best returns the cheapest splice at a position.
+func (u *uniformSearch) best(i int) splice.Order { return u.orders[u.bestOf[i]] }
+
+func (u *uniformSearch) loadingOf(f *PositionForces) (splice.Loading, error) {
+	sls := splice.Forces(f.SLS)
+	return u.cat.Load(splice.Forces(f.ULS), &sls)
+}
+
+// loadingsHeld is the most loadings the search keeps whole (about 700 bytes each); beyond,
+// it keeps their actions and makes a loading again for each check.
+const loadingsHeld = 1 << 14
+
+// loading returns the splice package's loading of a distinct set of forces: the one kept, or
+// one made again in scratch.
+func (u *uniformSearch) loading(l int, scratch *splice.Loading) *splice.Loading {
+	if u.loads != nil {
+		return &u.loads[l]
+	}
+	var err error
+	if *scratch, err = u.loadingOf(u.forceAt(int(u.first[l]))); err != nil {
+		panic("optimise: a loading that loaded before fails: " + err.Error())
+	}
+	return scratch
+}
+
 // searchOver builds the layout search whose sites are the positions of a set, each splice
 // at one cost and mass, tied by tie(position) (nil: no tie).
 func (u *uniformSearch) searchOver(set bitset, cost, mass float64, tie func(int) int64) *search {
-	q := u.p
-	q.Sites = make([]Site, 0, set.count())
-	set.each(func(i int) {
-		s := Site{X: u.p.Sites[i].X, Cost: cost, Mass: mass, Candidate: i}
-		if tie != nil {
-			s.Tie = tie(i)
-		}
-		q.Sites = append(q.Sites, s)
+	q := u.p // without sites: the search keeps what it needs of those below
+	return newSearchOf(&q, set.count(), func(yield func(Site) bool) {
+		set.each(func(i int) {
+			s := Site{X: u.xs[i], Cost: cost, Mass: mass, Candidate: i}
+			if tie != nil {
+				s.Tie = tie(i)
+			}
+			yield(s)
+		})
 	})
-	return newSearch(&q)
 }
 
 // admitsCount reports whether a search admits a k-splice layout on some tier.
@@ -279,10 +373,7 @@ func admitsCount(s *search, k int) bool {
 	return false
 }
 
-func admitsOn(s *search, t *tier, k int) bool {
-	layers := s.unconstrained(t, k)
-	return (k == 0 || layers != nil) && s.final(layers, k, t).ok()
-}
+func admitsOn(s *search, t *tier, k int) bool { return s.admits(t, k) }
 
 // widestTier returns the tier whose length and mass limits are each at least every other
 // tier's, −1 when there is none: with massless splices the pieces it admits include those of
@@ -337,18 +428,18 @@ func (u *uniformSearch) lowest(k int) (splice.Order, bool) {
 	// the positions in the order of their cheapest splice, cut where that splice changes
 	var cuts []int
 	for j := 1; j <= u.n; j++ {
-		if j == u.n || u.best[u.byBest[j]].Compare(u.best[u.byBest[j-1]]) != 0 {
+		if j == u.n || u.best(int(u.byBest[j])).Compare(u.best(int(u.byBest[j-1]))) != 0 {
 			cuts = append(cuts, j)
 		}
 	}
 	c := sort.Search(len(cuts), func(c int) bool {
 		set := newBitset(u.n)
 		for _, i := range u.byBest[:cuts[c]] {
-			set.add(i)
+			set.add(int(i))
 		}
 		return u.admits(set, k)
 	})
-	return u.best[u.byBest[cuts[c]-1]], true
+	return u.best(int(u.byBest[cuts[c]-1])), true
 }
 
 // transportLB bounds the transport and erection of any k-splice layout whose splices weigh
@@ -642,6 +733,7 @@ func lighter(a, b float64, rule int) bool {
 // loading above it — a binary search along each chain of loadings. When the settling stops
 // paying (loadings that bound none of the others), the rest are checked one by one.
 func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
+	var scratch splice.Loading
 	passes := func(l *splice.Loading) bool {
 		u.stats.Evaluations++
 		if kind == 0 {
@@ -658,34 +750,34 @@ func (u *uniformSearch) passSet(kind, bolt, i int) bitset {
 		return allOf(u.n)
 	}
 	po := &u.posets[kind]
-	nl := len(u.loads)
+	nl := len(u.acts)
 	pass, known := newBitset(nl), newBitset(nl)
 	unknown := slices.Clone(po.order) // the unsettled loadings, in order
 	for idle := 0; len(unknown) > 0; {
 		if idle >= settleIdle {
 			for _, l := range unknown {
-				if passes(&u.loads[l]) {
-					pass.add(l)
+				if passes(u.loading(int(l), &scratch)) {
+					pass.add(int(l))
 				}
 			}
 			break
 		}
 		mid := len(unknown) / 2
-		l := unknown[mid]
+		l := int(unknown[mid])
 		var settled int
-		if passes(&u.loads[l]) {
+		if passes(u.loading(l, &scratch)) {
 			settled = known.union(po.below(u, kind, l), pass)
 		} else {
 			settled = known.union(po.above(u, kind, l), nil)
 		}
 		if settled > 1 {
-			unknown, idle = slices.DeleteFunc(unknown, known.has), 0
+			unknown, idle = slices.DeleteFunc(unknown, func(l int32) bool { return known.has(int(l)) }), 0
 		} else {
 			unknown, idle = slices.Delete(unknown, mid, mid+1), idle+1
 		}
 	}
 	for p, l := range u.loadOf {
-		if pass.has(l) {
+		if pass.has(int(l)) {
 			set.add(p)
 		}
 	}
@@ -699,72 +791,86 @@ const settleIdle = 8
 // poset is the partial order of the loadings by the flange (kind 0) or web (kind 1) actions:
 // a part that passes at a loading passes at every loading below it.
 type poset struct {
-	order    []int    // the loadings in a linear extension of the order
-	down, up []bitset // per loading: those below it and above it (itself included), nil until needed
-	key      []float64
+	order    []int32          // the loadings in a linear extension of the order
+	down, up map[int32]bitset // of some loadings: those below it and above it (itself included), as found
+	held     int              // words in down and up, at most posetWords
+	scratch  bitset           // below and above of a loading not kept
 }
+
+// posetWords bounds the words of the sets below and above loadings a poset keeps (1 MiB).
+const posetWords = 1 << 17
 
 // newPoset orders the loadings by the sum of their actions, each relative to its largest
 // value, which never decreases from a loading to one above it.
 func newPoset(u *uniformSearch, kind int) poset {
-	nl := len(u.loads)
-	po := poset{order: make([]int, nl), down: make([]bitset, nl), up: make([]bitset, nl), key: make([]float64, nl)}
+	nl := len(u.acts)
+	po := poset{order: make([]int32, nl), down: map[int32]bitset{}, up: map[int32]bitset{}}
+	key := make([]float64, nl)
 	hi := u.hi.Actions()
-	for l := range u.loads {
-		a := u.loads[l].Actions()
-		var xs, hs []float64
-		if kind == 0 {
-			xs = []float64{a.Flange.Tension, a.Flange.Compression, a.Flange.Bolt, a.Flange.SlipBolt}
-			hs = []float64{hi.Flange.Tension, hi.Flange.Compression, hi.Flange.Bolt, hi.Flange.SlipBolt}
-		} else {
-			w, hw := a.Web, hi.Web
-			xs = []float64{w.Moment, w.Axial, w.Shear, w.SlipMoment, w.SlipAxial, w.SlipShear}
-			hs = []float64{hw.Moment, hw.Axial, hw.Shear, hw.SlipMoment, hw.SlipAxial, hw.SlipShear}
-		}
-		for j, x := range xs {
+	f, w := &hi.Flange, &hi.Web
+	hs := []float64{f.Tension, f.Compression, f.Bolt, f.SlipBolt}
+	from := 0
+	if kind == 1 {
+		hs, from = []float64{w.Moment, w.Axial, w.Shear, w.SlipMoment, w.SlipAxial, w.SlipShear}, 4
+	}
+	for l := range u.acts {
+		for j, x := range u.acts[l][from : from+len(hs)] {
 			if hs[j] > 0 {
-				po.key[l] += x / hs[j]
+				key[l] += x / hs[j]
 			}
 		}
-		po.order[l] = l
+		po.order[l] = int32(l)
 	}
-	slices.SortStableFunc(po.order, func(a, b int) int { return cmp.Compare(po.key[a], po.key[b]) })
+	slices.SortStableFunc(po.order, func(a, b int32) int { return cmp.Compare(key[a], key[b]) })
 	return po
 }
 
+// le reports whether every flange (kind 0) or web (kind 1) action of loading a is at most
+// b's (splice.Loading.FlangeBelow, WebBelow), so that a part passing at b passes at a.
 func (po *poset) le(u *uniformSearch, kind, a, b int) bool {
+	x, y := &u.acts[a], &u.acts[b]
 	if kind == 0 {
-		return u.loads[a].FlangeBelow(&u.loads[b])
+		return x[0] <= y[0] && x[1] <= y[1] && x[2] <= y[2] && x[3] <= y[3]
 	}
-	return u.loads[a].WebBelow(&u.loads[b])
+	return x[4] <= y[4] && x[5] <= y[5] && x[6] <= y[6] && x[7] <= y[7] && x[8] <= y[8] && x[9] <= y[9]
 }
 
 // below returns the loadings below l (l included).
 func (po *poset) below(u *uniformSearch, kind, l int) bitset {
-	if po.down[l] == nil {
-		b := newBitset(len(u.loads))
-		for m := range u.loads {
-			if po.le(u, kind, m, l) {
-				b.add(m)
-			}
-		}
-		po.down[l] = b
-	}
-	return po.down[l]
+	return po.kept(po.down, u, l, func(m int) bool { return po.le(u, kind, m, l) })
 }
 
 // above returns the loadings above l (l included).
 func (po *poset) above(u *uniformSearch, kind, l int) bitset {
-	if po.up[l] == nil {
-		b := newBitset(len(u.loads))
-		for m := range u.loads {
-			if po.le(u, kind, l, m) {
-				b.add(m)
-			}
-		}
-		po.up[l] = b
+	return po.kept(po.up, u, l, func(m int) bool { return po.le(u, kind, l, m) })
+}
+
+// kept returns the loadings m with in(m), from the sets kept when it was found before; it
+// keeps it while the poset holds fewer than posetWords words, else it is in the scratch set,
+// good until the next call.
+func (po *poset) kept(sets map[int32]bitset, u *uniformSearch, l int, in func(m int) bool) bitset {
+	if b, ok := sets[int32(l)]; ok {
+		return b
 	}
-	return po.up[l]
+	words := (len(u.acts) + 63) / 64
+	var b bitset
+	if po.held+words <= posetWords {
+		b = newBitset(len(u.acts))
+		sets[int32(l)] = b
+		po.held += words
+	} else {
+		if po.scratch == nil {
+			po.scratch = newBitset(len(u.acts))
+		}
+		b = po.scratch
+		clear(b)
+	}
+	for m := range u.acts {
+		if in(m) {
+			b.add(m)
+		}
+	}
+	return b
 }
 
 // design returns a whole splice with its feasible positions, or nil when an earlier design
@@ -795,11 +901,12 @@ func (u *uniformSearch) layout(d *designInfo, k int, inc *UniformLayout) (Unifor
 	if d.set.count() < k {
 		return UniformLayout{}, false
 	}
-	if d.untied == nil {
+	if !d.searched {
 		u.stats.Searched++
-		d.untied = u.searchOver(d.set, d.cost, d.mass, nil)
+		d.searched = true
 	}
-	l, ok := d.untied.bestOverTiers(k, nil)
+	// the searches are built anew for each count: they are cheap beside what they would hold
+	l, ok := u.searchOver(d.set, d.cost, d.mass, nil).bestOverTiers(k, nil)
 	if !ok {
 		return UniformLayout{}, false
 	}
@@ -807,12 +914,10 @@ func (u *uniformSearch) layout(d *designInfo, k int, inc *UniformLayout) (Unifor
 	if inc != nil && u.beatenTotal(l.key.total, k, d.order, inc) {
 		return UniformLayout{}, false
 	}
-	if d.tied == nil {
-		d.tied = u.searchOver(d.set, d.cost, d.mass, u.ties(d))
-	}
-	l, _ = d.tied.bestOverTiers(k, nil)
+	tied := u.searchOver(d.set, d.cost, d.mass, u.ties(d))
+	l, _ = tied.bestOverTiers(k, nil)
 	for i, s := range l.Sites {
-		l.Sites[i] = d.tied.p.Sites[s].Candidate
+		l.Sites[i] = int(tied.ref[s+1])
 	}
 	l.key.nodes = l.Sites
 	ul := UniformLayout{Layout: l, Choice: d.ch, order: d.order}
@@ -823,16 +928,20 @@ func (u *uniformSearch) layout(d *designInfo, k int, inc *UniformLayout) (Unifor
 // tie key (the design's bolts and plate mass, the other parts of that key, are the same at
 // every position).
 func (u *uniformSearch) ties(d *designInfo) func(int) int64 {
-	ties := make([]int64, len(u.loads))
-	for i := range ties {
-		ties[i] = -1
+	if d.ties == nil {
+		d.ties = make([]int64, len(u.acts))
+		for i := range d.ties {
+			d.ties[i] = -1
+		}
 	}
+	ties := d.ties
+	var scratch splice.Loading
 	return func(i int) int64 {
 		l := u.loadOf[i]
 		if ties[l] < 0 {
-			pass, ut := u.cat.Check(d.ch, &u.loads[l])
+			pass, ut := u.cat.Check(d.ch, u.loading(int(l), &scratch))
 			if !pass {
-				panic(fmt.Sprintf("optimise: design %v fails at %s where its parts pass", d.ch, metres(u.p.Sites[i].X)))
+				panic(fmt.Sprintf("optimise: design %v fails at %s where its parts pass", d.ch, metres(u.xs[i])))
 			}
 			ties[l] = int64(math.Round(math.Min(ut, 999) * 1e6))
 		}
@@ -850,10 +959,10 @@ func (u *uniformSearch) describe(l *UniformLayout) {
 	g, q := e.Geometry, e.Quantities
 	d := SpliceDesign{Feasible: true, Cost: e.Cost.Total, Bolts: q.Bolts, Holes: q.Holes, PlateMass: q.PlateMass,
 		BoltMass: q.BoltMass, FayingArea: q.FayingArea,
-		Summary: summary(g), Geometry: g}
+		Summary: summary(g), Geometry: &g}
 	for i, s := range l.Sites {
 		p := u.prob
-		f := u.forces[s]
+		f := *u.forceAt(s)
 		p.ULS = splice.Forces(f.ULS)
 		sls := splice.Forces(f.SLS)
 		p.SLS = &sls

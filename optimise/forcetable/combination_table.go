@@ -218,10 +218,10 @@ func envelopesOf(rows []combRow, byComb [][]int, combos []beam.Combination, hasW
 			mx, mn := *series(e, extremeCol{e.State, q, true}), *series(e, extremeCol{e.State, q, false})
 			for i := range st {
 				if v[i][q] > mx[i].Value {
-					mx[i] = beam.Extreme{Value: v[i][q], Combination: c}
+					mx[i] = beam.Extreme{Value: v[i][q], Combination: int32(c)}
 				}
 				if v[i][q] < mn[i].Value {
-					mn[i] = beam.Extreme{Value: v[i][q], Combination: c}
+					mn[i] = beam.Extreme{Value: v[i][q], Combination: int32(c)}
 				}
 			}
 		}

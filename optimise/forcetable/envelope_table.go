@@ -95,7 +95,7 @@ func (r *reader) envelopeTable() *Table {
 			}
 			ex := beam.Extreme{Value: vals[k], Combination: -1}
 			if h.governing[k] >= 0 {
-				ex.Combination = combination(c.state, rec[h.governing[k]])
+				ex.Combination = int32(combination(c.state, rec[h.governing[k]]))
 			}
 			*data[k] = append(*data[k], ex)
 		}

@@ -106,7 +106,7 @@ func checkTable(t *testing.T, tab *Table) {
 					t.Fatalf("%s %s at %d: max %g, min %g", e.State, q.symbol(), i, mx[i].Value, mn[i].Value)
 				}
 				for _, ex := range []beam.Extreme{mx[i], mn[i]} {
-					if ex.Combination >= len(env.Combinations) || ex.Combination < -1 ||
+					if int(ex.Combination) >= len(env.Combinations) || ex.Combination < -1 ||
 						ex.Combination >= 0 && env.Combinations[ex.Combination].State != e.State {
 						t.Fatalf("%s %s at %d: combination %d of %d", e.State, q.symbol(), i, ex.Combination, len(env.Combinations))
 					}

@@ -99,7 +99,7 @@ func TestCombinationTableByHand(t *testing.T) {
 			check("SLS", ser[i], want{r.sls[k/2], "SLS C"}, unit)
 		}
 		assert.Zero(t, u.WMax[i].Value, "no ULS deflection")
-		assert.Equal(t, -1, u.WMax[i].Combination)
+		assert.Equal(t, int32(-1), u.WMax[i].Combination)
 	}
 	// the design forces at the jump: the worse side of each (DESIGN.md section 5 pairing):
 	// M max 40, M min 18, |V| max = max(10, 0, 0, 20) = 20 kN, N max 10, N min −50

@@ -90,7 +90,7 @@ func (t *Table) Deflection() bool { return t.SLS.W }
 // Governing names the combination that produces an extreme: the file's combination name (in
 // an envelope table, its governing cell verbatim), or "" when the file does not say.
 func (t *Table) Governing(ex beam.Extreme) string {
-	if ex.Combination < 0 || ex.Combination >= len(t.Envelopes.Combinations) {
+	if ex.Combination < 0 || int(ex.Combination) >= len(t.Envelopes.Combinations) {
 		return ""
 	}
 	return t.Envelopes.Combinations[ex.Combination].Name

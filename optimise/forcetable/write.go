@@ -1,6 +1,8 @@
 package forcetable
 
 import (
+	"bufio"
+	"bytes"
 	"encoding/csv"
 	"fmt"
 	"io"
@@ -13,12 +15,15 @@ import (
 
 // num formats a value in the file's unit: rounded to 1e-6 of the unit (far below any
 // engineering tolerance), shortest form, never "-0".
-func num(v float64) string {
+func num(v float64) string { return string(appendNum(nil, v)) }
+
+// appendNum appends num(v).
+func appendNum(b []byte, v float64) []byte {
 	r := math.Round(v*1e6) / 1e6
 	if r == 0 {
-		return "0"
+		return append(b, '0')
 	}
-	return strconv.FormatFloat(r, 'f', -1, 64)
+	return strconv.AppendFloat(b, r, 'f', -1, 64)
 }
 
 // formulaStarts are the first characters that make a spreadsheet read a cell as a formula (or
@@ -50,7 +55,7 @@ func unneutralise(s string) string {
 // those of beam.Analysis.Stations do. Nothing is written when a value is not finite.
 func WriteEnvelopes(w io.Writer, env *beam.Envelopes) error {
 	name := func(ex beam.Extreme) string {
-		if ex.Combination < 0 || ex.Combination >= len(env.Combinations) {
+		if ex.Combination < 0 || int(ex.Combination) >= len(env.Combinations) {
 			return ""
 		}
 		return env.Governing(ex)
@@ -96,24 +101,62 @@ func write(w io.Writer, env *beam.Envelopes, sls Parts, governing func(beam.Extr
 	for _, c := range cols {
 		header = append(header, c.governingName())
 	}
-	cw := csv.NewWriter(w)
-	if err := cw.Write(header); err != nil {
+	// the rows are written as encoding/csv writes them, a field at a time into one line: a
+	// number needs no quotes, and each governing cell is quoted once for all its stations
+	bw := bufio.NewWriterSize(w, 1<<16)
+	cells := newCSVCells()
+	if _, err := bw.Write(cells.record(header)); err != nil {
 		return err
 	}
-	rec := make([]string, len(header))
+	named := map[[2]int32][]byte{}
+	var line []byte
 	for i, s := range env.Stations {
-		rec[0], rec[1] = num(s.X/mmPerM), sideName(s.Side)
+		line = appendNum(line[:0], s.X/mmPerM)
+		line = append(append(line, ','), sideName(s.Side)...)
 		for k, c := range cols {
-			ex := (*data[k])[i]
-			rec[2+k] = num(ex.Value / c.q.toInternal())
-			rec[2+len(cols)+k] = neutralise(governing(ex))
+			line = appendNum(append(line, ','), (*data[k])[i].Value/c.q.toInternal())
 		}
-		if err := cw.Write(rec); err != nil {
+		for k := range cols {
+			ex := (*data[k])[i]
+			key := [2]int32{ex.Combination, ex.Pattern}
+			cell, ok := named[key]
+			if !ok {
+				cell = cells.field(neutralise(governing(ex)))
+				named[key] = cell
+			}
+			line = append(append(line, ','), cell...)
+		}
+		if _, err := bw.Write(append(line, '\n')); err != nil {
 			return err
 		}
 	}
-	cw.Flush()
-	return cw.Error()
+	return bw.Flush()
+}
+
+// csvCells encodes cells as encoding/csv writes them (quoted where it quotes them).
+type csvCells struct {
+	buf bytes.Buffer
+	w   *csv.Writer
+}
+
+func newCSVCells() *csvCells {
+	c := &csvCells{}
+	c.w = csv.NewWriter(&c.buf)
+	return c
+}
+
+// record returns a whole record with its line end.
+func (c *csvCells) record(fields []string) []byte {
+	c.buf.Reset()
+	_ = c.w.Write(fields) // into memory: cannot fail
+	c.w.Flush()
+	return bytes.Clone(c.buf.Bytes())
+}
+
+// field returns one cell.
+func (c *csvCells) field(s string) []byte {
+	r := c.record([]string{s})
+	return r[:len(r)-1]
 }
 
 func sideName(s beam.Side) string {

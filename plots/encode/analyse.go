@@ -1,9 +1,14 @@
 package encode
 
 import (
+	"bufio"
+	"bytes"
+	"encoding/json"
 	"fmt"
 	"io"
+	"strconv"
 	"strings"
+	"unicode/utf8"
 
 	"spanbreak/beam"
 	"spanbreak/optimise"
@@ -17,22 +22,6 @@ func AnalysisUnits() map[string]string {
 		"Fz": "kN", "Fx": "kN", "My": "kNm",
 		"signs": "M sagging +, V = dM/dx, N tension +, w downward +, Fz upward +, My clockwise +",
 	}
-}
-
-func stationXs(st []beam.Station) []Num {
-	out := make([]Num, len(st))
-	for i, s := range st {
-		out[i] = Num(s.X * ToM)
-	}
-	return out
-}
-
-func sides(st []beam.Station) []string {
-	out := make([]string, 0, len(st))
-	for _, s := range st {
-		out = append(out, SideName(s.Side))
-	}
-	return out
 }
 
 // SideName is "left" or "right": which side of a jump a station's values are.
@@ -79,43 +68,73 @@ type CaseDoc struct {
 	Reactions []reactionDoc     `json:"reactions"`
 }
 
+// writeCase writes one case as JSON (the CaseDoc that WriteJSON would write, byte for byte),
+// CSV or text, streaming the parts of a value per station as writeEnvelopes does.
 func writeCase(w io.Writer, format string, s *optimise.Setup, r beam.CaseResult) error {
+	st, ef := r.Stations, &r.Effects
+	var reactions []reactionDoc
+	for _, rc := range r.Reactions {
+		reactions = append(reactions, reactionDoc{Num(rc.X * ToM), Num(rc.Fz * ToKN), Num(rc.Fx * ToKN), Num(rc.My * ToKNm)})
+	}
 	switch format {
 	case "json":
-		out := CaseDoc{
-			Input: s.File, Version: Version(), Units: AnalysisUnits(), Length: Num(s.Model.Length * ToM),
-			Stations: stationXs(r.Stations), Sides: sides(r.Stations), Case: r.Case,
-			M: Nums(r.Effects.M, ToKNm), V: Nums(r.Effects.V, ToKN), N: Nums(r.Effects.N, ToKN), W: Nums(r.Effects.W, 1),
+		js := newJSONStream(w)
+		js.open('{')
+		js.value("input", s.File)
+		js.value("version", Version())
+		js.value("units", AnalysisUnits())
+		js.value("length", Num(s.Model.Length*ToM))
+		js.array("stations", len(st), func(b []byte, i int) []byte { return appendNum(b, st[i].X*ToM) })
+		js.array("sides", len(st), func(b []byte, i int) []byte { return append(append(append(b, '"'), SideName(st[i].Side)...), '"') })
+		js.value("case", r.Case)
+		for _, q := range []struct {
+			key string
+			v   []float64
+			f   float64
+		}{{"M", ef.M, ToKNm}, {"V", ef.V, ToKN}, {"N", ef.N, ToKN}, {"w", ef.W, 1}} {
+			js.array(q.key, len(q.v), func(b []byte, i int) []byte { return appendNum(b, q.v[i]*q.f) })
 		}
-		for _, rc := range r.Reactions {
-			out.Reactions = append(out.Reactions, reactionDoc{Num(rc.X * ToM), Num(rc.Fz * ToKN), Num(rc.Fx * ToKN), Num(rc.My * ToKNm)})
-		}
-		return WriteJSON(w, out)
+		js.value("reactions", reactions)
+		js.close('}')
+		js.raw("\n")
+		return js.flush()
 	case "csv":
-		rows := make([][]Cell, len(r.Stations))
-		for i, st := range r.Stations {
-			rows[i] = []Cell{Decimal(st.X * ToM), Text(SideName(st.Side)), Decimal(r.Effects.M[i] * ToKNm),
-				Decimal(r.Effects.V[i] * ToKN), Decimal(r.Effects.N[i] * ToKN), Decimal(r.Effects.W[i])}
+		// encoding/csv's record: numbers and "left"/"right" need no quotes
+		bw := bufio.NewWriterSize(w, 1<<16)
+		if err := WriteCSV(bw, []string{"x_m", "side", "M_kNm", "V_kN", "N_kN", "w_mm"}, nil); err != nil {
+			return err
 		}
-		return WriteCSV(w, []string{"x_m", "side", "M_kNm", "V_kN", "N_kN", "w_mm"}, rows)
+		var line []byte
+		for i := range st {
+			line = appendNum(line[:0], st[i].X*ToM)
+			line = append(append(line, ','), SideName(st[i].Side)...)
+			for _, v := range []float64{ef.M[i] * ToKNm, ef.V[i] * ToKN, ef.N[i] * ToKN, ef.W[i]} {
+				line = appendNum(append(line, ','), v)
+			}
+			if _, err := bw.Write(append(line, '\n')); err != nil {
+				return err
+			}
+		}
+		return bw.Flush()
 	}
-	writeBeamHeader(w, s, "load case "+r.Case+", unfactored (characteristic)")
-	tw := RightTable(w)
-	fmt.Fprintln(tw, "x [m]\t\tM [kNm]\tV [kN]\tN [kN]\tw [mm]\t")
-	for i, st := range r.Stations {
-		fmt.Fprintf(tw, "%.3f\t%s\t%.2f\t%.2f\t%.2f\t%.2f\t\n", st.X*ToM, sideMark(r.Stations, i),
-			Clean(r.Effects.M[i]*ToKNm), Clean(r.Effects.V[i]*ToKN), Clean(r.Effects.N[i]*ToKN), Clean(r.Effects.W[i]))
-	}
-	tw.Flush()
-	fmt.Fprintln(w, "\nSupport reactions")
-	tw = RightTable(w)
+	bw := bufio.NewWriter(w)
+	writeBeamHeader(bw, s, "load case "+r.Case+", unfactored (characteristic)")
+	writeRightRows(bw, []string{"x [m]", "", "M [kNm]", "V [kN]", "N [kN]", "w [mm]"}, len(st), func(i int, c [][]byte) {
+		c[0] = strconv.AppendFloat(c[0], st[i].X*ToM, 'f', 3, 64)
+		c[1] = append(c[1], sideMark(st, i)...)
+		for j, v := range []float64{ef.M[i] * ToKNm, ef.V[i] * ToKN, ef.N[i] * ToKN, ef.W[i]} {
+			c[2+j] = appendClean(c[2+j], v, 2)
+		}
+	})
+	fmt.Fprintln(bw, "\nSupport reactions")
+	tw := RightTable(bw)
 	fmt.Fprintln(tw, "x [m]\tFz [kN]\tFx [kN]\tMy [kNm]\t")
 	for _, rc := range r.Reactions {
 		fmt.Fprintf(tw, "%.3f\t%.2f\t%.2f\t%.2f\t\n", rc.X*ToM, Clean(rc.Fz*ToKN), Clean(rc.Fx*ToKN), Clean(rc.My*ToKNm))
 	}
 	tw.Flush()
-	fmt.Fprintf(w, "\n%s\n", Caution)
-	return nil
+	fmt.Fprintf(bw, "\n%s\n", Caution)
+	return bw.Flush()
 }
 
 // sideMark marks the two values at a jump: "L" just left of x, "R" just right.
@@ -230,66 +249,221 @@ type EnvelopesDoc struct {
 	Deflection   []DeflectionDoc   `json:"deflection"`
 }
 
-func extremes(ex []beam.Extreme, f float64) []Num {
-	out := make([]Num, len(ex))
-	for i, e := range ex {
-		out[i] = Num(e.Value * f)
+// writeEnvelopes writes the envelopes as JSON, CSV or text. Each streams its long parts (a
+// value per station) straight to w, formatting each value as it goes, so that the memory it
+// takes does not grow with the stations: the JSON is the EnvelopesDoc that WriteJSON would
+// write, byte for byte.
+func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Envelopes, m *optimise.MemberChecks) error {
+	switch format {
+	case "json":
+		return writeEnvelopesJSON(w, s, env, m)
+	case "csv":
+		// the envelope table a job can import back (optimise/forcetable)
+		return forcetable.WriteEnvelopes(w, env)
 	}
-	return out
+	bw := bufio.NewWriter(w)
+	writeEnvelopeText(bw, s, env, m)
+	return bw.Flush()
 }
 
-func governing(env *beam.Envelopes, ex []beam.Extreme) []string {
-	out := make([]string, len(ex))
-	for i, e := range ex {
-		out[i] = env.Governing(e)
+// writeEnvelopesJSON writes the EnvelopesDoc of the envelopes (DESIGN.md section 7): the
+// parts of a value per station streamed, the others through encoding/json, each where
+// WriteJSON puts it.
+func writeEnvelopesJSON(w io.Writer, s *optimise.Setup, env *beam.Envelopes, m *optimise.MemberChecks) error {
+	js := newJSONStream(w)
+	var combos []string
+	for _, c := range env.Combinations {
+		combos = append(combos, c.Name)
 	}
-	return out
+	var member *MemberDoc
+	var deflection []DeflectionDoc
+	if m != nil {
+		member, deflection = ptr(Member(m)), Deflections(m)
+	}
+	st := env.Stations
+	js.open('{')
+	js.value("input", s.File)
+	js.value("version", Version())
+	js.value("units", AnalysisUnits())
+	js.value("length", Num(s.Model.Length*ToM))
+	js.array("stations", len(st), func(b []byte, i int) []byte { return appendNum(b, st[i].X*ToM) })
+	js.array("sides", len(st), func(b []byte, i int) []byte { return append(append(append(b, '"'), SideName(st[i].Side)...), '"') })
+	js.value("combinations", combos)
+	names := newGoverning(env)
+	for _, state := range []struct {
+		key       string
+		e         *beam.Envelope
+		reactions []beam.ReactionEnvelope
+	}{{"uls", &env.ULS, env.ULSReactions}, {"sls", &env.SLS, env.SLSReactions}} {
+		js.field(state.key)
+		js.open('{')
+		e := state.e
+		for _, sr := range []struct {
+			key string
+			ex  []beam.Extreme
+			f   float64
+		}{{"M_max", e.MMax, ToKNm}, {"M_min", e.MMin, ToKNm}, {"V_max", e.VMax, ToKN}, {"V_min", e.VMin, ToKN},
+			{"N_max", e.NMax, ToKN}, {"N_min", e.NMin, ToKN}, {"w_max", e.WMax, 1}, {"w_min", e.WMin, 1}} {
+			js.array(sr.key, len(sr.ex), func(b []byte, i int) []byte { return appendNum(b, sr.ex[i].Value*sr.f) })
+		}
+		// a map in encoding/json: its keys sorted
+		js.field("governing")
+		js.open('{')
+		for _, sr := range []struct {
+			key string
+			ex  []beam.Extreme
+		}{{"M_max", e.MMax}, {"M_min", e.MMin}, {"V_max", e.VMax}, {"V_min", e.VMin}} {
+			js.array(sr.key, len(sr.ex), func(b []byte, i int) []byte { return append(b, names.json(sr.ex[i])...) })
+		}
+		js.close('}')
+		js.value("reactions", reactionDocs(env, state.reactions))
+		js.close('}')
+	}
+	js.value("member", member)
+	js.value("deflection", deflection)
+	js.close('}')
+	js.raw("\n")
+	return js.flush()
 }
 
-func toEnvelopeDoc(env *beam.Envelopes, e *beam.Envelope, re []beam.ReactionEnvelope) envelopeDoc {
-	j := envelopeDoc{
-		MMax: extremes(e.MMax, ToKNm), MMin: extremes(e.MMin, ToKNm),
-		VMax: extremes(e.VMax, ToKN), VMin: extremes(e.VMin, ToKN),
-		NMax: extremes(e.NMax, ToKN), NMin: extremes(e.NMin, ToKN),
-		WMax: extremes(e.WMax, 1), WMin: extremes(e.WMin, 1),
-		Governing: map[string][]string{
-			"M_max": governing(env, e.MMax), "M_min": governing(env, e.MMin),
-			"V_max": governing(env, e.VMax), "V_min": governing(env, e.VMin),
-		},
-	}
+// reactionDocs are the reaction envelopes of one limit state.
+func reactionDocs(env *beam.Envelopes, re []beam.ReactionEnvelope) []reactionEnvDoc {
+	var out []reactionEnvDoc
 	for _, r := range re {
-		j.Reactions = append(j.Reactions, reactionEnvDoc{
+		out = append(out, reactionEnvDoc{
 			X: Num(r.X * ToM), FzMax: Num(r.FzMax.Value * ToKN), FzMin: Num(r.FzMin.Value * ToKN),
 			FxMax: Num(r.FxMax.Value * ToKN), FxMin: Num(r.FxMin.Value * ToKN),
 			MyMax: Num(r.MyMax.Value * ToKNm), MyMin: Num(r.MyMin.Value * ToKNm),
 			FzMaxGov: env.Governing(r.FzMax), FzMinGov: env.Governing(r.FzMin),
 		})
 	}
-	return j
+	return out
 }
 
-func writeEnvelopes(w io.Writer, format string, s *optimise.Setup, env *beam.Envelopes, m *optimise.MemberChecks) error {
-	switch format {
-	case "json":
-		out := EnvelopesDoc{
-			Input: s.File, Version: Version(), Units: AnalysisUnits(), Length: Num(s.Model.Length * ToM),
-			Stations: stationXs(env.Stations), Sides: sides(env.Stations),
-			ULS: toEnvelopeDoc(env, &env.ULS, env.ULSReactions),
-			SLS: toEnvelopeDoc(env, &env.SLS, env.SLSReactions),
+// appendNum appends a number as Num encodes it.
+func appendNum(b []byte, v float64) []byte { return strconv.AppendFloat(b, Round(v), 'f', -1, 64) }
+
+// governingNames names the extremes of envelopes (Envelopes.Governing) once for each
+// combination and pattern, as text and as a JSON string.
+type governingNames struct {
+	env   *beam.Envelopes
+	names map[[2]int32][2]string
+}
+
+func newGoverning(env *beam.Envelopes) *governingNames {
+	return &governingNames{env: env, names: map[[2]int32][2]string{}}
+}
+
+func (g *governingNames) both(ex beam.Extreme) [2]string {
+	k := [2]int32{ex.Combination, ex.Pattern}
+	n, ok := g.names[k]
+	if !ok {
+		text := g.env.Governing(ex)
+		js, err := json.Marshal(text)
+		if err != nil {
+			panic("encode: a string that does not marshal: " + err.Error())
 		}
-		if m != nil {
-			out.Member, out.Deflection = ptr(Member(m)), Deflections(m)
-		}
-		for _, c := range env.Combinations {
-			out.Combinations = append(out.Combinations, c.Name)
-		}
-		return WriteJSON(w, out)
-	case "csv":
-		// the envelope table a job can import back (optimise/forcetable)
-		return forcetable.WriteEnvelopes(w, env)
+		n = [2]string{text, string(js)}
+		g.names[k] = n
 	}
-	writeEnvelopeText(w, s, env, m)
-	return nil
+	return n
+}
+
+func (g *governingNames) text(ex beam.Extreme) string { return g.both(ex)[0] }
+func (g *governingNames) json(ex beam.Extreme) string { return g.both(ex)[1] }
+
+// jsonStream writes an indented JSON document (as WriteJSON: two spaces a level) in parts:
+// objects field by field, long arrays element by element; a value of another kind through
+// encoding/json at its place. The first error stops the writing and is kept for flush.
+type jsonStream struct {
+	w     *bufio.Writer
+	buf   []byte
+	depth int
+	first bool // the next field or element is its object's or array's first
+	err   error
+}
+
+func newJSONStream(w io.Writer) *jsonStream { return &jsonStream{w: bufio.NewWriterSize(w, 1<<16)} }
+
+func (js *jsonStream) raw(s string) {
+	if js.err == nil {
+		_, js.err = js.w.WriteString(s)
+	}
+}
+
+func (js *jsonStream) bytes(b []byte) {
+	if js.err == nil {
+		_, js.err = js.w.Write(b)
+	}
+}
+
+func (js *jsonStream) newline() {
+	js.raw("\n")
+	for range js.depth {
+		js.raw("  ")
+	}
+}
+
+func (js *jsonStream) open(c byte) {
+	js.raw(string(c))
+	js.depth++
+	js.first = true
+}
+
+func (js *jsonStream) close(c byte) {
+	js.depth--
+	if !js.first {
+		js.newline()
+	}
+	js.raw(string(c))
+	js.first = false
+}
+
+// next starts a field or element: after a comma unless it is the first, on its own line.
+func (js *jsonStream) next() {
+	if !js.first {
+		js.raw(",")
+	}
+	js.first = false
+	js.newline()
+}
+
+// field starts a field of an object: its key (letters, digits and _: nothing to escape); its
+// value follows.
+func (js *jsonStream) field(key string) {
+	js.next()
+	js.raw(`"`)
+	js.raw(key)
+	js.raw(`": `)
+}
+
+// value writes a field whose value encoding/json indents at this depth.
+func (js *jsonStream) value(key string, v any) {
+	js.field(key)
+	b, err := json.MarshalIndent(v, strings.Repeat("  ", js.depth), "  ")
+	if err != nil && js.err == nil {
+		js.err = err
+	}
+	js.bytes(b)
+}
+
+// array writes a field whose value is an array of n elements, each appended by elem.
+func (js *jsonStream) array(key string, n int, elem func(b []byte, i int) []byte) {
+	js.field(key)
+	js.open('[')
+	for i := range n {
+		js.next()
+		js.buf = elem(js.buf[:0], i)
+		js.bytes(js.buf)
+	}
+	js.close(']')
+}
+
+func (js *jsonStream) flush() error {
+	if js.err != nil {
+		return js.err
+	}
+	return js.w.Flush()
 }
 
 func writeEnvelopeText(w io.Writer, s *optimise.Setup, env *beam.Envelopes, m *optimise.MemberChecks) {
@@ -297,24 +471,27 @@ func writeEnvelopeText(w io.Writer, s *optimise.Setup, env *beam.Envelopes, m *o
 	st := env.Stations
 	u, l := &env.ULS, &env.SLS
 	fmt.Fprintln(w, "ULS envelope")
-	tw := RightTable(w)
-	fmt.Fprintln(tw, "x [m]\t\tM max [kNm]\tM min [kNm]\tV max [kN]\tV min [kN]\tN max [kN]\tN min [kN]\t")
-	for i := range st {
-		fmt.Fprintf(tw, "%.3f\t%s\t%.1f\t%.1f\t%.1f\t%.1f\t%.1f\t%.1f\t\n", st[i].X*ToM, sideMark(st, i),
-			Clean(u.MMax[i].Value*ToKNm), Clean(u.MMin[i].Value*ToKNm), Clean(u.VMax[i].Value*ToKN), Clean(u.VMin[i].Value*ToKN),
-			Clean(u.NMax[i].Value*ToKN), Clean(u.NMin[i].Value*ToKN))
-	}
-	tw.Flush()
+	writeRightRows(w, []string{"x [m]", "", "M max [kNm]", "M min [kNm]", "V max [kN]", "V min [kN]", "N max [kN]", "N min [kN]"},
+		len(st), func(i int, c [][]byte) {
+			c[0] = strconv.AppendFloat(c[0], st[i].X*ToM, 'f', 3, 64)
+			c[1] = append(c[1], sideMark(st, i)...)
+			for j, v := range []float64{u.MMax[i].Value * ToKNm, u.MMin[i].Value * ToKNm, u.VMax[i].Value * ToKN,
+				u.VMin[i].Value * ToKN, u.NMax[i].Value * ToKN, u.NMin[i].Value * ToKN} {
+				c[2+j] = appendClean(c[2+j], v, 1)
+			}
+		})
 	fmt.Fprintf(w, "\nSLS envelope (%s)\n", s.Rules.SLS)
-	tw = RightTable(w)
-	fmt.Fprintln(tw, "x [m]\t\tM max [kNm]\tM min [kNm]\tw max [mm]\tw min [mm]\t")
-	for i := range st {
-		fmt.Fprintf(tw, "%.3f\t%s\t%.1f\t%.1f\t%.2f\t%.2f\t\n", st[i].X*ToM, sideMark(st, i),
-			Clean(l.MMax[i].Value*ToKNm), Clean(l.MMin[i].Value*ToKNm), Clean(l.WMax[i].Value), Clean(l.WMin[i].Value))
-	}
-	tw.Flush()
+	writeRightRows(w, []string{"x [m]", "", "M max [kNm]", "M min [kNm]", "w max [mm]", "w min [mm]"},
+		len(st), func(i int, c [][]byte) {
+			c[0] = strconv.AppendFloat(c[0], st[i].X*ToM, 'f', 3, 64)
+			c[1] = append(c[1], sideMark(st, i)...)
+			c[2] = appendClean(c[2], l.MMax[i].Value*ToKNm, 1)
+			c[3] = appendClean(c[3], l.MMin[i].Value*ToKNm, 1)
+			c[4] = appendClean(c[4], l.WMax[i].Value, 2)
+			c[5] = appendClean(c[5], l.WMin[i].Value, 2)
+		})
 	fmt.Fprintln(w, "\nSupport reactions [kN]")
-	tw = Table(w)
+	tw := Table(w)
 	fmt.Fprintln(tw, "x [m]\tULS Fz max\tULS Fz min\tSLS Fz max\tSLS Fz min\tgoverning ULS max")
 	for i, r := range env.ULSReactions {
 		sr := env.SLSReactions[i]
@@ -347,4 +524,56 @@ func writeEnvelopeText(w io.Writer, s *optimise.Setup, env *beam.Envelopes, m *o
 		writeMemberText(w, m)
 	}
 	fmt.Fprintf(w, "\n%s\n", Caution)
+}
+
+// writeRightRows writes a table as a RightTable with every cell ended by a tab would — each
+// cell aligned on the right in a column as wide as its widest cell (in runes) and two spaces,
+// no trailing spaces — without holding it: it formats each row twice, once to measure the
+// columns and once to write it. row appends the cells of row i to c (given empty).
+func writeRightRows(w io.Writer, header []string, rows int, row func(i int, c [][]byte)) {
+	cells := make([][]byte, len(header))
+	fill := func(i int) {
+		for j := range cells {
+			cells[j] = cells[j][:0]
+		}
+		if i < 0 {
+			for j, h := range header {
+				cells[j] = append(cells[j], h...)
+			}
+			return
+		}
+		row(i, cells)
+	}
+	widths := make([]int, len(header))
+	for i := -1; i < rows; i++ {
+		fill(i)
+		for j, c := range cells {
+			widths[j] = max(widths[j], utf8.RuneCount(c)+2)
+		}
+	}
+	var line []byte
+	for i := -1; i < rows; i++ {
+		fill(i)
+		line = line[:0]
+		for j, c := range cells {
+			for range widths[j] - utf8.RuneCount(c) {
+				line = append(line, ' ')
+			}
+			line = append(line, c...)
+		}
+		line = append(bytes.TrimRight(line, " "), '\n')
+		if _, err := w.Write(line); err != nil {
+			return // the writer keeps the error (writeEnvelopes flushes a bufio.Writer)
+		}
+	}
+}
+
+// appendClean appends v with prec decimals as the f verb prints Clean(v): never "-0.0".
+func appendClean(b []byte, v float64, prec int) []byte {
+	start := len(b)
+	b = strconv.AppendFloat(b, v, 'f', prec, 64)
+	if len(bytes.Trim(b[start:], "-0.")) == 0 && b[start] == '-' {
+		b = append(b[:start], b[start+1:]...)
+	}
+	return b
 }

@@ -4,6 +4,7 @@ import (
 	"fmt"
 	"math"
 
+	"spanbreak/beam"
 	"spanbreak/optimise"
 )
 
@@ -192,4 +193,44 @@ func ViewBeam(o *optimise.Outcome) ViewBeamDoc {
 		j.Vehicles = append(j.Vehicles, ViewVehicleDoc{v.Name, Num(v.MaxLength * ToM), Num(v.Payload), Num(v.Cost)})
 	}
 	return j
+}
+
+// stationXs are the stations' positions [m].
+func stationXs(st []beam.Station) []Num {
+	out := make([]Num, len(st))
+	for i, s := range st {
+		out[i] = Num(s.X * ToM)
+	}
+	return out
+}
+
+// toEnvelopeDoc is one limit state's envelope as the page draws it (the chart stations only,
+// so it is held whole).
+func toEnvelopeDoc(env *beam.Envelopes, e *beam.Envelope, re []beam.ReactionEnvelope) envelopeDoc {
+	values := func(ex []beam.Extreme, f float64) []Num {
+		out := make([]Num, len(ex))
+		for i, x := range ex {
+			out[i] = Num(x.Value * f)
+		}
+		return out
+	}
+	names := newGoverning(env)
+	governing := func(ex []beam.Extreme) []string {
+		out := make([]string, len(ex))
+		for i, x := range ex {
+			out[i] = names.text(x)
+		}
+		return out
+	}
+	return envelopeDoc{
+		MMax: values(e.MMax, ToKNm), MMin: values(e.MMin, ToKNm),
+		VMax: values(e.VMax, ToKN), VMin: values(e.VMin, ToKN),
+		NMax: values(e.NMax, ToKN), NMin: values(e.NMin, ToKN),
+		WMax: values(e.WMax, 1), WMin: values(e.WMin, 1),
+		Governing: map[string][]string{
+			"M_max": governing(e.MMax), "M_min": governing(e.MMin),
+			"V_max": governing(e.VMax), "V_min": governing(e.VMin),
+		},
+		Reactions: reactionDocs(env, re),
+	}
 }
