@@ -1,7 +1,6 @@
 package main
 
 import (
-	"bytes"
 	"errors"
 	"fmt"
 
@@ -44,7 +43,8 @@ With --case it prints one load case, unfactored.`,
 	return cmd
 }
 
-// runAnalyse analyses the job and writes the result; nothing is written on error.
+// runAnalyse analyses the job and writes the result; nothing is written when the job or a
+// setting is refused.
 func runAnalyse(opts analyseOptions, ios streams) error {
 	w := ios.Out
 	if err := checkFormat(opts.Format, "text", "json", "csv"); err != nil {
@@ -59,12 +59,10 @@ func runAnalyse(opts analyseOptions, ios streams) error {
 	if err != nil {
 		return settingError(err)
 	}
-	var buf bytes.Buffer
-	if err := encode.WriteAnalysis(&buf, opts.Format, o); err != nil {
-		return err
-	}
-	_, err = w.Write(buf.Bytes())
-	return err
+	// streamed, not buffered: at 10⁶ stations the document is gigabytes. Once the analysis has
+	// succeeded the encoder can fail only on the writer (the CSV refuses a non-finite value
+	// before it writes anything), so nothing half-made is printed for a bad job.
+	return encode.WriteAnalysis(w, opts.Format, o)
 }
 
 // settingError reports a run setting the optimise package refuses against its flag, as a
