@@ -70,7 +70,8 @@ type searcher struct {
 	fitF, fitW         []int32 // 0 not yet chosen, else 1 + the index in fits
 	fits               fitPool
 	evals              int
-	parts              []boltParts // a Sizer's layouts of each bolt; nil: listed per call
+	parts              []boltParts   // a Sizer's layouts of each bolt; nil: listed per call
+	hold               []heldLayouts // a Sizer's layouts built so far; nil: built per call
 	nth                int
 	nfc                int
 	nwc                int
@@ -550,7 +551,7 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 		thickness:
 			for toI := 0; toI < s.nth; toI++ {
 				for tiI := 0; tiI < nti; tiI++ {
-					fl, ok := s.flangeAt(b, ai, ci, toI, tiI, r0, u.byMass())
+					fl, ok := s.flangeHeld(b, ai, ci, toI, tiI, r0, u.byMass())
 					if prune(u.score(flangeQty(&fl, e.gap)), best.found, best.sc, haveLimit, limit) {
 						if tiI == 0 {
 							break thickness
@@ -666,7 +667,7 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 			continue
 		}
 		for tpI := range s.sp.th {
-			wl, _ := s.webAt(b, ci, tpI, r0, u.byMass())
+			wl, _ := s.webHeld(b, ci, tpI, r0, u.byMass())
 			if prune(u.score(webQty(&wl, e.gap)), best.found, best.sc, haveLimit, limit) {
 				break
 			}
@@ -674,7 +675,7 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 				continue
 			}
 			for ri := r0; ri < s.nwr; ri++ {
-				wl, ok := s.webAt(b, ci, tpI, ri, u.byMass())
+				wl, ok := s.webHeld(b, ci, tpI, ri, u.byMass())
 				sc := u.score(webQty(&wl, e.gap))
 				if prune(sc, best.found, best.sc, haveLimit, limit) {
 					break
@@ -707,7 +708,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 			if r0 < 0 {
 				continue
 			}
-			fl, _ := s.flangeAt(b, ai, ci, 0, 0, r0, u.byMass())
+			fl, _ := s.flangeHeld(b, ai, ci, 0, 0, r0, u.byMass())
 			if sc := u.score(flangeQty(&fl, e.gap)); !hf || sc.cmp(lf) < 0 {
 				lf, hf = sc, true
 			}
@@ -718,7 +719,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 		if r0 < 0 {
 			continue
 		}
-		wl, _ := s.webAt(b, ci, 0, r0, u.byMass())
+		wl, _ := s.webHeld(b, ci, 0, r0, u.byMass())
 		if sc := u.score(webQty(&wl, e.gap)); !hw || sc.cmp(lw) < 0 {
 			lw, hw = sc, true
 		}

@@ -3,6 +3,7 @@ package splice
 import (
 	"slices"
 	"sync"
+	"sync/atomic"
 )
 
 // Sizer sizes the splices of one problem (member, steels, design space, rates, everything but
@@ -13,9 +14,10 @@ import (
 type Sizer struct {
 	base    Problem
 	once    sync.Once
-	parts   []boltParts // by bolt index of the resolved design space
-	scratch sync.Pool   // *[]float64: the closest attempt's row-free utilisations
-	fits    sync.Pool   // *fitCache: bolt assemblies chosen for plies, kept between positions
+	parts   []boltParts   // by bolt index of the resolved design space
+	hold    []heldLayouts // by bolt index
+	scratch sync.Pool     // *[]float64: the closest attempt's row-free utilisations
+	fits    sync.Pool     // *fitCache: bolt assemblies chosen for plies, kept between positions
 }
 
 // fitCache is a searcher's store of the bolt assemblies chosen per bolt and plies, which do
@@ -40,6 +42,31 @@ type boltParts struct {
 	worder     []int
 }
 
+// heldLayouts are the layouts of one bolt that the searches have built, drawable or not, as
+// flangeAt and webAt build them with their assembly, each on a grid of design-space indices —
+// (arrangement, columns, outer thickness, inner thickness, rows) and (columns, thickness,
+// rows) — filled as the searches ask for them, from any goroutine.
+type heldLayouts struct {
+	once   sync.Once
+	fg, wg grid
+	fl     []atomic.Pointer[heldFlange]
+	wl     []atomic.Pointer[heldWeb]
+}
+
+type heldFlange struct {
+	l  flangeLayout
+	ok bool
+}
+
+type heldWeb struct {
+	l  webLayout
+	ok bool
+}
+
+// maxHeldLayouts bounds the grids of a bolt's held layouts (the default design space has 1,764
+// flange and 189 web layouts); a larger design space builds its layouts each time.
+const maxHeldLayouts = 1 << 15
+
 // NewSizer returns the sizer of p; p's forces are ignored.
 func NewSizer(p Problem) *Sizer {
 	p.ULS, p.SLS = Forces{}, nil
@@ -55,11 +82,11 @@ func (z *Sizer) Size(uls Forces, sls *Forces) (Result, error) {
 	if err != nil {
 		return Result{}, err
 	}
-	z.once.Do(func() { z.parts = make([]boltParts, len(s.bolts)) })
+	z.once.Do(func() { z.parts, z.hold = make([]boltParts, len(s.bolts)), make([]heldLayouts, len(s.bolts)) })
 	if len(z.parts) != len(s.bolts) {
 		panic("splice: a Sizer's design space resolved to a different number of bolts")
 	}
-	s.parts = z.parts
+	s.parts, s.hold = z.parts, z.hold
 	buf, _ := z.scratch.Get().(*[]float64)
 	if buf != nil {
 		s.rowFreeU = *buf
@@ -124,4 +151,60 @@ func byScore(sc []score) []int {
 	}
 	slices.SortStableFunc(order, func(i, j int) int { return sc[i].cmp(sc[j]) })
 	return order
+}
+
+// held returns the held layouts of bolt bi, nil without a Sizer or past maxHeldLayouts.
+func (s *searcher) held(bi int) *heldLayouts {
+	if s.hold == nil {
+		return nil
+	}
+	h := &s.hold[bi]
+	h.once.Do(func() {
+		fg := newGrid(len(s.sp.inner), s.nfc, s.nth, s.nth, len(s.sp.frows))
+		wg := newGrid(s.nwc, s.nth, s.nwr)
+		if fg.cells() <= maxHeldLayouts && wg.cells() <= maxHeldLayouts {
+			h.fg, h.wg = fg, wg
+			h.fl, h.wl = make([]atomic.Pointer[heldFlange], fg.cells()), make([]atomic.Pointer[heldWeb], wg.cells())
+		}
+	})
+	if h.fl == nil {
+		return nil
+	}
+	return h
+}
+
+// flangeHeld is flangeAt, kept by the Sizer once built (with its assembly whatever fit asks: a
+// bound that does not price by mass ignores it).
+func (s *searcher) flangeHeld(b *boltData, ai, ci, toI, tiI, ri int, fit bool) (flangeLayout, bool) {
+	h := s.held(b.key[0]*s.nclass + b.key[1])
+	if h == nil {
+		return s.flangeAt(b, ai, ci, toI, tiI, ri, fit)
+	}
+	if !s.sp.inner[ai] {
+		tiI = 0
+	}
+	c := &h.fl[h.fg.at(ai, ci, toI, tiI, ri)]
+	p := c.Load()
+	if p == nil {
+		fl, ok := s.flangeAt(b, ai, ci, toI, tiI, ri, true)
+		c.CompareAndSwap(nil, &heldFlange{fl, ok})
+		p = c.Load()
+	}
+	return p.l, p.ok
+}
+
+// webHeld is webAt, kept by the Sizer as flangeHeld.
+func (s *searcher) webHeld(b *boltData, ci, tpI, ri int, fit bool) (webLayout, bool) {
+	h := s.held(b.key[0]*s.nclass + b.key[1])
+	if h == nil {
+		return s.webAt(b, ci, tpI, ri, fit)
+	}
+	c := &h.wl[h.wg.at(ci, tpI, ri)]
+	p := c.Load()
+	if p == nil {
+		wl, ok := s.webAt(b, ci, tpI, ri, true)
+		c.CompareAndSwap(nil, &heldWeb{wl, ok})
+		p = c.Load()
+	}
+	return p.l, p.ok
 }
