@@ -512,7 +512,8 @@ func candidateIndices(r *optimise.Outcome, l optimise.Layout) []int {
 }
 
 func writeLayoutTable(w io.Writer, r *optimise.Outcome) {
-	row := func(tw io.Writer, l optimise.Layout, mark string) {
+	// row prints a layout's cells, then the extra cells (the last is the recommendation mark)
+	row := func(tw io.Writer, l optimise.Layout, extra ...string) {
 		var ls []string
 		for _, p := range l.Pieces {
 			ls = append(ls, fmt.Sprintf("%.2f", p.Length*ToM))
@@ -522,7 +523,8 @@ func writeLayoutTable(w io.Writer, r *optimise.Outcome) {
 			vehicle = "-"
 		}
 		fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%s\t%s\t%s\t%s\t%s\n", len(l.Splices), positions(l.Splices), strings.Join(ls, " / "),
-			vehicle, l.Trips, money(l.Cost.Splices), money(l.Cost.Transport), money(l.Cost.Erection), money(l.Cost.Total), mark)
+			vehicle, l.Trips, money(l.Cost.Splices), money(l.Cost.Transport), money(l.Cost.Erection), money(l.Cost.Total),
+			strings.Join(extra, "\t"))
 	}
 	header := "splices\tat [m]\tpieces [m]\tvehicle\ttrips\tsplices\ttransport\terection\ttotal\t"
 	fmt.Fprintln(w, "Best layout for each number of splices")
@@ -560,17 +562,7 @@ func writeLayoutTable(w io.Writer, r *optimise.Outcome) {
 			if len(u.Splices) > 0 {
 				design = u.Design.Summary
 			}
-			var ls []string
-			for _, p := range u.Pieces {
-				ls = append(ls, fmt.Sprintf("%.2f", p.Length*ToM))
-			}
-			vehicle := u.Vehicle
-			if vehicle == "" {
-				vehicle = "-"
-			}
-			fmt.Fprintf(tw, "%d\t%s\t%s\t%s\t%d\t%s\t%s\t%s\t%s\t%s\t%s\t%s\n", len(u.Splices), positions(u.Splices), strings.Join(ls, " / "),
-				vehicle, u.Trips, money(u.Cost.Splices), money(u.Cost.Transport), money(u.Cost.Erection), money(u.Cost.Total),
-				extra, design, mark(optimise.KindUniform, i))
+			row(tw, u.Layout, extra, design, mark(optimise.KindUniform, i))
 		}
 		tw.Flush()
 	}
