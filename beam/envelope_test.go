@@ -233,7 +233,11 @@ func TestEquilibriumProperty(t *testing.T) {
 	})
 }
 
-// TestShearIsDerivativeOfMoment: a central difference of M equals V away from jumps.
+// TestShearIsDerivativeOfMoment: a difference quotient of M equals V away from jumps.
+// Between load discontinuities M is a cubic at most (loads are linear in x, handbook statics
+// dM/dx = V, d²M/dx² = -w), so the five-point stencil (M(x-2h) - 8M(x-h) + 8M(x+h) - M(x+2h))/12h
+// is exact there up to rounding; the plain central difference is not (error h²/6·dw/dx on a
+// trapezoidal load), which made this test fail on steep trapezoids.
 func TestShearIsDerivativeOfMoment(t *testing.T) {
 	rapid.Check(t, func(rt *rapid.T) {
 		seed := rapid.Uint64().Draw(rt, "seed")
@@ -249,16 +253,17 @@ func TestShearIsDerivativeOfMoment(t *testing.T) {
 		for _, x := range b.station {
 			near := false
 			for _, nd := range an.keys {
-				if math.Abs(nd-x) < 2*h {
+				if math.Abs(nd-x) < 3*h {
 					near = true
 				}
 			}
 			if near {
 				continue
 			}
-			r, _ := an.CaseResult("X", []Station{{X: x - h}, {X: x}, {X: x + h}})
-			dm := (r.Effects.M[2] - r.Effects.M[0]) / (2 * h)
-			v := r.Effects.V[1]
+			r, _ := an.CaseResult("X", []Station{{X: x - 2*h}, {X: x - h}, {X: x}, {X: x + h}, {X: x + 2*h}})
+			m := r.Effects.M
+			dm := (m[0] - 8*m[1] + 8*m[3] - m[4]) / (12 * h)
+			v := r.Effects.V[2]
 			if math.Abs(dm-v) > 1e-6*math.Max(math.Abs(v), 1e3) {
 				rt.Fatalf("x = %g: dM/dx %g, V %g", x, dm, v)
 			}
