@@ -3,6 +3,8 @@ package optimise
 import (
 	"runtime"
 	"sync"
+
+	"spanbreak/splice"
 )
 
 // BatchInput is one job file of a batch: its name and bytes, or the error reading it.
@@ -31,6 +33,7 @@ func Batch(inputs []BatchInput, set Settings, workers int, progress func(done, t
 	}
 	workers = max(1, min(workers, len(inputs)))
 	set.Workers = 1
+	shelf := splice.NewShelf(batchShelf)
 	out := make([]BatchOutcome, len(inputs))
 	var mu sync.Mutex
 	done := 0
@@ -41,7 +44,7 @@ func Batch(inputs []BatchInput, set Settings, workers int, progress func(done, t
 		go func() {
 			defer wg.Done()
 			for i := range next {
-				out[i] = runOne(inputs[i], set)
+				out[i] = runOne(inputs[i], set, shelf)
 				if progress != nil {
 					mu.Lock()
 					done++
@@ -59,7 +62,11 @@ func Batch(inputs []BatchInput, set Settings, workers int, progress func(done, t
 	return out
 }
 
-func runOne(in BatchInput, set Settings) BatchOutcome {
+// batchShelf is the number of splice problems (member, steels, design space) whose sizers a
+// batch keeps for its later jobs.
+const batchShelf = 16
+
+func runOne(in BatchInput, set Settings, shelf *splice.Shelf) BatchOutcome {
 	o := BatchOutcome{File: in.File}
 	if in.Err != nil {
 		o.Err = in.Err
@@ -71,6 +78,7 @@ func runOne(in BatchInput, set Settings) BatchOutcome {
 		return o
 	}
 	o.Title = s.Title
+	s.shelf = shelf
 	o.Outcome, o.Err = Run(s, set)
 	return o
 }

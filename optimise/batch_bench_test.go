@@ -3,6 +3,7 @@ package optimise
 import (
 	"fmt"
 	"math/rand/v2"
+	"reflect"
 	"strings"
 	"testing"
 )
@@ -74,5 +75,57 @@ func BenchmarkBatch500(b *testing.B) {
 			}
 		}
 		b.ReportMetric(float64(failed), "refused")
+	}
+}
+
+// TestBatchSharedSizersChangeNothing: a batch shares one sizer between beams of the same
+// section, grade and design space, across its workers; every beam's candidates, layouts,
+// identical-splice layouts, recommendation and checked splices are exactly those of the beam
+// run alone with a sizer of its own.
+func TestBatchSharedSizersChangeNothing(t *testing.T) {
+	n := 16
+	if testing.Short() {
+		n = 6
+	}
+	in := generatedBatch(n)
+	out := Batch(in, Settings{}, 2, nil)
+	sections := map[string]int{}
+	for i, x := range in {
+		s, err := Prepare(x.File, x.Data)
+		if err != nil {
+			t.Fatal(err)
+		}
+		sections[s.Section.Name]++
+		s.shelf = nil // a sizer of its own
+		alone, err := Run(s, Settings{})
+		got := out[i]
+		if (err == nil) != (got.Err == nil) {
+			t.Fatalf("%s: alone %v, in the batch %v", x.File, err, got.Err)
+		}
+		if alone == nil {
+			continue
+		}
+		o := got.Outcome
+		for _, c := range []struct {
+			what      string
+			want, got any
+		}{
+			{"candidates", alone.Candidates, o.Candidates},
+			{"layouts", alone.Layouts, o.Layouts},
+			{"identical splices", alone.Identical, o.Identical},
+			{"pick", alone.Pick, o.Pick},
+			{"chosen", alone.Chosen, o.Chosen},
+		} {
+			if !reflect.DeepEqual(c.want, c.got) {
+				t.Fatalf("%s: the %s differ in the batch", x.File, c.what)
+			}
+		}
+	}
+	shared := 0
+	for _, k := range sections {
+		shared += k - 1
+	}
+	if shared == 0 {
+		t.Fatal("no two beams of the batch share a section: the test shares nothing")
 	}
 }

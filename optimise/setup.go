@@ -85,6 +85,9 @@ type Setup struct {
 	Notes []string
 
 	job *jobfile.Job // for locating problems in the file
+	// shelf keeps the sizers of the job's splice problem, so that every designer of the job
+	// shares one; a batch gives its jobs one shelf, so that beams alike share theirs.
+	shelf *splice.Shelf
 }
 
 // JobFileReference is the reference of every key of the job file and the splice file: unit,
@@ -127,7 +130,7 @@ func Prepare(file string, data []byte) (*Setup, error) {
 	if !errors.As(err, &probs) && err != nil {
 		return nil, err
 	}
-	s := &Setup{File: file, Title: job.Title, job: job}
+	s := &Setup{File: file, Title: job.Title, job: job, shelf: splice.NewShelf(2)}
 	if (job.Beam.Section.Name != "" || job.Beam.Section.Welded != nil) && !probs.About("beam.section") {
 		s.section(&probs)
 		if s.Section.Name != "" && !probs.About("beam.grade") {

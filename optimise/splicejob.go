@@ -218,10 +218,19 @@ type SpliceDesigner struct {
 	sizer *splice.Sizer // Problem's sizer, which keeps the layouts between positions
 }
 
+// catalogue lists the design space of the designer's problem, sharing the sizer's layouts.
+func (d *SpliceDesigner) catalogue() (*splice.Catalogue, error) {
+	if d.sizer == nil {
+		return splice.NewCatalogue(d.Problem)
+	}
+	return d.sizer.Catalogue()
+}
+
 // NewSpliceDesigner builds the designer of a job. Its Problem is not to be changed afterwards:
-// the designer keeps what the sizing of that problem does not owe to the forces.
+// the designer keeps what the sizing of that problem does not owe to the forces, in a sizer
+// shared with every designer of an equal problem on the job's shelf.
 func (s *Setup) NewSpliceDesigner(exhaustive bool) *SpliceDesigner {
-	return &SpliceDesigner{Problem: s.Splice, Exhaustive: exhaustive, sizer: splice.NewSizer(s.Splice)}
+	return &SpliceDesigner{Problem: s.Splice, Exhaustive: exhaustive, sizer: s.shelf.Sizer(s.Splice)}
 }
 
 // Design sizes the cheapest splice for the forces.

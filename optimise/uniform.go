@@ -195,11 +195,12 @@ type designInfo struct {
 
 func newUniformSearch(o *Outcome) (*uniformSearch, error) {
 	s := o.Setup
-	cat, err := splice.NewCatalogue(s.Splice)
+	designer := s.NewSpliceDesigner(o.Exhaustive)
+	cat, err := designer.catalogue()
 	if err != nil {
 		return nil, err
 	}
-	u := &uniformSearch{cat: cat, designer: s.NewSpliceDesigner(o.Exhaustive), prob: s.Splice, p: o.layoutProblem(),
+	u := &uniformSearch{cat: cat, designer: designer, prob: s.Splice, p: o.layoutProblem(),
 		designs: map[splice.Choice]*designInfo{}, witness: map[int][]bitset{}, minCost: math.MaxInt64}
 	u.p.Alternatives = 0
 	u.n = len(u.p.Sites)

@@ -28,7 +28,8 @@ import (
 //
 // A Catalogue is not changed by its methods and may be shared between goroutines.
 type Catalogue struct {
-	s     *searcher
+	pl    *plan
+	p     Problem // without forces
 	bolts []catalogueBolt
 }
 
@@ -83,38 +84,43 @@ type Entry struct {
 // NewCatalogue lists the design space of p (p.Sizing) for p's member, plate steel, detailing,
 // factors, distribution and rates; p's forces are not used. The errors are those of Size.
 func NewCatalogue(p Problem) (*Catalogue, error) {
-	p.ULS, p.SLS = Forces{}, nil
-	s, err := newSearcher(&p)
-	if err != nil {
+	return NewSizer(p).Catalogue()
+}
+
+// Catalogue returns the catalogue of the sizer's problem, listed once and sharing the sizer's
+// layouts. The errors are those of Size.
+func (z *Sizer) Catalogue() (*Catalogue, error) {
+	pl := z.resolved()
+	if pl == nil {
+		p := z.base
+		_, err := newPlan(&p)
 		return nil, err
 	}
-	c := &Catalogue{s: s, bolts: make([]catalogueBolt, len(s.bolts))}
-	for bi := range s.bolts {
-		b, u, cb := &s.bolts[bi], &s.rates[bi], &c.bolts[bi]
-		cb.common = score{cost: u.splice}
-		s.forEachFlange(b, func(fl *flangeLayout) {
-			cb.flanges = append(cb.flanges, *fl)
-			cb.fsc = append(cb.fsc, u.score(flangeQty(fl, s.e.gap)))
-		})
-		s.forEachWeb(b, func(wl *webLayout) {
-			cb.webs = append(cb.webs, *wl)
-			cb.wsc = append(cb.wsc, u.score(webQty(wl, s.e.gap)))
-		})
-		for i := range cb.flanges {
-			cb.fgeo = append(cb.fgeo, geometryOf(b, s.e.cat, s.e.fc, s.e.holes, s.e.gap, &cb.flanges[i], &webLayout{}).Flange)
+	z.catOnce.Do(func() {
+		p := z.base
+		fits, _ := z.fits.Get().(*fitCache)
+		s := pl.searcher(&p, nil, fits)
+		s.parts, s.hold = z.parts, z.hold
+		c := &Catalogue{pl: pl, p: p, bolts: make([]catalogueBolt, len(pl.bolts))}
+		e := &pl.base
+		for bi := range pl.bolts {
+			b, u, cb, bp := &pl.bolts[bi], &pl.rates[bi], &c.bolts[bi], s.layouts(bi)
+			cb.common = score{cost: u.splice}
+			cb.flanges, cb.webs, cb.fsc, cb.wsc = bp.fls, bp.wls, bp.fsc, bp.wsc
+			cb.fgeo = make([]FlangeSplice, len(cb.flanges))
+			for i := range cb.flanges {
+				cb.fgeo[i] = geometryOf(b, e.cat, e.fc, e.holes, e.gap, &cb.flanges[i], &webLayout{}).Flange
+			}
+			cb.wgeo = make([]WebSplice, len(cb.webs))
+			for i := range cb.webs {
+				cb.wgeo[i] = geometryOf(b, e.cat, e.fc, e.holes, e.gap, &flangeLayout{}, &cb.webs[i]).Web
+			}
+			cb.byScore = bp.worder // by (score, index): byScore's stable order
 		}
-		for i := range cb.webs {
-			cb.wgeo = append(cb.wgeo, geometryOf(b, s.e.cat, s.e.fc, s.e.holes, s.e.gap, &flangeLayout{}, &cb.webs[i]).Web)
-		}
-		cb.byScore = make([]int, len(cb.webs))
-		for i := range cb.byScore {
-			cb.byScore[i] = i
-		}
-		slices.SortFunc(cb.byScore, func(i, j int) int {
-			return cmp.Or(cb.wsc[i].cmp(cb.wsc[j]), cmp.Compare(i, j))
-		})
-	}
-	return c, nil
+		z.fits.Put(&fitCache{fitF: s.fitF, fitW: s.fitW, fits: s.fits})
+		z.cat = c
+	})
+	return z.cat, nil
 }
 
 // Bolts returns the number of bolts (size and class pairs) of the catalogue.
@@ -137,7 +143,7 @@ func (c *Catalogue) Len() int {
 
 // Bolt returns the bolt of a bolt index, with the sizing's shear-plane rule and system.
 func (c *Catalogue) Bolt(bolt int) Bolt {
-	b := &c.s.bolts[bolt]
+	b := &c.pl.bolts[bolt]
 	return Bolt{Size: b.size.Name, Class: b.class.Name, ShearPlanes: b.rule, System: b.system}
 }
 
@@ -170,26 +176,26 @@ func (c *Catalogue) WebBefore(bolt, w, v int) bool {
 // FlangePart returns a flange part: the flange splice, its bolts (both flanges, both sides)
 // and its cover plates' mass [kg].
 func (c *Catalogue) FlangePart(bolt, f int) (FlangeSplice, int, float64) {
-	q := flangeQty(&c.bolts[bolt].flanges[f], c.s.e.gap)
+	q := flangeQty(&c.bolts[bolt].flanges[f], c.pl.base.gap)
 	return c.bolts[bolt].fgeo[f], q.bolts, q.mass
 }
 
 // WebPart returns a web part: the web splice, its bolts (both sides) and its plates' mass [kg].
 func (c *Catalogue) WebPart(bolt, w int) (WebSplice, int, float64) {
-	q := webQty(&c.bolts[bolt].webs[w], c.s.e.gap)
+	q := webQty(&c.bolts[bolt].webs[w], c.pl.base.gap)
 	return c.bolts[bolt].wgeo[w], q.bolts, q.mass
 }
 
 // FlangeBoltMass returns the mass of a flange part's bolt assemblies, both flanges, both sides
 // of the joint [kg]: the assembly chosen for its plies, as Entry's Quantities.FlangeBoltMass.
 func (c *Catalogue) FlangeBoltMass(bolt, f int) float64 {
-	q := flangeQty(&c.bolts[bolt].flanges[f], c.s.e.gap)
+	q := flangeQty(&c.bolts[bolt].flanges[f], c.pl.base.gap)
 	return float64(q.bolts) * q.boltMass
 }
 
 // WebBoltMass returns the mass of a web part's bolt assemblies, both sides [kg].
 func (c *Catalogue) WebBoltMass(bolt, w int) float64 {
-	q := webQty(&c.bolts[bolt].webs[w], c.s.e.gap)
+	q := webQty(&c.bolts[bolt].webs[w], c.pl.base.gap)
 	return float64(q.bolts) * q.boltMass
 }
 
@@ -197,10 +203,10 @@ func (c *Catalogue) WebBoltMass(bolt, w int) float64 {
 func (c *Catalogue) Entry(ch Choice) Entry {
 	cb := &c.bolts[ch.Bolt]
 	fl, wl := &cb.flanges[ch.Flange], &cb.webs[ch.Web]
-	e := c.s.e
-	q, cost := costOf(&c.s.rates[ch.Bolt], flangeQty(fl, e.gap), webQty(wl, e.gap))
+	e := &c.pl.base
+	q, cost := costOf(&c.pl.rates[ch.Bolt], flangeQty(fl, e.gap), webQty(wl, e.gap))
 	q.FlangePlateLength, q.WebPlateLength = fl.length, wl.length
-	return Entry{Geometry: geometryOf(&c.s.bolts[ch.Bolt], e.cat, e.fc, e.holes, e.gap, fl, wl), Quantities: q, Cost: cost}
+	return Entry{Geometry: geometryOf(&c.pl.bolts[ch.Bolt], e.cat, e.fc, e.holes, e.gap, fl, wl), Quantities: q, Cost: cost}
 }
 
 // Find returns the catalogue's splice with a geometry, such as the one Size returns.
@@ -236,8 +242,8 @@ func (c *Catalogue) Load(uls Forces, sls *Forces) (Loading, error) {
 			return Loading{}, err
 		}
 	}
-	e := *c.s.e
-	p := c.s.p
+	e := c.pl.base
+	p := &c.p
 	e.act = designActions(p.Member, uls, sls, p.Distribution, p.Minimum, e.f, e.cat == CategoryB)
 	return Loading{e: e}, nil
 }
@@ -295,7 +301,7 @@ func Envelope(ls []Loading) (lo, hi Loading) {
 
 // FlangePasses reports whether a flange part passes every flange check at a loading.
 func (c *Catalogue) FlangePasses(bolt, f int, l *Loading) bool {
-	x := flangeEval{e: &l.e, b: &c.s.bolts[bolt], l: &c.bolts[bolt].flanges[f]}
+	x := flangeEval{e: &l.e, b: &c.pl.bolts[bolt], l: &c.bolts[bolt].flanges[f]}
 	g := groupsFor(l.e.cat)
 	a := newAcc(true)
 	return a.flange(&x, g.flangeRowFree()) && a.flange(&x, g.flangeRows())
@@ -303,7 +309,7 @@ func (c *Catalogue) FlangePasses(bolt, f int, l *Loading) bool {
 
 // WebPasses reports whether a web part passes every web check at a loading.
 func (c *Catalogue) WebPasses(bolt, w int, l *Loading) bool {
-	x := webEval{e: &l.e, b: &c.s.bolts[bolt], l: &c.bolts[bolt].webs[w]}
+	x := webEval{e: &l.e, b: &c.pl.bolts[bolt], l: &c.bolts[bolt].webs[w]}
 	x.analyse()
 	g := groupsFor(l.e.cat)
 	a := newAcc(true)
@@ -313,7 +319,7 @@ func (c *Catalogue) WebPasses(bolt, w int, l *Loading) bool {
 // Check runs every check of a whole splice at a loading for numbers only: whether all pass and
 // the governing utilisation, equal to Verify's Pass and Utilisation for the splice's geometry.
 func (c *Catalogue) Check(ch Choice, l *Loading) (pass bool, utilisation float64) {
-	cb, b := &c.bolts[ch.Bolt], &c.s.bolts[ch.Bolt]
+	cb, b := &c.bolts[ch.Bolt], &c.pl.bolts[ch.Bolt]
 	fx := flangeEval{e: &l.e, b: b, l: &cb.flanges[ch.Flange]}
 	wx := webEval{e: &l.e, b: b, l: &cb.webs[ch.Web]}
 	wx.analyse()

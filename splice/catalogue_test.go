@@ -278,3 +278,41 @@ func TestDesignsFromAndDrops(t *testing.T) {
 		require.Less(t, len(got), len(full)*3/4, "the drops removed many")
 	}
 }
+
+// TestSizerCatalogueIsNewCatalogue: the catalogue a sizer lists from the layouts its sizing
+// has kept (after sizing at forces where nothing passes, which lists every layout) equals the
+// catalogue of the problem listed afresh: the same splices in the same order, each with the
+// same geometry, quantities, cost and verdict (seeded).
+func TestSizerCatalogueIsNewCatalogue(t *testing.T) {
+	rng := rand.New(rand.NewSource(53))
+	for k := 0; k < 4; k++ {
+		p := randomProblem(t, rng)
+		z := NewSizer(p)
+		for _, f := range []float64{0.5, 4, 9} {
+			_, err := z.Size(Forces{MMax: f * p.ULS.MMax, MMin: f * p.ULS.MMin, V: f * p.ULS.V}, nil)
+			require.NoError(t, err)
+		}
+		got, err := z.Catalogue()
+		require.NoError(t, err)
+		again, err := z.Catalogue()
+		require.NoError(t, err)
+		require.Same(t, got, again, "listed once")
+		want, err := NewCatalogue(p)
+		require.NoError(t, err)
+		require.Equal(t, want.Len(), got.Len(), "case %d", k)
+		order := allChoices(want)
+		entryOrder(want, order)
+		require.Equal(t, order, listed(got.Designs(nil)), "case %d", k)
+		lw, err := want.Load(p.ULS, p.SLS)
+		require.NoError(t, err)
+		lg, err := got.Load(p.ULS, p.SLS)
+		require.NoError(t, err)
+		for _, ch := range order {
+			require.Equal(t, want.Entry(ch), got.Entry(ch), "case %d, %v", k, ch)
+			pw, uw := want.Check(ch, &lw)
+			pg, ug := got.Check(ch, &lg)
+			require.Equal(t, pw, pg, "case %d, %v", k, ch)
+			require.Equal(t, uw, ug, "case %d, %v", k, ch)
+		}
+	}
+}

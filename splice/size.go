@@ -40,38 +40,25 @@ func SizeExhaustive(p Problem) (Result, error) {
 	return s.exhaustive()
 }
 
-type searcher struct {
-	p       *Problem
-	e       *env
-	sp      space
-	sr      sectionRules
-	hr      []holeRules // per bolt size
-	cr      []capRules  // per plate thickness
-	crTf    capRules    // for the beam flange as the thinner outer part
-	bolts   []boltData  // index = size index × classes + class index
-	rates   []unitRates
-	fuMax   float64       // the largest plate fu of the design space [N/mm²]
-	groups  *sizingGroups // the checks of the category, by sizing step (table.go)
-	scan    evaluator     // the candidate being scanned, and the result
-	rowFree flangeSlot    // the row-free flange checks, which run inside a flange scan
-	// Memos of the groups that do not depend on the bolt class, and the first admissible rows,
-	// each over a grid of design-space indices: 0 unknown, 1 pass, 2 fail.
-	gridA, gridW grid
-	memoA, memoW []int8 // groupFlangeRowFree on gridA, groupWebPlates on gridW
-	// rowFreeU is the utilisation of groupFlangeRowFree's force checks on gridA, for the
-	// closest attempt (sizeInfeasible); allocated there, −1 unknown.
-	rowFreeU         []float64
-	gridR0F, gridR0W grid
-	r0F, r0W         []int // flangeFirstRows on gridR0F, webFirstRows on gridR0W
-	// The bolt assemblies of the plies, found when a layout first needs them: per bolt, outer
-	// thickness and inner thickness (0 none, i+1 thickness i) for the flange, per bolt and
-	// plate thickness for the web.
+// plan is what a search owes to its problem but not to the forces: the resolved design space,
+// the member's and the plates' detailing rules, the bolts with their rates, the check groups
+// of the category and the grids of the memos. Size resolves it for each call; a Sizer once,
+// and shares it read only between its searches.
+type plan struct {
+	base   env // the environment without the actions
+	sp     space
+	sr     sectionRules
+	hr     []holeRules // per bolt size
+	cr     []capRules  // per plate thickness
+	crTf   capRules    // for the beam flange as the thinner outer part
+	bolts  []boltData  // index = size index × classes + class index
+	rates  []unitRates
+	fuMax  float64       // the largest plate fu of the design space [N/mm²]
+	groups *sizingGroups // the checks of the category, by sizing step (table.go)
+	// The grids of the memos (see searcher).
+	gridA, gridW       grid
+	gridR0F, gridR0W   grid
 	gridFitF, gridFitW grid
-	fitF, fitW         []int32 // 0 not yet chosen, else 1 + the index in fits
-	fits               fitPool
-	evals              int
-	parts              []boltParts   // a Sizer's layouts of each bolt; nil: listed per call
-	hold               []heldLayouts // a Sizer's layouts built so far; nil: built per call
 	nth                int
 	nfc                int
 	nwc                int
@@ -79,7 +66,45 @@ type searcher struct {
 	nclass             int
 }
 
+type searcher struct {
+	*plan
+	p       *Problem
+	e       *env       // the plan's environment with the actions of p's forces
+	scan    evaluator  // the candidate being scanned, and the result
+	rowFree flangeSlot // the row-free flange checks, which run inside a flange scan
+	measure flangeEval // the part flangeMeasure evaluates, on the part's own layout
+	// the layouts flangeHeld and webHeld build without a Sizer
+	scratchF heldFlange
+	scratchW heldWeb
+	// Memos of the groups that do not depend on the bolt class, and the first admissible rows,
+	// each over a grid of design-space indices: 0 unknown, 1 pass, 2 fail.
+	memoA, memoW []int8 // groupFlangeRowFree on gridA, groupWebPlates on gridW
+	// rowFreeU is the utilisation of groupFlangeRowFree's force checks on gridA, for the
+	// closest attempt (sizeInfeasible); allocated there, −1 unknown.
+	rowFreeU []float64
+	r0F, r0W []int // flangeFirstRows on gridR0F, webFirstRows on gridR0W
+	// The bolt assemblies of the plies, found when a layout first needs them: per bolt, outer
+	// thickness and inner thickness (0 none, i+1 thickness i) for the flange, per bolt and
+	// plate thickness for the web.
+	fitF, fitW []int32 // 0 not yet chosen, else 1 + the index in fits
+	fits       fitPool
+	evals      int
+	parts      []boltParts   // a Sizer's layouts of each bolt; nil: listed per call
+	hold       []heldLayouts // a Sizer's layouts built so far; nil: built per call
+}
+
+// newSearcher resolves p and prepares the search at its forces; the errors name every field
+// of p that is wrong, forces included.
 func newSearcher(p *Problem) (*searcher, error) {
+	pl, err := newPlan(p)
+	if err != nil {
+		return nil, err
+	}
+	return pl.searcher(p, nil, nil), nil
+}
+
+// newPlan resolves p (its forces are validated, not used).
+func newPlan(p *Problem) (*plan, error) {
 	var errs []error
 	if err := p.validate(); err != nil {
 		errs = append(errs, err)
@@ -120,7 +145,9 @@ func newSearcher(p *Problem) (*searcher, error) {
 	if err != nil {
 		return nil, err
 	}
-	s := &searcher{p: p, e: e, sp: sp, fuMax: slices.Max(sp.fu), nth: len(sp.th), nfc: len(sp.fcols), nwc: len(sp.wcols), nwr: len(sp.wrows), nclass: len(sp.classes)}
+	e.act = Actions{}
+	s := &plan{base: *e, sp: sp, fuMax: slices.Max(sp.fu), nth: len(sp.th), nfc: len(sp.fcols), nwc: len(sp.wcols), nwr: len(sp.wrows), nclass: len(sp.classes)}
+	e = &s.base
 	s.sr = newSectionRules(&e.m, &e.det, e.gap)
 	s.hr = make([]holeRules, len(sp.sizes))
 	for i, size := range sp.sizes {
@@ -161,28 +188,48 @@ func newSearcher(p *Problem) (*searcher, error) {
 	// class (the inner thickness index is 0 without inner plates).
 	s.gridA = newGrid(len(sp.sizes), len(sp.inner), s.nfc, s.nth, s.nth)
 	s.gridW = newGrid(len(sp.sizes), s.nwc, s.nth, s.nwr)
-	memo := make([]int8, s.gridA.cells()+s.gridW.cells())
-	s.memoA, s.memoW = memo[:s.gridA.cells()], memo[s.gridA.cells():]
 	s.gridFitF = newGrid(len(s.bolts), s.nth, s.nth+1)
 	s.gridFitW = newGrid(len(s.bolts), s.nth)
-	idx := make([]int32, s.gridFitF.cells()+s.gridFitW.cells())
-	s.fitF, s.fitW = idx[:s.gridFitF.cells()], idx[s.gridFitF.cells():]
 	s.gridR0F = newGrid(len(s.bolts), len(sp.inner), s.nfc)
 	s.gridR0W = newGrid(len(s.bolts), s.nwc)
-	r0 := make([]int, s.gridR0F.cells()+s.gridR0W.cells())
-	s.r0F, s.r0W = r0[:s.gridR0F.cells()], r0[s.gridR0F.cells():]
+	return s, nil
+}
+
+// memoCells is the length of the memo slice a searcher of the plan takes.
+func (pl *plan) memoCells() int { return pl.gridA.cells() + pl.gridW.cells() }
+
+// searcher prepares the search of the plan at p's forces, which are valid. memo, when not nil,
+// is a zeroed slice of memoCells cells; fits, when not nil, the assemblies chosen so far by
+// searches of the same plan.
+func (pl *plan) searcher(p *Problem, memo []int8, fits *fitCache) *searcher {
+	s := &searcher{plan: pl, p: p}
+	e := pl.base
+	e.act = designActions(p.Member, p.ULS, p.SLS, p.Distribution, p.Minimum, e.f, e.cat == CategoryB)
+	s.e = &e
+	if memo == nil {
+		memo = make([]int8, pl.memoCells())
+	}
+	s.memoA, s.memoW = memo[:pl.gridA.cells()], memo[pl.gridA.cells():]
+	if fits != nil && len(fits.fitF) == pl.gridFitF.cells() && len(fits.fitW) == pl.gridFitW.cells() {
+		s.fitF, s.fitW, s.fits = fits.fitF, fits.fitW, fits.fits
+	} else {
+		idx := make([]int32, pl.gridFitF.cells()+pl.gridFitW.cells())
+		s.fitF, s.fitW = idx[:pl.gridFitF.cells()], idx[pl.gridFitF.cells():]
+	}
+	r0 := make([]int, pl.gridR0F.cells()+pl.gridR0W.cells())
+	s.r0F, s.r0W = r0[:pl.gridR0F.cells()], r0[pl.gridR0F.cells():]
 	for bi := range s.bolts {
 		b := &s.bolts[bi]
-		for ai, inner := range sp.inner {
-			for ci := range sp.fcols {
-				s.r0F[s.gridR0F.at(bi, ai, ci)] = s.flangeFirstRows(b, ci, inner)
+		for ai, inner := range pl.sp.inner {
+			for ci := range pl.sp.fcols {
+				s.r0F[pl.gridR0F.at(bi, ai, ci)] = s.flangeFirstRows(b, ci, inner)
 			}
 		}
-		for ci := range sp.wcols {
-			s.r0W[s.gridR0W.at(bi, ci)] = s.webFirstRows(b, ci)
+		for ci := range pl.sp.wcols {
+			s.r0W[pl.gridR0W.at(bi, ci)] = s.webFirstRows(b, ci)
 		}
 	}
-	return s, nil
+	return s
 }
 
 // grid numbers the cells of a box of design-space indices (one dimension per list, its length
@@ -536,7 +583,7 @@ func (s *searcher) rowsNeeded(b *boltData, fl flangeLayout, r0 int) int {
 }
 
 func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
-	b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+	b, u := &s.bolts[bi], &s.rates[bi]
 	var best flangeBest
 	for ai, inner := range s.sp.inner {
 		nti := 1
@@ -551,8 +598,8 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 		thickness:
 			for toI := 0; toI < s.nth; toI++ {
 				for tiI := 0; tiI < nti; tiI++ {
-					fl, ok := s.flangeHeld(b, ai, ci, toI, tiI, r0, u.byMass())
-					if prune(u.score(flangeQty(&fl, e.gap)), best.found, best.sc, haveLimit, limit) {
+					fl, ok, sc := s.flangeHeld(b, ai, ci, toI, tiI, r0, u.byMass())
+					if prune(sc, best.found, best.sc, haveLimit, limit) {
 						if tiI == 0 {
 							break thickness
 						}
@@ -561,8 +608,10 @@ func (s *searcher) bestFlange(bi int, haveLimit bool, limit score) flangeBest {
 					if !ok {
 						continue
 					}
-					fl.fit = s.flangeFit(b, &fl) // the checks need it
-					if f, ok := s.scanFlangeRows(b, u, &fl, r0, &best, haveLimit, limit); ok {
+					if fl.fit == nil {
+						fl.fit = s.flangeFit(b, fl) // the checks need it (the searcher's scratch)
+					}
+					if f, ok := s.scanFlangeRows(b, u, fl, r0, &best, haveLimit, limit); ok {
 						best = f
 					}
 				}
@@ -667,28 +716,29 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 			continue
 		}
 		for tpI := range s.sp.th {
-			wl, _ := s.webHeld(b, ci, tpI, r0, u.byMass())
-			if prune(u.score(webQty(&wl, e.gap)), best.found, best.sc, haveLimit, limit) {
+			wl, _, sc := s.webHeld(b, ci, tpI, r0, u.byMass())
+			if prune(sc, best.found, best.sc, haveLimit, limit) {
 				break
 			}
-			if !s.webRowFree(b, &wl) {
+			if !s.webRowFree(b, wl) {
 				continue
 			}
 			for ri := r0; ri < s.nwr; ri++ {
-				wl, ok := s.webHeld(b, ci, tpI, ri, u.byMass())
-				sc := u.score(webQty(&wl, e.gap))
+				wl, ok, sc := s.webHeld(b, ci, tpI, ri, u.byMass())
 				if prune(sc, best.found, best.sc, haveLimit, limit) {
 					break
 				}
 				if !ok {
 					continue
 				}
-				wl.fit = s.webFit(b, &wl) // the checks need it
+				if wl.fit == nil {
+					wl.fit = s.webFit(b, wl) // the checks need it (the searcher's scratch)
+				}
 				s.evals++
-				x := s.scan.web(e, b, &wl)
+				x := s.scan.web(e, b, wl)
 				a := newAcc(true)
 				if a.web(x, s.groups.webClass()) && s.webPlates(b, x) {
-					best = webBest{found: true, sc: sc, wl: wl}
+					best = webBest{found: true, sc: sc, wl: *x.l}
 					break
 				}
 			}
@@ -700,7 +750,7 @@ func (s *searcher) bestWeb(bi int, haveLimit bool, limit score) webBest {
 // lowerBounds are the cheapest flange and web any passing splice with this bolt can have:
 // thinnest plates, fewest admissible rows, every arrangement and column count.
 func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
-	b, u, e := &s.bolts[bi], &s.rates[bi], s.e
+	b, u := &s.bolts[bi], &s.rates[bi]
 	var hf, hw bool
 	for ai := range s.sp.inner {
 		for ci := range s.sp.fcols {
@@ -708,8 +758,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 			if r0 < 0 {
 				continue
 			}
-			fl, _ := s.flangeHeld(b, ai, ci, 0, 0, r0, u.byMass())
-			if sc := u.score(flangeQty(&fl, e.gap)); !hf || sc.cmp(lf) < 0 {
+			if _, _, sc := s.flangeHeld(b, ai, ci, 0, 0, r0, u.byMass()); !hf || sc.cmp(lf) < 0 {
 				lf, hf = sc, true
 			}
 		}
@@ -719,8 +768,7 @@ func (s *searcher) lowerBounds(bi int) (lf, lw score, ok bool) {
 		if r0 < 0 {
 			continue
 		}
-		wl, _ := s.webHeld(b, ci, 0, r0, u.byMass())
-		if sc := u.score(webQty(&wl, e.gap)); !hw || sc.cmp(lw) < 0 {
+		if _, _, sc := s.webHeld(b, ci, 0, r0, u.byMass()); !hw || sc.cmp(lw) < 0 {
 			lw, hw = sc, true
 		}
 	}
@@ -918,19 +966,20 @@ func (s *searcher) flangeMeasure(bp *boltParts, i int, limit float64) (float64, 
 		return 0, false
 	}
 	b, fl := &s.bolts[bp.bolt], &bp.fls[i]
-	x := flangeEval{e: s.e, b: b, l: fl} // read only: no copy of the layout
+	s.measure = flangeEval{e: s.e, b: b, l: fl} // read only: no copy of the layout
+	x := &s.measure
 	// the row-free checks depend neither on the rows nor on the bolt class (the memoised
 	// group): once per cell of gridA, in full
 	k := s.gridA.at(b.key[0], fl.key[0], fl.key[1], fl.key[2], fl.key[3])
 	if s.rowFreeU[k] < 0 {
 		a := newAcc(false)
-		a.flangeOf(&x, s.groups.flangeRowFree(), false)
+		a.flangeOf(x, s.groups.flangeRowFree(), false)
 		s.rowFreeU[k] = a.measure
 	}
 	if !acc.util(s.rowFreeU[k], false) {
 		return 0, false
 	}
-	if acc.flangeOf(&x, s.groups.flangeRows(), false) {
+	if acc.flangeOf(x, s.groups.flangeRows(), false) {
 		return acc.measure, true
 	}
 	return 0, false
@@ -953,6 +1002,8 @@ func (s *searcher) webMeasure(bp *boltParts, i int, limit float64) (float64, boo
 
 // forEachFlange visits every drawable flange configuration in design-space order.
 func (s *searcher) forEachFlange(b *boltData, visit func(*flangeLayout)) {
+	var fl flangeLayout // one per call: visit may keep the pointer no longer than the call
+	var ok bool
 	for ai, inner := range s.sp.inner {
 		nti := 1
 		if inner {
@@ -962,7 +1013,7 @@ func (s *searcher) forEachFlange(b *boltData, visit func(*flangeLayout)) {
 			for toI := range s.sp.th {
 				for tiI := 0; tiI < nti; tiI++ {
 					for ri := range s.sp.frows {
-						if fl, ok := s.flangeAt(b, ai, ci, toI, tiI, ri, true); ok {
+						if fl, ok = s.flangeAt(b, ai, ci, toI, tiI, ri, true); ok {
 							visit(&fl)
 						}
 					}
@@ -974,10 +1025,12 @@ func (s *searcher) forEachFlange(b *boltData, visit func(*flangeLayout)) {
 
 // forEachWeb visits every drawable web configuration in design-space order.
 func (s *searcher) forEachWeb(b *boltData, visit func(*webLayout)) {
+	var wl webLayout // as in forEachFlange
+	var ok bool
 	for ci := range s.sp.wcols {
 		for tpI := range s.sp.th {
 			for ri := range s.sp.wrows {
-				if wl, ok := s.webAt(b, ci, tpI, ri, true); ok {
+				if wl, ok = s.webAt(b, ci, tpI, ri, true); ok {
 					visit(&wl)
 				}
 			}

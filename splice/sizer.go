@@ -14,10 +14,14 @@ import (
 type Sizer struct {
 	base    Problem
 	once    sync.Once
+	plan    *plan         // nil: the problem does not resolve (each Size says why)
 	parts   []boltParts   // by bolt index of the resolved design space
 	hold    []heldLayouts // by bolt index
 	scratch sync.Pool     // *[]float64: the closest attempt's row-free utilisations
+	memos   sync.Pool     // *[]int8: a searcher's memo, zeroed when put back
 	fits    sync.Pool     // *fitCache: bolt assemblies chosen for plies, kept between positions
+	catOnce sync.Once
+	cat     *Catalogue // listed on first use
 }
 
 // fitCache is a searcher's store of the bolt assemblies chosen per bolt and plies, which do
@@ -53,14 +57,17 @@ type heldLayouts struct {
 	wl     []atomic.Pointer[heldWeb]
 }
 
+// heldFlange is a flange layout as flangeAt builds it with its assembly, and its score.
 type heldFlange struct {
 	l  flangeLayout
 	ok bool
+	sc score
 }
 
 type heldWeb struct {
 	l  webLayout
 	ok bool
+	sc score
 }
 
 // maxHeldLayouts bounds the grids of a bolt's held layouts (the default design space has 1,764
@@ -78,28 +85,43 @@ func NewSizer(p Problem) *Sizer {
 func (z *Sizer) Size(uls Forces, sls *Forces) (Result, error) {
 	p := z.base
 	p.ULS, p.SLS = uls, sls
-	s, err := newSearcher(&p)
-	if err != nil {
-		return Result{}, err
+	pl := z.resolved()
+	if pl == nil || uls.validate("uls") != nil || (sls != nil && sls.validate("sls") != nil) {
+		return Size(p) // the errors as Size gives them
 	}
-	z.once.Do(func() { z.parts, z.hold = make([]boltParts, len(s.bolts)), make([]heldLayouts, len(s.bolts)) })
-	if len(z.parts) != len(s.bolts) {
-		panic("splice: a Sizer's design space resolved to a different number of bolts")
+	memo, _ := z.memos.Get().(*[]int8)
+	if memo == nil {
+		m := make([]int8, pl.memoCells())
+		memo = &m
 	}
+	fits, _ := z.fits.Get().(*fitCache)
+	s := pl.searcher(&p, *memo, fits)
 	s.parts, s.hold = z.parts, z.hold
 	buf, _ := z.scratch.Get().(*[]float64)
 	if buf != nil {
 		s.rowFreeU = *buf
 	}
-	if c, _ := z.fits.Get().(*fitCache); c != nil && len(c.fitF) == len(s.fitF) && len(c.fitW) == len(s.fitW) {
-		s.fitF, s.fitW, s.fits = c.fitF, c.fitW, c.fits
-	}
 	r, err := s.size()
 	if s.rowFreeU != nil {
 		z.scratch.Put(&s.rowFreeU)
 	}
+	clear(*memo)
+	z.memos.Put(memo)
 	z.fits.Put(&fitCache{fitF: s.fitF, fitW: s.fitW, fits: s.fits})
 	return r, err
+}
+
+// resolved returns the sizer's plan, resolved on first use; nil when the problem does not
+// resolve.
+func (z *Sizer) resolved() *plan {
+	z.once.Do(func() {
+		p := z.base
+		if pl, err := newPlan(&p); err == nil {
+			z.plan = pl
+			z.parts, z.hold = make([]boltParts, len(pl.bolts)), make([]heldLayouts, len(pl.bolts))
+		}
+	})
+	return z.plan
 }
 
 // layouts returns the drawable flange and web layouts of bolt bi with what does not depend on
@@ -173,12 +195,17 @@ func (s *searcher) held(bi int) *heldLayouts {
 	return h
 }
 
-// flangeHeld is flangeAt, kept by the Sizer once built (with its assembly whatever fit asks: a
-// bound that does not price by mass ignores it).
-func (s *searcher) flangeHeld(b *boltData, ai, ci, toI, tiI, ri int, fit bool) (flangeLayout, bool) {
-	h := s.held(b.key[0]*s.nclass + b.key[1])
+// flangeHeld is flangeAt with its score, kept by the Sizer once built (with its assembly
+// whatever fit asks: a bound that does not price by mass ignores it). The layout is read only
+// (a Sizer's, or the searcher's scratch until the next call); one built without its assembly
+// (fit false, no Sizer) has none.
+func (s *searcher) flangeHeld(b *boltData, ai, ci, toI, tiI, ri int, fit bool) (*flangeLayout, bool, score) {
+	bi := b.key[0]*s.nclass + b.key[1]
+	h := s.held(bi)
 	if h == nil {
-		return s.flangeAt(b, ai, ci, toI, tiI, ri, fit)
+		fl, ok := s.flangeAt(b, ai, ci, toI, tiI, ri, fit)
+		s.scratchF = heldFlange{fl, ok, s.rates[bi].score(flangeQty(&fl, s.e.gap))}
+		return &s.scratchF.l, ok, s.scratchF.sc
 	}
 	if !s.sp.inner[ai] {
 		tiI = 0
@@ -187,24 +214,27 @@ func (s *searcher) flangeHeld(b *boltData, ai, ci, toI, tiI, ri int, fit bool) (
 	p := c.Load()
 	if p == nil {
 		fl, ok := s.flangeAt(b, ai, ci, toI, tiI, ri, true)
-		c.CompareAndSwap(nil, &heldFlange{fl, ok})
+		c.CompareAndSwap(nil, &heldFlange{fl, ok, s.rates[bi].score(flangeQty(&fl, s.e.gap))})
 		p = c.Load()
 	}
-	return p.l, p.ok
+	return &p.l, p.ok, p.sc
 }
 
 // webHeld is webAt, kept by the Sizer as flangeHeld.
-func (s *searcher) webHeld(b *boltData, ci, tpI, ri int, fit bool) (webLayout, bool) {
-	h := s.held(b.key[0]*s.nclass + b.key[1])
+func (s *searcher) webHeld(b *boltData, ci, tpI, ri int, fit bool) (*webLayout, bool, score) {
+	bi := b.key[0]*s.nclass + b.key[1]
+	h := s.held(bi)
 	if h == nil {
-		return s.webAt(b, ci, tpI, ri, fit)
+		wl, ok := s.webAt(b, ci, tpI, ri, fit)
+		s.scratchW = heldWeb{wl, ok, s.rates[bi].score(webQty(&wl, s.e.gap))}
+		return &s.scratchW.l, ok, s.scratchW.sc
 	}
 	c := &h.wl[h.wg.at(ci, tpI, ri)]
 	p := c.Load()
 	if p == nil {
 		wl, ok := s.webAt(b, ci, tpI, ri, true)
-		c.CompareAndSwap(nil, &heldWeb{wl, ok})
+		c.CompareAndSwap(nil, &heldWeb{wl, ok, s.rates[bi].score(webQty(&wl, s.e.gap))})
 		p = c.Load()
 	}
-	return p.l, p.ok
+	return &p.l, p.ok, p.sc
 }
