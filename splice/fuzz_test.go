@@ -1,13 +1,20 @@
 package splice
 
 import (
+	"fmt"
 	"math"
+	"reflect"
 	"testing"
 )
 
+// fuzzShelf keeps sizers between the fuzzer's inputs, so that a sizer's kept layouts meet
+// arbitrary forces one after another.
+var fuzzShelf = NewShelf(8)
+
 // FuzzSize drives the sizing entry point with arbitrary forces and options: it must return a
 // result or an error — never panic, never a NaN utilisation, and never call a splice that
-// fails a check a passing one. The seed corpus is replayed by every go test.
+// fails a check a passing one — and a sizer kept between inputs returns exactly Size's result
+// or error. The seed corpus is replayed by every go test.
 func FuzzSize(f *testing.F) {
 	f.Add(520.0, -310.0, 290.0, 60.0, -120.0, uint8(1), uint8(0), 10.0, uint8(0))
 	f.Add(0.0, 0.0, 0.0, 0.0, 0.0, uint8(0), uint8(1), 0.0, uint8(1))
@@ -28,6 +35,10 @@ func FuzzSize(f *testing.F) {
 			Sizing:     Sizing{Category: cats[int(cat)%len(cats)], FrictionClass: frics[int(fric)%len(frics)], Gap: gap, Space: smallSpace()},
 		}
 		r, err := Size(p)
+		rz, errz := fuzzShelf.Sizer(p).Size(p.ULS, p.SLS)
+		if fmt.Sprint(err) != fmt.Sprint(errz) || (err == nil && !reflect.DeepEqual(r, rz)) {
+			t.Fatalf("the shelf's sizer disagrees with Size: %v / %v", err, errz)
+		}
 		if err != nil {
 			return
 		}

@@ -1,6 +1,7 @@
 package main
 
 import (
+	"bufio"
 	"bytes"
 	"errors"
 	"fmt"
@@ -170,18 +171,29 @@ func optimiseOne(opts optimiseOptions, set optimise.Settings, file string, ios s
 		return settingError(runErr)
 	}
 	// a run without a layout within the limits is still a whole document: the candidates
-	// with their reasons and the diagnosis, printed before the exit-3 error
-	var buf bytes.Buffer
-	if err := encode.WriteOptimise(&buf, opts.Format, res); err != nil {
-		return err
-	}
-	if opts.Out != "" {
+	// with their reasons and the diagnosis, printed before the exit-3 error. With --out the
+	// folder is written first and the document printed once it is (nothing is printed when
+	// the folder cannot be); without, the document streams to the output, so that a long
+	// scan's document is never held whole.
+	if opts.Out == "" {
+		bw := bufio.NewWriterSize(ios.Out, 1<<16)
+		if err := encode.WriteOptimise(bw, opts.Format, res); err != nil {
+			return err
+		}
+		if err := bw.Flush(); err != nil {
+			return err
+		}
+	} else {
+		var buf bytes.Buffer
+		if err := encode.WriteOptimise(&buf, opts.Format, res); err != nil {
+			return err
+		}
 		if err := writeResultFiles(opts.Out, opts.Force, res, ios.Interrupts); err != nil {
 			return err
 		}
-	}
-	if _, err := ios.Out.Write(buf.Bytes()); err != nil {
-		return err
+		if _, err := ios.Out.Write(buf.Bytes()); err != nil {
+			return err
+		}
 	}
 	if inf != nil {
 		return infeasibleError(runErr)
@@ -274,7 +286,7 @@ func resultFiles(r *optimise.Outcome) ([]outFile, error) {
 	base := jobBase(r.Setup.File)
 	var txt, js, cand, lay bytes.Buffer
 	encode.WriteOptimiseText(&txt, r)
-	if err := encode.WriteJSON(&js, encode.Optimise(r)); err != nil {
+	if err := encode.WriteOptimiseJSON(&js, r); err != nil {
 		return nil, err
 	}
 	if err := encode.WriteCandidatesCSV(&cand, r); err != nil {

@@ -166,3 +166,61 @@ func TestAppendClean(t *testing.T) {
 		}
 	}
 }
+
+// TestStreamedOptimiseEqualsTheDocument: the optimise JSON, written candidate by candidate,
+// is exactly what encoding/json writes of the whole OptimiseDoc, and the candidates CSV,
+// written row by row, exactly WriteCSV of all its rows (kind: equality with the plain
+// version): on the demo, with a name that needs escaping, and on a run where no layout meets
+// the limits (reasons, keep-out zones and the diagnosis in the document).
+func TestStreamedOptimiseEqualsTheDocument(t *testing.T) {
+	demo := string(optimise.DemoJob())
+	infeasible := strings.Replace(demo, "max_piece_length: 18.5", "max_piece_length: 4.0", 1)
+	require.NotEqual(t, demo, infeasible)
+	for _, tc := range []struct {
+		name string
+		job  []byte
+	}{
+		{"demo", optimise.DemoJob()},
+		{"escaped case name", oddNames(t)},
+		{"no layout within the limits", []byte(infeasible)},
+	} {
+		t.Run(tc.name, func(t *testing.T) {
+			s, err := optimise.Prepare("job.yaml", tc.job)
+			require.NoError(t, err)
+			o, err := optimise.Run(s, optimise.Settings{Step: 250})
+			if tc.name == "no layout within the limits" {
+				var inf *optimise.InfeasibleError
+				require.ErrorAs(t, err, &inf)
+				require.NotEmpty(t, o.Diagnosis)
+			} else {
+				require.NoError(t, err)
+			}
+			var want, got bytes.Buffer
+			require.NoError(t, WriteJSON(&want, Optimise(o)))
+			require.NoError(t, WriteOptimise(&got, "json", o))
+			require.Equal(t, want.String(), got.String())
+
+			want.Reset()
+			got.Reset()
+			var rows [][]Cell
+			for _, c := range o.Candidates {
+				row := make([]Cell, 15)
+				row[0], row[1], row[14] = Decimal(c.X*ToM), Boolean(c.Feasible), Text(c.Reason)
+				if c.Zone == nil {
+					d, f := c.Design, c.Forces.ULS
+					row[8], row[9], row[10], row[11], row[12], row[13] = Decimal(d.Utilisation), Text(d.Governing), Decimal(f.MMax*ToKNm),
+						Decimal(f.MMin*ToKNm), Decimal(f.V*ToKN), Text(d.Summary)
+					if c.Feasible {
+						row[2], row[3], row[4], row[5] = Integer(c.Rank), Decimal(d.Cost), Integer(d.Bolts), Integer(d.Holes)
+						row[6], row[7] = Decimal(d.PlateMass), Decimal(d.Mass())
+					}
+				}
+				rows = append(rows, row)
+			}
+			require.NoError(t, WriteCSV(&want, []string{"x_m", "feasible", "rank", "cost", "bolts", "holes", "plate_mass_kg", "splice_mass_kg",
+				"utilisation", "governing", "uls_M_max_kNm", "uls_M_min_kNm", "uls_V_kN", "splice", "reason"}, rows))
+			require.NoError(t, WriteOptimise(&got, "csv", o))
+			require.Equal(t, want.String(), got.String())
+		})
+	}
+}

@@ -1,6 +1,7 @@
 package encode
 
 import (
+	"encoding/json"
 	"errors"
 	"fmt"
 	"io"
@@ -14,12 +15,42 @@ import (
 func WriteOptimise(w io.Writer, format string, r *optimise.Outcome) error {
 	switch format {
 	case "json":
-		return WriteJSON(w, Optimise(r))
+		return WriteOptimiseJSON(w, r)
 	case "csv":
 		return WriteCandidatesCSV(w, r)
 	}
 	WriteOptimiseText(w, r)
 	return nil
+}
+
+// WriteOptimiseJSON writes the optimise document exactly as WriteJSON writes Optimise(r), with
+// the candidates made and written one at a time, so that a long scan is never held twice.
+func WriteOptimiseJSON(w io.Writer, r *optimise.Outcome) error {
+	d := optimiseHead(r)
+	js := newJSONStream(w)
+	js.open('{')
+	js.value("input", d.Input)
+	js.value("version", d.Version)
+	js.value("title", d.Title)
+	js.value("units", d.Units)
+	js.value("section", d.Section)
+	js.value("length", d.Length)
+	js.value("step", d.Step)
+	js.value("rank", d.Rank)
+	js.array("candidates", len(r.Candidates), func(b []byte, i int) []byte {
+		e, err := json.MarshalIndent(candidateDoc(r.Candidates[i]), strings.Repeat("  ", js.depth), "  ")
+		if err != nil && js.err == nil {
+			js.err = err
+		}
+		return append(b, e...)
+	})
+	js.value("layouts", layoutDocs(r))
+	js.value("diagnosis", Diagnosis(r.Diagnosis))
+	js.value("notes", notes(r))
+	js.value("caution", Caution)
+	js.close('}')
+	js.raw("\n")
+	return js.flush()
 }
 
 // WriteBatch writes a batch summary as "json", "csv" or "text".
@@ -235,12 +266,17 @@ func layoutDocs(r *optimise.Outcome) []LayoutDoc {
 	return out
 }
 
+// optimiseHead is the optimise document's fields before the candidates.
+func optimiseHead(r *optimise.Outcome) OptimiseDoc {
+	return OptimiseDoc{Input: r.Setup.File, Version: Version(), Title: r.Setup.Title, Units: optimiseUnits(), Section: r.Setup.Section.Name,
+		Length: Num(r.Setup.Model.Length * ToM), Step: Num(r.Step * ToM), Rank: string(r.Rank)}
+}
+
 // Optimise is the JSON document of an optimisation.
 func Optimise(r *optimise.Outcome) OptimiseDoc {
-	j := OptimiseDoc{Input: r.Setup.File, Version: Version(), Title: r.Setup.Title, Units: optimiseUnits(), Section: r.Setup.Section.Name,
-		Length: Num(r.Setup.Model.Length * ToM), Step: Num(r.Step * ToM), Rank: string(r.Rank),
-		Candidates: make([]CandidateDoc, 0, len(r.Candidates)), Layouts: layoutDocs(r), Diagnosis: Diagnosis(r.Diagnosis),
-		Notes: notes(r), Caution: Caution}
+	j := optimiseHead(r)
+	j.Candidates, j.Layouts, j.Diagnosis = make([]CandidateDoc, 0, len(r.Candidates)), layoutDocs(r), Diagnosis(r.Diagnosis)
+	j.Notes, j.Caution = notes(r), Caution
 	for _, c := range r.Candidates {
 		j.Candidates = append(j.Candidates, candidateDoc(c))
 	}
@@ -296,25 +332,25 @@ func Batch(outcomes []optimise.BatchOutcome) BatchDoc {
 
 // --- CSV -------------------------------------------------------------------------------
 
-// WriteCandidatesCSV writes one row per scanned position.
+// WriteCandidatesCSV writes one row per scanned position, each made as it is written.
 func WriteCandidatesCSV(w io.Writer, r *optimise.Outcome) error {
-	rows := make([][]Cell, 0, len(r.Candidates))
-	for _, c := range r.Candidates {
-		row := make([]Cell, 15)
-		row[0], row[1], row[14] = Decimal(c.X*ToM), Boolean(c.Feasible), Text(c.Reason)
-		if c.Zone == nil {
-			d, f := c.Design, c.Forces.ULS
-			row[8], row[9], row[10], row[11], row[12], row[13] = Decimal(d.Utilisation), Text(d.Governing), Decimal(f.MMax*ToKNm),
-				Decimal(f.MMin*ToKNm), Decimal(f.V*ToKN), Text(d.Summary)
-			if c.Feasible {
-				row[2], row[3], row[4], row[5] = Integer(c.Rank), Decimal(d.Cost), Integer(d.Bolts), Integer(d.Holes)
-				row[6], row[7] = Decimal(d.PlateMass), Decimal(d.Mass())
+	return writeCSVRows(w, []string{"x_m", "feasible", "rank", "cost", "bolts", "holes", "plate_mass_kg", "splice_mass_kg",
+		"utilisation", "governing", "uls_M_max_kNm", "uls_M_min_kNm", "uls_V_kN", "splice", "reason"}, len(r.Candidates),
+		func(i int, row []Cell) []Cell {
+			c := &r.Candidates[i]
+			row = append(row[:0], make([]Cell, 15)...)
+			row[0], row[1], row[14] = Decimal(c.X*ToM), Boolean(c.Feasible), Text(c.Reason)
+			if c.Zone == nil {
+				d, f := c.Design, c.Forces.ULS
+				row[8], row[9], row[10], row[11], row[12], row[13] = Decimal(d.Utilisation), Text(d.Governing), Decimal(f.MMax*ToKNm),
+					Decimal(f.MMin*ToKNm), Decimal(f.V*ToKN), Text(d.Summary)
+				if c.Feasible {
+					row[2], row[3], row[4], row[5] = Integer(c.Rank), Decimal(d.Cost), Integer(d.Bolts), Integer(d.Holes)
+					row[6], row[7] = Decimal(d.PlateMass), Decimal(d.Mass())
+				}
 			}
-		}
-		rows = append(rows, row)
-	}
-	return WriteCSV(w, []string{"x_m", "feasible", "rank", "cost", "bolts", "holes", "plate_mass_kg", "splice_mass_kg",
-		"utilisation", "governing", "uls_M_max_kNm", "uls_M_min_kNm", "uls_V_kN", "splice", "reason"}, rows)
+			return row
+		})
 }
 
 // WriteLayoutsCSV writes one row per layout.

@@ -63,14 +63,22 @@ func (c Cell) String() string { return c.s }
 
 // WriteCSV writes a header (the program's own column names) and rows of cells (RFC 4180).
 func WriteCSV(w io.Writer, header []string, rows [][]Cell) error {
+	return writeCSVRows(w, header, len(rows), func(i int, _ []Cell) []Cell { return rows[i] })
+}
+
+// writeCSVRows writes a header and n rows, row i made by row(i, dst) when it is written (dst
+// is the previous row's slice, free to reuse), so that a long table is never held whole.
+func writeCSVRows(w io.Writer, header []string, n int, row func(i int, dst []Cell) []Cell) error {
 	cw := csv.NewWriter(w)
 	if err := cw.Write(header); err != nil {
 		return err
 	}
 	rec := make([]string, 0, len(header))
-	for _, row := range rows {
+	var cells []Cell
+	for i := range n {
+		cells = row(i, cells)
 		rec = rec[:0]
-		for _, c := range row {
+		for _, c := range cells {
 			rec = append(rec, c.s)
 		}
 		if err := cw.Write(rec); err != nil {
