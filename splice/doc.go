@@ -46,9 +46,10 @@
 // plate tension on gross and net section (EN 1993-1-1 6.2.3, Nnet,Rd for category C),
 // compression (6.2.4) and buckling between bolts and across the joint (Table 3.3 note, 6.3.1,
 // curve c, Lcr = 0.6 × the free length); block tearing (3.10.2, 2005 text) of the plates and
-// of the beam flange outstands; beam flange net section (6.2.3, 6.2.5(4)); web plate shear on
-// gross and net section, block tearing, bending with shear and axial force at the bolt column
-// nearest the joint (6.2.8, 6.2.9.1); beam web net shear at the bolts.
+// of the beam flange outstands; beam flange net section (6.2.3, 6.2.5(4); with oversize holes
+// the compression flange too, 6.2.4(3)); web plate shear on gross and net section, block
+// tearing, bending with shear and axial force at the bolt column nearest the joint (6.2.8,
+// 6.2.9.1); beam web net shear at the bolts.
 //
 // Not covered: fatigue, fire, seismic action, lateral-torsional buckling of the member, bolt
 // tension and prying (a cover-plate splice loads its bolts in shear), local buckling of the web

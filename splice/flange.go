@@ -317,6 +317,12 @@ func (x *flangeEval) buckling(d *checkDef, full bool) Check {
 
 type beamNetNums struct {
 	af, afNet, gross, net, res float64
+	// With oversize holes the compression flange is checked too: EN 1993-1-1 6.2.4(3) and
+	// 6.2.5(6) deduct oversize holes in compression, Nc,net,Rd = Af,net·fy/γM0.
+	oversize          bool
+	compNet           float64 // Af,net·fy/γM0 [N] (oversize holes only)
+	demand, governing float64 // the governing demand and resistance [N]
+	compression       bool    // the compression flange governs
 }
 
 func (x *flangeEval) beamNetN() (n beamNetNums) {
@@ -331,15 +337,25 @@ func (x *flangeEval) beamNetN() (n beamNetNums) {
 		n.net = 0.9 * n.afNet * e.m.FuFlange / f.GammaM2
 	}
 	n.res = min(n.gross, n.net)
+	n.demand, n.governing = e.act.Flange.Tension, n.res
+	if n.oversize = e.holes != NormalHoles; n.oversize {
+		n.compNet = max(0, n.afNet) * e.m.FyFlange / f.GammaM0
+		if utilisation(e.act.Flange.Compression, n.compNet) > utilisation(n.demand, n.governing) {
+			n.demand, n.governing, n.compression = e.act.Flange.Compression, n.compNet, true
+		}
+	}
 	return n
 }
 
-func (x *flangeEval) beamNetU() float64 { return utilisation(x.e.act.Flange.Tension, x.beamNetN().res) }
+func (x *flangeEval) beamNetU() float64 {
+	n := x.beamNetN()
+	return utilisation(n.demand, n.governing)
+}
 
 func (x *flangeEval) beamNet(d *checkDef, full bool) Check {
 	e, l, n := x.e, x.l, x.beamNetN()
 	s := e.m.Section
-	c := d.check(x.e, "kN", e.act.Flange.Tension, n.res, toKN)
+	c := d.check(x.e, "kN", n.demand, n.governing, toKN)
 	if !full {
 		return c
 	}
@@ -348,13 +364,23 @@ func (x *flangeEval) beamNet(d *checkDef, full bool) Check {
 	} else {
 		c.Formula = "Ft,Ed ≤ min(Af·fy/γM0, 0.9·Af,net·fu/γM2)"
 	}
+	if n.oversize {
+		c.Formula += "; Fc,Ed ≤ Af,net·fy/γM0 (oversize holes deducted in compression, 6.2.4(3), 6.2.5(6))"
+	}
 	c.Substituted = sprintf("Af = %s×%s = %s mm², Af,net = (%s − %d×%s)×%s = %s mm²; min(%s, %s) = %s kN; Ft,Ed = %s kN",
 		mm(s.B), mm(s.Tf), mm(n.af), mm(s.B), l.cols, mm(x.b.d0), mm(s.Tf), mm(n.afNet), kN(n.gross), kN(n.net), kN(n.res), kN(e.act.Flange.Tension))
+	if n.oversize {
+		c.Substituted += sprintf("; compression: %s × %s / %s = %s kN; Fc,Ed = %s kN",
+			mm(n.afNet), fnum(e.m.FyFlange, 0), f2(e.f.GammaM0), kN(n.compNet), kN(e.act.Flange.Compression))
+	}
 	c.Inputs = []Input{in("fy", e.m.FyFlange, "N/mm²"), in("fu", e.m.FuFlange, "N/mm²")}
 	if 0.9*n.afNet*e.m.FuFlange/e.f.GammaM2 >= n.gross {
 		c.Note = "6.2.5(4): 0.9·Af,net·fu/γM2 ≥ Af·fy/γM0, the holes need not be deducted in the beam's bending resistance; " + e.act.Flange.TensionState
 	} else {
 		c.Note = "6.2.5(4): 0.9·Af,net·fu/γM2 < Af·fy/γM0, the holes reduce the beam's bending resistance at the splice; " + e.act.Flange.TensionState
+	}
+	if n.compression {
+		c.Note += "; the compression flange governs (oversize holes), " + e.act.Flange.CompressionState
 	}
 	return c
 }
