@@ -362,7 +362,7 @@ func (x *webEval) combined(d *checkDef, full bool) Check {
 	if !full {
 		return c
 	}
-	c.Formula = "MEd = |Mw| + |V|·(gap/2 + e1) ≤ MN,V,Rd = W·(1 − ρ)·fy/γM0·[1 − (NEd/Npl,Rd)²], Npl,Rd = " + n.nplText + ", ρ = (2VEd/Vpl,Rd − 1)² when VEd > 0.5·Vpl,Rd"
+	c.Formula = "MEd = |Mw| + |V|·(gap/2 + e1) ≤ MN,V,Rd = Wpl·(1 − ρ)·fy/γM0·[1 − (NEd/Npl,Rd)²], Npl,Rd = " + n.nplText + ", ρ = (2VEd/Vpl,Rd − 1)² when VEd > 0.5·Vpl,Rd"
 	sec := "gross (holes in the tension zone may be ignored, 6.2.5(5))"
 	switch {
 	case n.ignore:
@@ -373,7 +373,7 @@ func (x *webEval) combined(d *checkDef, full bool) Check {
 	default:
 		sec = "net of the holes (6.2.5(5) not met)"
 	}
-	c.Substituted = sprintf("MEd = %s + %s×%s = %s kNm; Vpl,Rd = %s kN, ρ = %s; W = %s mm³ (%s), Npl,Rd = %s kN, NEd = %s kN; MN,V,Rd = %s kNm",
+	c.Substituted = sprintf("MEd = %s + %s×%s = %s kNm; Vpl,Rd = %s kN, ρ = %s; Wpl = %s mm³ (plastic, of the two plates as solid rectangles, %s), Npl,Rd = %s kN, NEd = %s kN; MN,V,Rd = %s kNm",
 		kNm(x.g.mw), kN(n.ved), fnum((e.gap/2+l.eh)*1e-3, 4), kNm(n.med), kN(n.vpl), f3(n.rho), fnum(n.w, 0), sec, kN(n.npl), kN(n.ned), kNm(n.mn))
 	c.Inputs = []Input{in("hp", l.hp, "mm"), in("tp", l.tp, "mm"), in("fy", l.fy, "N/mm²"), in("fu", l.fu, "N/mm²")}
 	c.Note = "both plates together; " + e.act.Web.State
