@@ -48,11 +48,13 @@ func (m *MemberChecks) noteCompression(env *beam.Envelopes) {
 	}
 }
 
-// LTBCaution says what the member checks leave to the engineer.
+// LTBCaution says what the member checks leave to the engineer wherever there is a member:
+// its lateral-torsional buckling and the web under concentrated transverse forces.
 const LTBCaution = "lateral-torsional buckling of the beam (EN 1993-1-1 6.3.2) is outside scope: " +
 	"the compression flange must be restrained laterally — in sagging the top flange, in hogging near " +
 	"the supports the bottom flange — at intervals that make Mb,Rd ≥ M_Ed, or continuously (a fixed deck); " +
-	"check it separately"
+	"check it separately; the web under the support reactions and point loads (resistance to transverse " +
+	"forces, EN 1993-1-5 section 6, with bearing stiffeners where it falls short) is not checked either"
 
 // Fails reports whether the beam fails a cross-section or deflection check.
 func (m *MemberChecks) Fails() bool {
