@@ -19,13 +19,42 @@ type MemberChecks struct {
 	// NoDeflection says why the deflection is not checked (imported forces without w, or a
 	// member without supports); "" when it is.
 	NoDeflection string
+	// Compression is the largest axial compression of the ULS envelope, as a positive force,
+	// and CompressionX where it acts; 0 where the beam carries none (beyond round-off). The
+	// cross-section checks do not cover the buckling of a member in compression
+	// (EN 1993-1-1 6.3.1, 6.3.3): Warnings says so wherever there is any.
+	Compression  float64 // [N]
+	CompressionX float64 // [mm]
 }
 
-// LTBCaution says what the member checks leave to the engineer.
+// BucklingCaution says what the member checks leave to the engineer where the beam carries
+// axial compression.
+const BucklingCaution = "member buckling under the axial compression — flexural buckling " +
+	"(EN 1993-1-1 6.3.1) and buckling with bending (6.3.3) — is not checked; the cross-section " +
+	"checks of 6.2 alone do not show that the member carries it: check it separately with the " +
+	"buckling lengths of the member's restraints"
+
+// compressionRoundOff is the fraction of Npl,Rd below which an axial compression is taken as
+// the round-off of an analysis without axial loads.
+const compressionRoundOff = 1e-9
+
+// noteCompression records the largest axial compression of the ULS envelope.
+func (m *MemberChecks) noteCompression(env *beam.Envelopes) {
+	floor := compressionRoundOff * m.Member.Member.NplRd
+	for i, ex := range env.ULS.NMin {
+		if c := -ex.Value; c > floor && c > m.Compression {
+			m.Compression, m.CompressionX = c, env.Stations[i].X
+		}
+	}
+}
+
+// LTBCaution says what the member checks leave to the engineer wherever there is a member:
+// its lateral-torsional buckling and the web under concentrated transverse forces.
 const LTBCaution = "lateral-torsional buckling of the beam (EN 1993-1-1 6.3.2) is outside scope: " +
 	"the compression flange must be restrained laterally — in sagging the top flange, in hogging near " +
 	"the supports the bottom flange — at intervals that make Mb,Rd ≥ M_Ed, or continuously (a fixed deck); " +
-	"check it separately"
+	"check it separately; the web under the support reactions and point loads (resistance to transverse " +
+	"forces, EN 1993-1-5 section 6, with bearing stiffeners where it falls short) is not checked either"
 
 // Fails reports whether the beam fails a cross-section or deflection check.
 func (m *MemberChecks) Fails() bool {
@@ -41,7 +70,8 @@ func (m *MemberChecks) Fails() bool {
 }
 
 // Warnings are the member's failures in words, one per failing check, for a prominent
-// warning beside the results.
+// warning beside the results, and, where the beam carries axial compression, the member
+// buckling the checks leave out (BucklingCaution).
 func (m *MemberChecks) Warnings() []string {
 	var out []string
 	r := m.Member
@@ -58,6 +88,10 @@ func (m *MemberChecks) Warnings() []string {
 				d.Region.Name, d.W, "L", d.Ratio, d.Limit, d.Combination))
 		}
 	}
+	if m.Compression > 0 {
+		out = append(out, fmt.Sprintf("the beam carries axial compression up to %.1f kN (at x = %.3f m, ULS): %s",
+			m.Compression/1e3, m.CompressionX/1e3, BucklingCaution))
+	}
 	return out
 }
 
@@ -69,6 +103,7 @@ func (s *Setup) CheckMember(an *beam.Analysis, env *beam.Envelopes) (MemberCheck
 	if m.Member, err = s.Member.CheckEnvelopes(env); err != nil {
 		return m, fmt.Errorf("member checks: %w", err)
 	}
+	m.noteCompression(env)
 	if err := m.Member.OutsideScope(); err != nil {
 		if !errors.Is(err, beam.ErrOutsideScope) {
 			return m, err

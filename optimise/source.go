@@ -185,6 +185,7 @@ func (f *tableForces) Member(env *beam.Envelopes) (MemberChecks, error) {
 	if m.Member, err = f.s.Member.CheckEnvelopes(env); err != nil {
 		return m, fmt.Errorf("member checks: %w", err)
 	}
+	m.noteCompression(env)
 	if err := m.Member.OutsideScope(); err != nil {
 		if !errors.Is(err, beam.ErrOutsideScope) {
 			return m, err
