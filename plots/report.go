@@ -492,7 +492,7 @@ func (w *reportWriter) envelopes() {
 	}
 	d.table(table{Columns: []column{{"support", 0.7, true}, {"x", 0.9, true}, {"state", 0.8, false}, {"Fz [kN]", 0.9, true},
 		{"combination and pattern", 5, false}}, Rows: rows})
-	d.small("Fz is the vertical reaction, upward positive; a negative minimum is uplift, to be held down.")
+	d.small("Fz is the vertical reaction, upward positive; a negative minimum is uplift, to be held down. " + encode.ReactionsNote)
 	w.member()
 }
 

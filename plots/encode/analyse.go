@@ -499,6 +499,9 @@ func writeEnvelopeText(w io.Writer, s *optimise.Setup, env *beam.Envelopes, m *o
 			Clean(sr.FzMax.Value*ToKN), Clean(sr.FzMin.Value*ToKN), env.Governing(r.FzMax))
 	}
 	tw.Flush()
+	if len(env.ULSReactions) > 0 {
+		fmt.Fprintln(w, ReactionsNote)
+	}
 	fmt.Fprintln(w, "\nExtremes and what governs them")
 	tw = Table(w)
 	extreme := func(label string, ex []beam.Extreme, f float64, unit string, seekMax bool) {

@@ -2,6 +2,7 @@ package encode
 
 import (
 	"bytes"
+	"encoding/json"
 	"fmt"
 	"strings"
 	"testing"
@@ -223,4 +224,62 @@ func TestStreamedOptimiseEqualsTheDocument(t *testing.T) {
 			require.Equal(t, want.String(), got.String())
 		})
 	}
+}
+
+// TestMemberJSONCarriesTheWarnings: the JSON member check carries the warnings the text
+// prints — here that member buckling (EN 1993-1-1 6.3.1, 6.3.3) is not checked on an IPE 300
+// carrying a 400 kN thrust (invented job; the buckling worked by hand in optimise's
+// TestCompressionNamesTheUncheckedMemberBuckling) — and an empty list, not null, without any.
+func TestMemberJSONCarriesTheWarnings(t *testing.T) {
+	job := `beam:
+  section: IPE 300
+  grade: S355
+  spans: [6.0]
+  supports: [pinned, roller]
+  self_weight: false
+cases:
+  G: {kind: permanent, loads: [{udl: 20}, {axial: -400, at: 6.0}]}
+`
+	for _, tc := range []struct {
+		name, job string
+		want      string
+	}{
+		{"thrust", job, "6.3.1"},
+		{"no thrust", strings.Replace(job, ", {axial: -400, at: 6.0}", "", 1), ""},
+	} {
+		s, err := optimise.Prepare("member.yaml", []byte(tc.job))
+		require.NoError(t, err)
+		o, err := optimise.AnalyseBeam(s, optimise.BeamSettings{Step: 500})
+		require.NoError(t, err)
+		var got bytes.Buffer
+		require.NoError(t, WriteAnalysis(&got, "json", o))
+		var doc struct {
+			Member struct {
+				Warnings []string `json:"warnings"`
+			} `json:"member"`
+		}
+		require.NoError(t, json.Unmarshal(got.Bytes(), &doc), tc.name)
+		require.NotNil(t, doc.Member.Warnings, "%s: a list, never null", tc.name)
+		if tc.want == "" {
+			require.Empty(t, doc.Member.Warnings, tc.name)
+		} else {
+			require.Contains(t, strings.Join(doc.Member.Warnings, "\n"), tc.want, tc.name)
+		}
+	}
+}
+
+// TestReactionsSayTheyAreSTR: the reaction table of the envelopes says that its ULS values are
+// the STR set (EN 1990 Table A1.2(B)) and that holding-down needs the EQU set (Table A1.2(A)),
+// which is not formed — a reviewer's 6 m span with a 3 m overhang showed the STR minimum
+// (11.25 kN) above the EQU one.
+func TestReactionsSayTheyAreSTR(t *testing.T) {
+	s, err := optimise.Prepare("demo.yaml", optimise.DemoJob())
+	require.NoError(t, err)
+	o, err := optimise.AnalyseBeam(s, optimise.BeamSettings{Step: 500})
+	require.NoError(t, err)
+	var got bytes.Buffer
+	require.NoError(t, WriteAnalysis(&got, "text", o))
+	require.Contains(t, got.String(), "Support reactions [kN]\n")
+	require.Contains(t, got.String(), ReactionsNote)
+	require.Contains(t, ReactionsNote, "Table A1.2(A)")
 }

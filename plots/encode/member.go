@@ -13,17 +13,18 @@ import (
 // governing station: the worst class over the beam, Mc,Rd and Vc,Rd of the governing
 // section, the utilisation, where and under which combination.
 type MemberDoc struct {
-	Class        string  `json:"class"`
-	McRd         Num     `json:"Mc_Rd"`
-	VcRd         Num     `json:"Vc_Rd"`
-	Utilisation  Num     `json:"utilisation"`
-	X            Num     `json:"x"`
-	Combination  string  `json:"combination"`
-	Check        string  `json:"check"`
-	Pairing      string  `json:"pairing"`
-	Pass         bool    `json:"pass"`
-	OutsideScope *string `json:"outside_scope"`
-	Caution      string  `json:"caution"`
+	Class        string   `json:"class"`
+	McRd         Num      `json:"Mc_Rd"`
+	VcRd         Num      `json:"Vc_Rd"`
+	Utilisation  Num      `json:"utilisation"`
+	X            Num      `json:"x"`
+	Combination  string   `json:"combination"`
+	Check        string   `json:"check"`
+	Pairing      string   `json:"pairing"`
+	Pass         bool     `json:"pass"`
+	OutsideScope *string  `json:"outside_scope"`
+	Warnings     []string `json:"warnings"` // as the text prints them: a failure, compression the checks leave unchecked
+	Caution      string   `json:"caution"`
 }
 
 // DeflectionDoc is one span or overhang's SLS deflection against its limit.
@@ -44,7 +45,7 @@ func Member(m *optimise.MemberChecks) MemberDoc {
 	r := m.Member
 	d := MemberDoc{Class: r.Class.String(), McRd: Num(r.McRd * ToKNm), VcRd: Num(r.VcRd * ToKN), Utilisation: Num(r.Utilisation),
 		X: Num(r.X * ToM), Combination: r.Combination, Check: r.Check, Pairing: r.Pairing.String(),
-		Pass: m.Scope == nil && r.Utilisation <= 1, Caution: optimise.LTBCaution}
+		Pass: m.Scope == nil && r.Utilisation <= 1, Warnings: append([]string{}, m.Warnings()...), Caution: optimise.LTBCaution}
 	if m.Scope != nil {
 		d.OutsideScope = ptr(m.Scope.Error())
 	}
