@@ -63,12 +63,7 @@ func TestShelfSizerEqualsSize(t *testing.T) {
 	for i := 0; i < 24; i++ {
 		p := bases[i%2]
 		p.PlateSteel = steelS355() // each job resolves its own steel, as each job file does
-		f := 0.3 + 3.5*rng.Float64()
-		p.ULS = Forces{MMax: f * p.ULS.MMax, MMin: f * p.ULS.MMin, V: f * p.ULS.V, NMax: f * p.ULS.NMax, NMin: f * p.ULS.NMin}
-		if p.SLS != nil {
-			sls := Forces{MMax: p.ULS.MMax / 1.4, MMin: p.ULS.MMin / 1.4, V: p.ULS.V / 1.4}
-			p.SLS = &sls
-		}
+		scaleForces(&p, 0.3+3.5*rng.Float64())
 		want, err := Size(p)
 		require.NoError(t, err)
 		jobs = append(jobs, job{p, want})

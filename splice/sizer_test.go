@@ -23,12 +23,7 @@ func TestSizerEqualsSize(t *testing.T) {
 		var jobs []job
 		for i := 0; i < 12; i++ {
 			p := base
-			f := 0.3 + 3.5*rng.Float64()
-			p.ULS = Forces{MMax: f * base.ULS.MMax, MMin: f * base.ULS.MMin, V: f * base.ULS.V, NMax: f * base.ULS.NMax, NMin: f * base.ULS.NMin}
-			if base.SLS != nil {
-				sls := Forces{MMax: p.ULS.MMax / 1.4, MMin: p.ULS.MMin / 1.4, V: p.ULS.V / 1.4}
-				p.SLS = &sls
-			}
+			scaleForces(&p, 0.3+3.5*rng.Float64())
 			want, err := Size(p)
 			require.NoError(t, err)
 			jobs = append(jobs, job{p, want})
@@ -52,5 +47,16 @@ func TestSizerEqualsSize(t *testing.T) {
 			require.Equal(t, j.want.Utilisation, got[i].Utilisation, "problem %d, forces %d", k, i)
 			require.Equal(t, j.want.Governing, got[i].Governing, "problem %d, forces %d", k, i)
 		}
+	}
+}
+
+// scaleForces multiplies p's ULS forces by f and, when p has SLS forces, sets them to the ULS
+// ones over 1.4 (N left out), so that one problem is sized at many positions' forces.
+func scaleForces(p *Problem, f float64) {
+	u := p.ULS
+	p.ULS = Forces{MMax: f * u.MMax, MMin: f * u.MMin, V: f * u.V, NMax: f * u.NMax, NMin: f * u.NMin}
+	if p.SLS != nil {
+		sls := Forces{MMax: p.ULS.MMax / 1.4, MMin: p.ULS.MMin / 1.4, V: p.ULS.V / 1.4}
+		p.SLS = &sls
 	}
 }
